@@ -1,0 +1,24 @@
+import js from '@eslint/js';
+import tseslint from 'typescript-eslint';
+
+export default tseslint.config(
+  { ignores: ['node_modules', '.next', '.data', 'samples', 'test-results', 'playwright-report', 'artifacts', 'next-env.d.ts'] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    files: ['**/*.mjs', 'scripts/**'],
+    languageOptions: { globals: { process: 'readonly', console: 'readonly', URL: 'readonly' } },
+  },
+  {
+    rules: {
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-non-null-assertion': 'off',
+    },
+  },
+  {
+    files: ['signal/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: ['node:*', 'fs', 'path', 'react', 'next/*'] }],
+    },
+  },
+);

@@ -1,0 +1,110 @@
+/** Command line: analyse one capture file and print the per-cylinder result (or JSON with --json). */
+import { readFileSync, statSync } from 'node:fs';
+import { parseArgs } from 'node:util';
+import {
+  analyzeBytes,
+  type AnalysisSettings,
+  CaptureError,
+  isCaptureError,
+  MAX_CAPTURE_BYTES,
+  parseFiringOrder,
+  parseToothPattern,
+} from '../signal';
+
+function usage(): never {
+  return fail('Usage: npm run --silent analyze -- FILE --cylinders N --firing-order 1-3-4-2 [--method auto|current|crank-speed] [--teeth 60-2] [--low-limit 90] [--json]');
+}
+
+let json = process.argv.includes('--json');
+
+function fail(message: string, code = 'BAD_INPUT'): never {
+  process.stderr.write(`${message}\n`);
+  if (json) process.stdout.write(`${JSON.stringify({ error: { code, message } })}\n`);
+  process.exit(2);
+}
+
+function main() {
+  let parsed;
+  try {
+    parsed = parseArgs({
+      allowPositionals: true,
+      options: {
+        cylinders: { type: 'string' },
+        'firing-order': { type: 'string' },
+        method: { type: 'string', default: 'auto' },
+        teeth: { type: 'string' },
+        'low-limit': { type: 'string', default: '90' },
+        'spread-limit': { type: 'string', default: '10' },
+        intervals: { type: 'string' },
+        'sample-rate': { type: 'string' },
+        rotation: { type: 'string', default: '0' },
+        json: { type: 'boolean', default: false },
+      },
+    });
+  } catch (e) {
+    fail(`${(e as Error).message}.`);
+  }
+  const { values, positionals } = parsed;
+  json = !!values.json;
+  const file = positionals[0];
+  if (!file || positionals.length > 1) usage();
+  const cylinders = Number(values.cylinders);
+  if (!values.cylinders || !Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) fail('Give --cylinders as a whole number from 1 to 16.');
+  if (!values['firing-order']) fail('Give --firing-order, for example 1-3-4-2.');
+  const method = values.method;
+  if (method !== 'auto' && method !== 'current' && method !== 'crank-speed') fail('--method must be auto, current or crank-speed.');
+  const lowLimit = Number(values['low-limit']);
+  if (!(lowLimit > 0 && lowLimit < 100)) fail('--low-limit must be a percentage between 0 and 100.');
+  const spreadLimit = Number(values['spread-limit']);
+  if (!(spreadLimit > 0 && spreadLimit < 100)) fail('--spread-limit must be a percentage between 0 and 100.');
+  const teeth = values.teeth ? parseToothPattern(values.teeth) : undefined;
+  if (values.teeth && !teeth) fail(`--teeth must look like 60-2 or 36-1, not "${values.teeth}".`);
+  const sampleRate = values['sample-rate'] ? Number(values['sample-rate']) : undefined;
+  if (sampleRate !== undefined && !(sampleRate > 0)) fail('--sample-rate must be a positive number of samples per second.');
+
+  let bytes: Uint8Array;
+  try {
+    const st = statSync(file);
+    if (!st.isFile()) fail(`${file} is not a file.`);
+    if (st.size > MAX_CAPTURE_BYTES) fail(`${file} is ${(st.size / 1048576).toFixed(0)} MB; captures up to 256 MB are accepted.`, 'TOO_LARGE');
+    bytes = readFileSync(file);
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code === 'ENOENT') fail(`No file at ${file}.`);
+    throw e;
+  }
+  try {
+    const settings: AnalysisSettings = {
+      engine: {
+        cylinders,
+        firingOrder: parseFiringOrder(values['firing-order']!, cylinders),
+        intervalsDeg: values.intervals ? values.intervals.split(/[-,/]/).map(Number) : undefined,
+      },
+      method,
+      teeth: teeth ?? undefined,
+      lowLimitPercent: lowLimit,
+      spreadLimitPercent: spreadLimit,
+      rotation: Number(values.rotation) || 0,
+    };
+    const { result } = analyzeBytes(bytes, settings, { sampleRateHz: sampleRate });
+    if (json) {
+      process.stdout.write(`${JSON.stringify(result)}\n`);
+      return;
+    }
+    const lines = [
+      `Method ${result.method}, cranking ${result.crankingRpm} rpm, cylinder identity ${result.identity}, verdict ${result.verdict}`,
+      ...result.cylinders.map((c) => `  cylinder ${String(c.cylinder).padStart(2)}  ${c.relativePercent.toFixed(1).padStart(5)} %  ${c.status.padEnd(9)} ${c.events} events`),
+      `Spread ${result.spreadPercent} points. ${result.pattern.hint}`,
+      ...result.warnings.map((w) => `  ! ${w.code}: ${w.message}`),
+    ];
+    process.stdout.write(`${lines.join('\n')}\n`);
+  } catch (e) {
+    if (isCaptureError(e)) fail(describe(e), e.code);
+    throw e;
+  }
+}
+
+function describe(e: CaptureError): string {
+  return e.message;
+}
+
+main();

@@ -1,0 +1,95 @@
+/**
+ * The torque shape of one nominal cylinder through its 720° cycle: (p/p0 − 1)·d(V/Vc)/dθ, with the
+ * slider-crank volume and polytropic compression of the trapped charge between intake closing and exhaust opening.
+ */
+import { volumeRatio, volumeRatioSlope } from './geometry';
+
+export interface GasModel {
+  /** @default 10 */
+  compressionRatio: number;
+  /** Connecting rod / crank radius. @default 3.3 */
+  rodRatio: number;
+  /** Intake valve closing, degrees after bottom dead centre. @default 45 */
+  ivcAbdcDeg: number;
+  /** Exhaust valve opening, degrees before bottom dead centre. @default 45 */
+  evoBbdcDeg: number;
+  /** Polytropic exponent. @default 1.3 */
+  n: number;
+}
+
+export const GENERIC_GAS: GasModel = { compressionRatio: 10, rodRatio: 3.3, ivcAbdcDeg: 45, evoBbdcDeg: 45, n: 1.3 };
+
+/** Samples per degree in the tabulated shape. */
+export const TORQUE_TABLE_STEPS_PER_DEG = 2;
+
+/**
+ * Tabulates the torque shape over ψ ∈ [−360°, 360°) (ψ = 0 at compression TDC), negative while compressing.
+ * Index i holds ψ = −360 + i / TORQUE_TABLE_STEPS_PER_DEG.
+ */
+export function gasTorqueTable(model: GasModel = GENERIC_GAS): Float64Array {
+  const size = 720 * TORQUE_TABLE_STEPS_PER_DEG;
+  const table = new Float64Array(size);
+  const rad = Math.PI / 180;
+  const ivc = -180 + model.ivcAbdcDeg;
+  const evo = 180 - model.evoBbdcDeg;
+  const vIvc = volumeRatio(model.compressionRatio, model.rodRatio, ivc * rad);
+  for (let i = 0; i < size; i++) {
+    const psi = -360 + i / TORQUE_TABLE_STEPS_PER_DEG;
+    if (psi < ivc || psi > evo) continue;
+    const v = volumeRatio(model.compressionRatio, model.rodRatio, psi * rad);
+    const pRel = Math.pow(vIvc / v, model.n);
+    table[i] = (pRel - 1) * volumeRatioSlope(model.compressionRatio, model.rodRatio, psi * rad);
+  }
+  return table;
+}
+
+/** Looks up the table at ψ degrees (any value; wrapped into the 720° cycle), linearly interpolated. */
+export function torqueAt(table: Float64Array, psiDeg: number): number {
+  let x = (psiDeg + 360) % 720;
+  if (x < 0) x += 720;
+  const f = x * TORQUE_TABLE_STEPS_PER_DEG;
+  const i = Math.floor(f);
+  const j = i + 1 === table.length ? 0 : i + 1;
+  const w = f - i;
+  return table[i] * (1 - w) + table[j] * w;
+}
+
+/** Leak rates (1/s) of the shape family the fit chooses from: sealed to nearly open. */
+export const LEAK_FAMILY_PER_S = [0, 0.15, 0.3, 0.6, 1, 1.6, 2.5, 4, 6.5, 10, 16, 30, 80];
+
+export interface LeakyShape {
+  leakPerS: number;
+  table: Float64Array;
+  /** Peak gauge pressure relative to the sealed cylinder's. */
+  peakRatio: number;
+}
+
+/**
+ * The torque shape of a cylinder that loses charge while turning at a steady `rpm`: the leak's flow grows with
+ * the pressure difference (dm/dt = −λ·m·(p − p0)/p0), so its loss is concentrated near TDC and the expansion
+ * returns less than the compression took. Also gives the peak pressure relative to a sealed cylinder.
+ */
+export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number): LeakyShape {
+  const size = 720 * TORQUE_TABLE_STEPS_PER_DEG;
+  const table = new Float64Array(size);
+  const rad = Math.PI / 180;
+  const ivc = -180 + model.ivcAbdcDeg;
+  const evo = 180 - model.evoBbdcDeg;
+  const vIvc = volumeRatio(model.compressionRatio, model.rodRatio, ivc * rad);
+  const dtPerStep = 1 / TORQUE_TABLE_STEPS_PER_DEG / (6 * Math.max(30, rpm));
+  let mass = 1;
+  let peak = 0;
+  let sealedPeak = 0;
+  for (let i = 0; i < size; i++) {
+    const psi = -360 + i / TORQUE_TABLE_STEPS_PER_DEG;
+    if (psi < ivc || psi > evo) continue;
+    const v = volumeRatio(model.compressionRatio, model.rodRatio, psi * rad);
+    const sealed = Math.pow(vIvc / v, model.n) - 1;
+    const gauge = Math.pow((mass * vIvc) / v, model.n) - 1;
+    if (gauge > peak) peak = gauge;
+    if (sealed > sealedPeak) sealedPeak = sealed;
+    table[i] = gauge * volumeRatioSlope(model.compressionRatio, model.rodRatio, psi * rad);
+    if (gauge > 0) mass *= Math.exp(-leakPerS * gauge * dtPerStep);
+  }
+  return { leakPerS, table, peakRatio: sealedPeak > 0 ? peak / sealedPeak : 1 };
+}

@@ -1,0 +1,98 @@
+/** Checks decoded columns: time going backwards, gaps, missing values and clipped (flat-topped) signals. */
+import { type QualityWarning, warning } from '../steps/warnings';
+
+/** Warnings about the time column; `firstLine` maps row 0 to its line in the file. */
+export function checkTime(t: Float64Array, firstLine: number): QualityWarning[] {
+  const out: QualityWarning[] = [];
+  let backwards = 0;
+  let firstBack = -1;
+  let nan = 0;
+  for (let i = 1; i < t.length; i++) {
+    if (Number.isNaN(t[i])) nan++;
+    else if (t[i] <= t[i - 1]) {
+      backwards++;
+      if (firstBack < 0) firstBack = i;
+    }
+  }
+  if (backwards > 0) {
+    out.push(warning('TIME_NOT_MONOTONIC', `Time goes backwards or repeats ${backwards} time(s), first at line ${firstBack + firstLine}; the file may join two recordings. Export one recording per file.`));
+  }
+  if (nan > 0) out.push(warning('MISSING_VALUES', `${nan} time value(s) are missing; those rows are ignored.`));
+  // Gaps: steps more than 3× the median step.
+  if (t.length > 10) {
+    const probe: number[] = [];
+    const stride = Math.max(1, Math.floor(t.length / 2000));
+    for (let i = stride; i < t.length; i += stride) probe.push((t[i] - t[i - stride]) / stride);
+    probe.sort((a, b) => a - b);
+    const step = probe[probe.length >> 1];
+    let gaps = 0;
+    let firstGap = -1;
+    for (let i = 1; i < t.length; i++) {
+      if (t[i] - t[i - 1] > 3 * step) {
+        gaps++;
+        if (firstGap < 0) firstGap = i;
+      }
+    }
+    if (gaps > 0) out.push(warning('TIME_GAPS', `The recording has ${gaps} gap(s) in time, first at line ${firstGap + firstLine}; the logger dropped samples. Record again at a rate it can keep up with.`));
+  }
+  return out;
+}
+
+/** Share of samples sitting in flat runs (≥ 5 samples) at the column's extreme value. */
+export function clippedShare(v: Float64Array): number {
+  let hi = -Infinity;
+  let lo = Infinity;
+  for (let i = 0; i < v.length; i++) {
+    const x = v[i];
+    if (x > hi) hi = x;
+    if (x < lo) lo = x;
+  }
+  if (!(hi > lo)) return 0;
+  let flat = 0;
+  let run = 0;
+  for (let i = 0; i < v.length; i++) {
+    if (v[i] === hi) run++;
+    else {
+      if (run >= 5) flat += run;
+      run = 0;
+    }
+  }
+  if (run >= 5) flat += run;
+  return flat / v.length;
+}
+
+export function checkValues(name: string, v: Float64Array, clipMatters: boolean): QualityWarning[] {
+  const out: QualityWarning[] = [];
+  let nan = 0;
+  for (let i = 0; i < v.length; i++) if (Number.isNaN(v[i])) nan++;
+  if (nan === v.length) out.push(warning('MISSING_VALUES', `The ${name} channel holds no numbers at all; check the column mapping.`));
+  else if (nan > 0) out.push(warning('MISSING_VALUES', `The ${name} channel has ${nan} missing value(s); they are filled from their neighbours.`));
+  if (clipMatters && clippedShare(v) > 0.002) {
+    out.push(warning('CLIPPED_SIGNAL', `The ${name} channel is flat-topped (clipped) at its highest value; set a larger range on the scope or probe and record again.`));
+  }
+  return out;
+}
+
+/** Replaces NaN with the previous value (or the next for leading NaN). Returns how many were filled. */
+export function fillMissing(v: Float64Array): number {
+  let filled = 0;
+  let last = NaN;
+  for (let i = 0; i < v.length; i++) {
+    if (Number.isNaN(v[i])) {
+      if (!Number.isNaN(last)) {
+        v[i] = last;
+        filled++;
+      }
+    } else last = v[i];
+  }
+  let first = NaN;
+  for (let i = v.length - 1; i >= 0; i--) {
+    if (Number.isNaN(v[i])) {
+      if (!Number.isNaN(first)) {
+        v[i] = first;
+        filled++;
+      }
+    } else first = v[i];
+  }
+  return filled;
+}

@@ -1,0 +1,109 @@
+/** Maps a capture's columns to channels from their names, units and values, each with a confidence 0…1. */
+import type { HeaderCell } from './header';
+import { timeScale } from './header';
+
+export type ChannelRole = 'time' | 'current' | 'crank' | 'sync' | 'rpm' | 'toothTimes' | 'ignore';
+
+export interface ChannelMapping {
+  /** Role per column, in column order. */
+  roles: ChannelRole[];
+  /** Confidence per column, 0…1. */
+  confidence: number[];
+  /** Seconds per unit of the time (or tooth-time) column. */
+  timeScale: number;
+  /** The time column counts samples and needs a sample rate. */
+  timeIsIndex: boolean;
+}
+
+const RULES: { role: ChannelRole; name: RegExp; units: RegExp }[] = [
+  { role: 'time', name: /^(t|time|zeit|temps|sec|seconds|timestamp)\b/i, units: /^(s|ms|us|µs|μs|ns|sec|msec)$/i },
+  { role: 'rpm', name: /rpm|engine.?speed|crank.?speed|speed/i, units: /^(rpm|1\/min|min-1|u\/min)$/i },
+  { role: 'current', name: /current|amp|starter|clamp|strom|\bi\b/i, units: /^(a|amps?|ampere)$/i },
+  { role: 'sync', name: /sync|cyl(inder)?.?1|trigger|ign|coil|inj|cam|cmp/i, units: /^$/ },
+  { role: 'crank', name: /crank|ckp|cps|tooth|hall|vr|reluctance|sensor/i, units: /^(v|mv)$/i },
+];
+
+/** Guesses roles; `values` holds the first decoded rows of each column (for monotonic checks). */
+export function mapChannels(cells: HeaderCell[], values: Float64Array[]): ChannelMapping {
+  const n = cells.length;
+  const roles: ChannelRole[] = new Array(n).fill('ignore');
+  const confidence: number[] = new Array(n).fill(0);
+  const taken = new Set<ChannelRole>();
+  const assign = (i: number, role: ChannelRole, c: number) => {
+    roles[i] = role;
+    confidence[i] = c;
+    if (role !== 'ignore') taken.add(role);
+  };
+
+  if (n === 1) {
+    const mono = isIncreasing(values[0]);
+    assign(0, 'toothTimes', mono ? (/tooth|edge|time/i.test(cells[0].name) ? 0.95 : 0.75) : 0.2);
+    return { roles, confidence, timeScale: timeScale(cells[0].unit) ?? 1, timeIsIndex: false };
+  }
+
+  // Names and units first.
+  for (let i = 0; i < n; i++) {
+    const { name, unit } = cells[i];
+    for (const r of RULES) {
+      if (taken.has(r.role)) continue;
+      const byName = r.name.test(name);
+      const byUnit = unit !== null && r.units.source !== '^$' && r.units.test(unit.trim());
+      if (byName && byUnit) assign(i, r.role, 0.95);
+      else if (byUnit && r.role !== 'crank') assign(i, r.role, 0.85);
+      else if (byName) assign(i, r.role, r.role === 'crank' || r.role === 'sync' ? 0.8 : 0.75);
+      if (roles[i] !== 'ignore') break;
+    }
+  }
+  // A volt column left over is a crank sensor when none is mapped, else a sync channel.
+  for (let i = 0; i < n; i++) {
+    if (roles[i] !== 'ignore') continue;
+    const u = cells[i].unit?.trim().toLowerCase();
+    if (u === 'v' || u === 'mv') {
+      if (!taken.has('crank')) assign(i, 'crank', 0.5);
+      else if (!taken.has('sync')) assign(i, 'sync', 0.5);
+    }
+  }
+  // No time column by name: the first increasing column, with a low confidence.
+  if (!taken.has('time') && isIncreasing(values[0])) assign(0, 'time', 0.6);
+  // Positional guesses for what is left: current, then sync.
+  for (let i = 0; i < n; i++) {
+    if (roles[i] !== 'ignore') continue;
+    if (!taken.has('current') && !taken.has('crank') && !taken.has('rpm')) assign(i, 'current', 0.4);
+    else if (!taken.has('sync') && looksLikePulses(values[i])) assign(i, 'sync', 0.45);
+  }
+  const ti = roles.indexOf('time');
+  const unit = ti >= 0 ? cells[ti].unit : null;
+  const scale = timeScale(unit);
+  const timeIsIndex = ti >= 0 && scale === null && (/index|sample|^n$|^#$/i.test(cells[ti].name) || isIntegerRamp(values[ti]));
+  return { roles, confidence, timeScale: scale ?? 1, timeIsIndex };
+}
+
+/** The lowest confidence among mapped columns: below 0.7 the user should confirm the mapping. */
+export function mappingConfidence(m: ChannelMapping): number {
+  let c = 1;
+  for (let i = 0; i < m.roles.length; i++) if (m.roles[i] !== 'ignore') c = Math.min(c, m.confidence[i]);
+  return m.roles.every((r) => r === 'ignore') ? 0 : c;
+}
+
+function isIncreasing(v: Float64Array | undefined): boolean {
+  if (!v || v.length < 3) return false;
+  for (let i = 1; i < v.length; i++) if (!(v[i] > v[i - 1])) return false;
+  return true;
+}
+
+function isIntegerRamp(v: Float64Array | undefined): boolean {
+  if (!v || v.length < 3) return false;
+  for (let i = 0; i < v.length; i++) if (v[i] !== Math.round(v[i])) return false;
+  return isIncreasing(v) && v[1] - v[0] === 1;
+}
+
+function looksLikePulses(v: Float64Array | undefined): boolean {
+  if (!v || v.length < 3) return false;
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < v.length; i++) {
+    lo = Math.min(lo, v[i]);
+    hi = Math.max(hi, v[i]);
+  }
+  return hi - lo > 1;
+}

@@ -1,0 +1,28 @@
+/** The engine's public surface: import a capture, analyse it, decimate for drawing. */
+import { analyzeCapture } from './analyze';
+import { type ImportOptions, importCapture, type ImportedCapture } from './import/import-capture';
+import type { AnalysisResult, AnalysisSettings } from './types';
+
+export { analyzeCapture } from './analyze';
+export { CaptureImporter, importCapture, MAX_CAPTURE_BYTES } from './import/import-capture';
+export type { ChannelInfo, ImportedCapture, ImportOptions } from './import/import-capture';
+export type { ChannelRole } from './import/map-channels';
+export { decimateMinMax, indexAtTime } from './dsp/decimate';
+export { CaptureError, isCaptureError } from './errors';
+export { ENGINE_VERSION } from './version';
+export { ENGINE_PROFILES } from './engine/profiles';
+export { parseFiringOrder, checkFiringOrder, areNeighbours } from './engine/firing';
+export type { EngineSetup, BankLayout, Numbering } from './engine/firing';
+export { parseToothPattern } from './teeth/tooth-angles';
+export type * from './types';
+export type { QualityWarning, WarningCode } from './steps/warnings';
+
+/** Imports and analyses a file held in memory: what the server does when it saves an analysis. */
+export function analyzeBytes(
+  bytes: Uint8Array,
+  settings: AnalysisSettings,
+  options: ImportOptions = {},
+): { capture: ImportedCapture; result: AnalysisResult } {
+  const capture = importCapture(bytes, options);
+  return { capture, result: analyzeCapture(capture.columns, settings, capture.warnings) };
+}

@@ -1,0 +1,129 @@
+/**
+ * The starter-current method: smooth and down-sample the current, find the cranking window and the event
+ * rate, place crank-angle marks (sync pulses 720° apart, or current peaks one firing interval apart), build the
+ * crank angle from the DC-motor relation ω ∝ (I_stall − I), and fit the torque balance.
+ */
+import { type EngineSetup, firingIntervals } from '../engine/firing';
+import { indexAtTime } from '../dsp/decimate';
+import { estimateRate } from '../dsp/event-rate';
+import { blockMean, movingAverage } from '../dsp/smooth';
+import { quantile } from '../dsp/stats';
+import { windowFromCurrent, type CrankingWindow } from '../steps/cranking-window';
+import { type CrankMotion, motionFromCurrent } from '../steps/crank-motion';
+import { findPeaks } from '../steps/find-peaks';
+import { symmetryStep } from '../steps/identity';
+import { runFit } from '../steps/run-fit';
+import { findSyncPulses } from '../steps/sync-pulses';
+import type { TorqueFit } from '../steps/torque-fit';
+import { type QualityWarning, warning } from '../steps/warnings';
+
+export interface MethodRun {
+  motion: CrankMotion;
+  fit: TorqueFit;
+  window: CrankingWindow;
+  rpm: number;
+  identity: 'sync' | 'assumed';
+  warnings: QualityWarning[];
+}
+
+export type MethodOutcome = { ok: true; run: MethodRun } | { ok: false; warnings: QualityWarning[] };
+
+/** Target rate of the down-sampled current, Hz. */
+const ANALYSIS_RATE_HZ = 1000;
+
+export function runCurrentMethod(
+  time: Float64Array,
+  current: Float64Array,
+  sync: Float64Array | undefined,
+  setup: EngineSetup,
+  rotation: number,
+  windowOverride?: CrankingWindow,
+): MethodOutcome {
+  const warnings: QualityWarning[] = [];
+  const n = setup.cylinders;
+  const fs = (time.length - 1) / (time[time.length - 1] - time[0]);
+  const factor = Math.max(1, Math.round(fs / ANALYSIS_RATE_HZ));
+  const rate = fs / factor;
+  if (rate < 200) {
+    return fail('SAMPLE_RATE_TOO_LOW', `The current was sampled at ${Math.round(fs)} samples/s; record at 1,000 samples/s or more (5,000–10,000 is best).`);
+  }
+  // 5 ms moving average removes commutator ripple, then block means down-sample.
+  const smooth = movingAverage(current, Math.max(1, Math.round(fs * 0.005)));
+  const it = blockMean(time, factor);
+  const ic = blockMean(smooth, factor);
+  const window = windowOverride ?? windowFromCurrent(it, ic);
+  if (!window) {
+    return fail('NO_CRANKING', 'No cranking was found in the current: it never rose and settled at a cranking level. Check the clamp is on the starter cable, its direction and range, and record 5–10 s of cranking.');
+  }
+  const a = indexAtTime(it, window.startS);
+  const b = indexAtTime(it, window.endS);
+  const slice = ic.subarray(a, b);
+  const iv = firingIntervals(setup);
+  // The crank repeats its pattern N/step times a cycle (every event on an even-fire engine, every second on a
+  // 90°/150° V6): search for that rate so the strongest component is the fundamental.
+  const step = symmetryStep(iv);
+  const perCycle = n / step;
+  const est = estimateRate(slice, rate, (perCycle * 60) / 120, (perCycle * 600) / 120);
+  if (!est) return fail('NO_CRANKING', 'The cranking window is too short to find compression events; record 5–10 s of cranking.');
+  let rpm = (120 * est.frequencyHz) / perCycle;
+
+  // Marks: sync pulses (720° apart) when there are enough, else current peaks (one firing interval apart).
+  let marks: number[] = [];
+  let markAngles: number[] = [];
+  let identity: 'sync' | 'assumed' = 'assumed';
+  if (sync) {
+    const cycleS = 120 / rpm;
+    const pulses = findSyncPulses(time, sync, 0.4 * cycleS).filter((s) => s >= window.startS && s <= window.endS);
+    if (pulses.length >= 3) {
+      marks = pulses;
+      markAngles = pulses.map(() => 720);
+      identity = 'sync';
+      rpm = (120 * (pulses.length - 1)) / (pulses[pulses.length - 1] - pulses[0]);
+    } else {
+      warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
+    }
+  }
+  if (identity === 'assumed') {
+    const shortestS = Math.min(...iv) / (6 * rpm);
+    const peaks = findPeaks(ic, Math.max(2, Math.round(0.6 * shortestS * rate)), a, b);
+    marks = peaks.map((i) => it[i]);
+    markAngles = alignIntervals(marks, iv);
+    if (marks.length < 2 * n) return fail('TOO_FEW_CYCLES', 'Fewer than two engine cycles were found in the current; crank for 5–10 s.');
+  }
+
+  const hi = quantile(slice, 0.99);
+  let best: { fit: TorqueFit; motion: CrankMotion; score: number } | null = null;
+  for (const k of [1.3, 1.7, 2.3, 3.2]) {
+    const motion = motionFromCurrent(it, ic, marks, markAngles, k * hi);
+    const fit = runFit(motion, setup, identity === 'sync', rotation);
+    if (fit && (!best || fit.r2 > best.score)) best = { fit, motion, score: fit.r2 };
+  }
+  if (!best) return fail('TOO_FEW_CYCLES', 'The current holds too little cranking to fit; crank for 5–10 s.');
+  return { ok: true, run: { motion: best.motion, fit: best.fit, window, rpm, identity, warnings } };
+
+  function fail(code: Parameters<typeof warning>[0], message: string): MethodOutcome {
+    return { ok: false, warnings: [...warnings, warning(code, message)] };
+  }
+}
+
+/** Angles between consecutive peaks: the firing intervals, aligned to the measured pattern for uneven fire. */
+function alignIntervals(marks: number[], iv: number[]): number[] {
+  const n = iv.length;
+  const d: number[] = [];
+  for (let k = 1; k < marks.length; k++) d.push(marks[k] - marks[k - 1]);
+  let bestShift = 0;
+  let bestErr = Infinity;
+  for (let s = 0; s < n; s++) {
+    let err = 0;
+    for (let k = 0; k + 1 < d.length; k++) {
+      // Compare each gap with its neighbour's: the ratio is speed-independent.
+      const want = iv[(s + k) % n] / iv[(s + k + 1) % n];
+      err += (Math.log(d[k] / d[k + 1]) - Math.log(want)) ** 2;
+    }
+    if (err < bestErr) {
+      bestErr = err;
+      bestShift = s;
+    }
+  }
+  return d.map((_, k) => iv[(bestShift + k) % n]);
+}

@@ -1,0 +1,255 @@
+/**
+ * A cranking simulator: slider-crank volume, polytropic gas with per-cylinder leakage, a DC starter on a
+ * battery with internal resistance, crank inertia and friction. It returns every channel type and the truth
+ * (each cylinder's peak compression pressure) so the analysis can be checked against it.
+ */
+import { type EngineSetup, tdcPhasesDeg } from '../engine/firing';
+import { volumeRatio, volumeRatioSlope } from '../engine/geometry';
+import { seededRandom } from './random';
+
+export type SimChannel = 'current' | 'hall' | 'vr' | 'sync' | 'rpm';
+
+export interface SimOptions {
+  engine: EngineSetup;
+  /** @default 1 */
+  seed?: number;
+  /** Length of the recording, s. @default 6 */
+  durationS?: number;
+  /** Output sample rate, Hz. @default 10000 */
+  sampleRateHz?: number;
+  /** Starter engaged, s. @default 0.4 */
+  starterOnS?: number;
+  /** Starter released, s. @default durationS − 0.8 */
+  starterOffS?: number;
+  /** Leak rate per cylinder (index = cylinder − 1), 1/s; 0 is a sealed cylinder. */
+  leakPerS?: number[];
+  /** Total displacement, litres. @default 0.5 per cylinder */
+  displacementL?: number;
+  /** @default 10 */
+  compressionRatio?: number;
+  /** @default 3.3 */
+  rodRatio?: number;
+  /** @default 45 */
+  ivcAbdcDeg?: number;
+  /** @default 45 */
+  evoBbdcDeg?: number;
+  /** Polytropic exponent while cranking. @default 1.25 */
+  n?: number;
+  /** Battery rest voltage, V. @default 12.5 */
+  batteryV?: number;
+  /** Target mean cranking speed used to size the starter, rpm. @default 200 */
+  targetRpm?: number;
+  /** Tooth wheel: total positions and missing teeth. @default { count: 60, missing: 2 } */
+  teeth?: { count: number; missing: number };
+  /** Crank degrees from cylinder 1's compression TDC to the first tooth after the gap. @default 84 */
+  gapOffsetDeg?: number;
+  /** Noise level multiplier (1 = a clean clamp and sensor, 4 = a noisy bay). @default 1 */
+  noise?: number;
+  channels?: SimChannel[];
+}
+
+export interface SimTruth {
+  /** Mean per-cycle peak gauge pressure while cranking, kPa (index = cylinder − 1). */
+  peakKpa: Float64Array;
+  /** Peak pressure in percent of the median of the sealed cylinders. */
+  relativePercent: Float64Array;
+  meanRpm: number;
+  /** Cycles completed while the starter was engaged. */
+  cycles: number;
+}
+
+export interface SimResult {
+  sampleRateHz: number;
+  time: Float64Array;
+  current?: Float64Array;
+  hall?: Float64Array;
+  vr?: Float64Array;
+  sync?: Float64Array;
+  rpm?: Float64Array;
+  /** Times of the crank-tooth edges, s. */
+  toothTimes: Float64Array;
+  truth: SimTruth;
+}
+
+const P0 = 101_325;
+const RAD = Math.PI / 180;
+
+/** Runs one simulated cranking capture. */
+export function simulateCranking(options: SimOptions): SimResult {
+  const o = options;
+  const n = o.engine.cylinders;
+  const duration = o.durationS ?? 6;
+  const fs = o.sampleRateHz ?? 10_000;
+  const onS = o.starterOnS ?? 0.4;
+  const offS = o.starterOffS ?? duration - 0.8;
+  const leak = o.leakPerS ?? [];
+  const rc = o.compressionRatio ?? 10;
+  const rodRatio = o.rodRatio ?? 3.3;
+  const ivc = -180 + (o.ivcAbdcDeg ?? 45);
+  const evo = 180 - (o.evoBbdcDeg ?? 45);
+  const poly = o.n ?? 1.25;
+  const vdM3 = ((o.displacementL ?? 0.5 * n) / n) / 1000;
+  const vcM3 = vdM3 / (rc - 1);
+  const noise = o.noise ?? 1;
+  const teeth = o.teeth ?? { count: 60, missing: 2 };
+  const gapOffset = o.gapOffsetDeg ?? 84;
+  const channels = new Set<SimChannel>(o.channels ?? ['current']);
+  const rnd = seededRandom(o.seed ?? 1);
+  const phases = tdcPhasesDeg(o.engine);
+
+  // Starter and drivetrain sized for the engine: friction grows with displacement, the starter is chosen
+  // so that the mean speed lands near targetRpm.
+  const totalL = vdM3 * n * 1000;
+  const frictionNm = 8 + 9 * totalL;
+  const viscousNmPerRad = 0.25 * totalL;
+  // Flywheel and crank plus the armature reflected through the pinion (J_arm·G²).
+  const inertia = 0.2 + 0.1 * totalL;
+  const batteryV = o.batteryV ?? 12.5;
+  const rBattery = 0.011;
+  const rStarter = 0.012;
+  const rTotal = rBattery + rStarter;
+  const omegaTarget = ((o.targetRpm ?? 200) * 2 * Math.PI) / 60;
+  // Mean compression load at the crank, N·m, from the net work of the closed part of the cycle.
+  const vIvcRatio = volumeRatio(rc, rodRatio, ivc * RAD);
+  const meanGasNm = (n * P0 * vcM3 * 0.35 * Math.pow(rc, poly)) / (4 * Math.PI);
+  const loadNm = frictionNm + viscousNmPerRad * omegaTarget + meanGasNm * 0.2;
+  // Solve K from: load = K·(V − K·ω)/R  →  K²ω − K·V + load·R = 0 (take the larger root: a stiff starter).
+  const disc = batteryV * batteryV - 4 * omegaTarget * loadNm * rTotal;
+  const motorK = disc > 0 ? (batteryV + Math.sqrt(disc)) / (2 * omegaTarget) : batteryV / (2 * omegaTarget);
+  const gearRatio = 12;
+  const commutatorSegments = 24;
+
+  const sub = Math.max(1, Math.ceil(40_000 / fs));
+  const dt = 1 / (fs * sub);
+  const samples = Math.floor(duration * fs);
+
+  const time = new Float64Array(samples);
+  const current = channels.has('current') ? new Float64Array(samples) : undefined;
+  const hall = channels.has('hall') ? new Float64Array(samples) : undefined;
+  const vr = channels.has('vr') ? new Float64Array(samples) : undefined;
+  const sync = channels.has('sync') ? new Float64Array(samples) : undefined;
+  const rpm = channels.has('rpm') ? new Float64Array(samples) : undefined;
+  const tooth: number[] = [];
+
+  const mass = new Float64Array(n).fill(1);
+  const closed = new Uint8Array(n);
+  const cyclePeak = new Float64Array(n);
+  const peakSum = new Float64Array(n);
+  const peakCount = new Float64Array(n);
+
+  const pitch = 360 / teeth.count;
+  let theta = -200 + rnd.next() * 360; // crank angle, degrees after cylinder 1's compression TDC
+  let omega = 0;
+  let t = 0;
+  let lastToothSlot = Math.floor((theta - gapOffset) / pitch);
+  let rpmSum = 0;
+  let rpmCount = 0;
+  const steadyFrom = onS + 0.8;
+  let currentNow = 0;
+  const psiOf = (c: number, th: number) => {
+    let psi = (th - phases[c]) % 720;
+    if (psi < -360) psi += 720;
+    if (psi >= 360) psi -= 720;
+    return psi;
+  };
+
+  for (let s = 0; s < samples; s++) {
+    for (let k = 0; k < sub; k++) {
+      const engaged = t >= onS && t < offS;
+      let gasNm = 0;
+      for (let c = 0; c < n; c++) {
+        const psi = psiOf(c, theta);
+        if (psi >= ivc && psi <= evo) {
+          if (!closed[c]) {
+            closed[c] = 1;
+            mass[c] = 1;
+            cyclePeak[c] = 0;
+          }
+          const vRatio = volumeRatio(rc, rodRatio, psi * RAD);
+          const p = P0 * Math.pow((mass[c] * vIvcRatio) / vRatio, poly);
+          const gauge = p - P0;
+          if (gauge > cyclePeak[c]) cyclePeak[c] = gauge;
+          gasNm += gauge * vcM3 * volumeRatioSlope(rc, rodRatio, psi * RAD);
+          const l = leak[c] ?? 0;
+          if (l > 0 && gauge > 0) mass[c] *= Math.exp(-l * (gauge / P0) * dt);
+        } else if (closed[c]) {
+          closed[c] = 0;
+          if (t > steadyFrom && t < offS) {
+            peakSum[c] += cyclePeak[c];
+            peakCount[c] += 1;
+          }
+        }
+      }
+      currentNow = engaged ? Math.max(0, (batteryV - motorK * omega) / rTotal) : 0;
+      const starterNm = motorK * currentNow;
+      const friction = omega > 1e-6 ? frictionNm + viscousNmPerRad * omega : 0;
+      let accel = (starterNm + gasNm - friction) / inertia;
+      if (omega <= 1e-6 && starterNm + gasNm <= frictionNm) accel = Math.max(0, accel);
+      const thetaBefore = theta;
+      omega = Math.max(0, omega + accel * dt);
+      theta += (omega * dt) / RAD;
+      // Crank-tooth edges crossed in this step.
+      const slot = Math.floor((theta - gapOffset) / pitch);
+      for (let q = lastToothSlot + 1; q <= slot; q++) {
+        const pos = ((q % teeth.count) + teeth.count) % teeth.count;
+        if (pos >= teeth.count - teeth.missing) continue;
+        const edge = gapOffset + q * pitch;
+        const frac = (edge - thetaBefore) / Math.max(1e-12, theta - thetaBefore);
+        tooth.push(t + frac * dt + rnd.gauss() * 3e-6 * noise);
+      }
+      lastToothSlot = slot;
+      t += dt;
+    }
+    time[s] = s / fs;
+    if (t > steadyFrom && t < offS) {
+      rpmSum += omega;
+      rpmCount++;
+    }
+    if (current) {
+      const ripple = currentNow > 0 ? 5 * Math.sin((commutatorSegments * gearRatio * theta * RAD) % (2 * Math.PI)) : 0;
+      current[s] = currentNow + noise * (1.2 * rnd.gauss() + ripple);
+    }
+    const wheel = theta - gapOffset;
+    const slotF = wheel / pitch;
+    const pos = ((Math.floor(slotF) % teeth.count) + teeth.count) % teeth.count;
+    const present = pos < teeth.count - teeth.missing;
+    const u = slotF - Math.floor(slotF);
+    if (hall) hall[s] = (present && u < 0.5 ? 5 : 0.1) + noise * 0.03 * rnd.gauss();
+    if (vr) {
+      const amp = 0.4 + (omega / omegaTarget) * 2.5;
+      vr[s] = (present ? amp * Math.sin(2 * Math.PI * (u + 0.5)) : 0) + noise * 0.02 * rnd.gauss();
+    }
+    if (sync) {
+      const psi1 = psiOf(0, theta);
+      sync[s] = (psi1 >= -14 && psi1 <= -10 ? 5 : 0) + noise * 0.03 * rnd.gauss();
+    }
+    if (rpm) rpm[s] = Math.round(((omega * 60) / (2 * Math.PI) + noise * 0.5 * rnd.gauss()) * 4) / 4;
+  }
+
+  const peakKpa = new Float64Array(n);
+  for (let c = 0; c < n; c++) peakKpa[c] = peakCount[c] > 0 ? peakSum[c] / peakCount[c] / 1000 : 0;
+  const sealed: number[] = [];
+  for (let c = 0; c < n; c++) if (!(leak[c] > 0)) sealed.push(peakKpa[c]);
+  const ref = median(sealed.length ? sealed : Array.from(peakKpa));
+  const relativePercent = peakKpa.map((p) => (100 * p) / ref);
+  const meanOmega = rpmCount ? rpmSum / rpmCount : 0;
+  const cycles = Math.min(...Array.from(peakCount));
+
+  return {
+    sampleRateHz: fs,
+    time,
+    current,
+    hall,
+    vr,
+    sync,
+    rpm,
+    toothTimes: Float64Array.from(tooth),
+    truth: { peakKpa, relativePercent, meanRpm: (meanOmega * 60) / (2 * Math.PI), cycles },
+  };
+}
+
+function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}

@@ -1,0 +1,24 @@
+/** Cylinder-1 sync pulses (ignition or injector trigger, cam sensor): rising edges through a hysteresis band. */
+import { quantile } from '../dsp/stats';
+
+/** Times (s) of the sync channel's rising edges, at least `minSpacingS` apart; empty when there is no clear pulse. */
+export function findSyncPulses(t: Float64Array, v: Float64Array, minSpacingS: number): number[] {
+  const lo = quantile(v, 0.05);
+  const hi = quantile(v, 0.999);
+  if (!(hi - lo > 0.5)) return [];
+  const up = lo + 0.6 * (hi - lo);
+  const down = lo + 0.4 * (hi - lo);
+  const out: number[] = [];
+  let high = v[0] > up;
+  for (let i = 1; i < v.length; i++) {
+    if (!high && v[i] > up) {
+      high = true;
+      const f = (up - v[i - 1]) / (v[i] - v[i - 1]);
+      const time = t[i - 1] + f * (t[i] - t[i - 1]);
+      if (out.length === 0 || time - out[out.length - 1] >= minSpacingS) out.push(time);
+    } else if (high && v[i] < down) {
+      high = false;
+    }
+  }
+  return out;
+}

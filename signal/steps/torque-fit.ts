@@ -1,0 +1,230 @@
+/**
+ * The torque-balance fit: dω/dt = c₀ + c₁·s + Σ kᵢ·τ(θ − TDCᵢ), one coefficient per cylinder (or per
+ * compression event), τ the nominal cylinder's gas torque. A linear least squares at each TDC phase offset;
+ * the offset with the smallest residual wins. Modelling every cylinder at once keeps the neighbour's gas-spring
+ * return out of each figure.
+ */
+import { GENERIC_GAS, LEAK_FAMILY_PER_S, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
+import { NormalEquations } from '../dsp/solve';
+import type { CrankMotion } from './crank-motion';
+
+export interface FitEvent {
+  /** Cylinder number, 1-based. */
+  cylinder: number;
+  /** Firing position in the firing order, 0-based. */
+  position: number;
+  /** Crank angle of the event's compression TDC, degrees on the motion's scale. */
+  tdcDeg: number;
+  /** The event's whole closed-valve window lies inside the data. */
+  complete: boolean;
+}
+
+export interface TorqueFit {
+  /** TDC of cylinder 1 (firing position 0), degrees on the motion's scale, modulo 720. */
+  phaseDeg: number;
+  /** Torque coefficient per cylinder (index = cylinder − 1); NaN where no complete event was seen. */
+  perCylinder: Float64Array;
+  /** Peak-pressure estimate per cylinder, in units of a sealed nominal cylinder: coefficient × the chosen leak shape's peak ratio. */
+  pressure: Float64Array;
+  /** The leak rate of the shape each cylinder took, 1/s. */
+  leakPerS: Float64Array;
+  /** Peak-pressure estimate per complete event, same order as `events`. NaN for incomplete events. */
+  perEvent: Float64Array;
+  events: FitEvent[];
+  /** Share of the variance of the left side that the model explains, 0…1. */
+  r2: number;
+}
+
+export interface FitOptions {
+  /** Each cylinder's TDC, degrees after cylinder 1's (index = cylinder − 1). */
+  phasesDeg: Float64Array;
+  firingOrder: number[];
+  /** Offsets of cylinder 1's TDC to try, degrees. */
+  scanFromDeg: number;
+  scanToDeg: number;
+  /** Coarse scan step, degrees. @default 6 */
+  coarseStepDeg?: number;
+  /** Events to leave out of the per-cylinder figures (keys `${position}:${tdcDeg.toFixed(1)}`), e.g. rejected ones. */
+  exclude?: Set<string>;
+  gas?: GasModel;
+}
+
+const families = new Map<string, LeakyShape[]>();
+/** The leak-shape family for a gas model at a cranking speed (rounded to 10 rpm so it can be cached). */
+function familyFor(gas: GasModel, rpm: number): LeakyShape[] {
+  const r = Math.max(30, Math.round(rpm / 10) * 10);
+  const key = `${JSON.stringify(gas)}@${r}`;
+  let f = families.get(key);
+  if (!f) {
+    f = LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r));
+    families.set(key, f);
+  }
+  return f;
+}
+
+export function eventKey(e: FitEvent): string {
+  return `${e.position}:${e.tdcDeg.toFixed(1)}`;
+}
+
+/** Lists the compression events whose closed-valve window touches [θmin, θmax] for a given cylinder-1 TDC. */
+export function eventsFor(o: FitOptions, phaseDeg: number, thetaMin: number, thetaMax: number, gas: GasModel): FitEvent[] {
+  const ivc = -180 + gas.ivcAbdcDeg;
+  const evo = 180 - gas.evoBbdcDeg;
+  const events: FitEvent[] = [];
+  for (let position = 0; position < o.firingOrder.length; position++) {
+    const cylinder = o.firingOrder[position];
+    const base = phaseDeg + o.phasesDeg[cylinder - 1];
+    const k0 = Math.floor((thetaMin - evo - base) / 720);
+    const k1 = Math.ceil((thetaMax - ivc - base) / 720);
+    for (let k = k0; k <= k1; k++) {
+      const tdc = base + 720 * k;
+      if (tdc + evo < thetaMin || tdc + ivc > thetaMax) continue;
+      events.push({ cylinder, position, tdcDeg: tdc, complete: tdc + ivc >= thetaMin && tdc + evo <= thetaMax });
+    }
+  }
+  events.sort((a, b) => a.tdcDeg - b.tdcDeg);
+  return events;
+}
+
+interface Solved {
+  coef: Float64Array;
+  rss: number;
+  events: FitEvent[];
+  columnOf: Int32Array;
+}
+
+function solveAt(m: CrankMotion, o: FitOptions, phaseDeg: number, perEvent: boolean, shapes: Float64Array[]): Solved | null {
+  const gas = o.gas ?? GENERIC_GAS;
+  const n = o.firingOrder.length;
+  const rows = m.t.length;
+  const thetaMin = m.thetaDeg[0];
+  const thetaMax = m.thetaDeg[rows - 1];
+  const events = eventsFor(o, phaseDeg, thetaMin, thetaMax, gas);
+  const columnOf = new Int32Array(events.length);
+  let next = 2 + (perEvent ? 0 : n);
+  for (let e = 0; e < events.length; e++) {
+    const ev = events[e];
+    const usable = ev.complete && !o.exclude?.has(eventKey(ev));
+    columnOf[e] = usable && !perEvent ? 2 + ev.cylinder - 1 : next++;
+  }
+  const ne = new NormalEquations(next);
+  const cols = new Int32Array(2 + events.length);
+  const vals = new Float64Array(2 + events.length);
+  const ivc = -180 + gas.ivcAbdcDeg;
+  const evo = 180 - gas.evoBbdcDeg;
+  let first = 0;
+  for (let r = 0; r < rows; r++) {
+    const th = m.thetaDeg[r];
+    cols[0] = 0;
+    vals[0] = 1;
+    cols[1] = 1;
+    vals[1] = m.s[r];
+    let count = 2;
+    while (first < events.length && events[first].tdcDeg + evo < th) first++;
+    for (let e = first; e < events.length && events[e].tdcDeg + ivc <= th; e++) {
+      const psi = th - events[e].tdcDeg;
+      if (psi > evo) continue;
+      cols[count] = columnOf[e];
+      vals[count] = torqueAt(shapes[events[e].cylinder - 1], psi);
+      count++;
+    }
+    ne.add(cols, vals, count, m.y[r]);
+  }
+  // Columns that never received data (cylinders without complete events) are pinned by the ridge.
+  for (let c = 0; c < next; c++) if (ne.xtx[c * next + c] === 0) ne.xtx[c * next + c] = 1;
+  const solved = ne.solve();
+  return solved ? { coef: solved.coef, rss: solved.rss, events, columnOf } : null;
+}
+
+/** Mean crank speed over the rows, rpm, from the angle covered. */
+function meanRpm(m: CrankMotion): number {
+  const last = m.t.length - 1;
+  const dt = m.t[last] - m.t[0];
+  return dt > 0 ? (m.thetaDeg[last] - m.thetaDeg[0]) / 6 / dt : 0;
+}
+
+/**
+ * Scans the TDC phase with the sealed shape, then lets each cylinder take the leak shape that fits it best.
+ * Returns the best fit, or null when the data cannot support one.
+ */
+export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
+  if (m.t.length < 50) return null;
+  const n = o.firingOrder.length;
+  const gas = o.gas ?? GENERIC_GAS;
+  const family = familyFor(gas, meanRpm(m));
+  const choice = new Int32Array(n);
+  const shapes = () => Array.from(choice, (f) => family[f].table);
+  const step = o.coarseStepDeg ?? 6;
+  let bestPhase = NaN;
+  let bestRss = Infinity;
+  const tryPhase = (p: number) => {
+    const s = solveAt(m, o, p, false, shapes());
+    if (s && s.rss < bestRss) {
+      bestRss = s.rss;
+      bestPhase = p;
+    }
+  };
+  for (let p = o.scanFromDeg; p < o.scanToDeg; p += step) tryPhase(p);
+  if (!Number.isFinite(bestPhase)) return null;
+  const centre = bestPhase;
+  for (let p = centre - step; p <= centre + step; p += 1) if (p !== centre) tryPhase(p);
+  const centre2 = bestPhase;
+  for (let p = centre2 - 0.75; p <= centre2 + 0.75; p += 0.25) if (p !== centre2) tryPhase(p);
+
+  // Each cylinder in turn takes the leak shape with the smallest residual; two passes settle neighbours.
+  for (let pass = 0; pass < 2; pass++) {
+    for (let c = 0; c < n; c++) {
+      let bestF = choice[c];
+      for (let f = 0; f < family.length; f++) {
+        if (f === bestF) continue;
+        choice[c] = f;
+        const s = solveAt(m, o, bestPhase, false, shapes());
+        if (s && s.rss < bestRss * (1 - 1e-4)) {
+          bestRss = s.rss;
+          bestF = f;
+        }
+      }
+      choice[c] = bestF;
+    }
+  }
+
+  const final = shapes();
+  const global = solveAt(m, o, bestPhase, false, final);
+  const single = solveAt(m, o, bestPhase, true, final);
+  if (!global || !single) return null;
+  const perCylinder = new Float64Array(n).fill(NaN);
+  const pressure = new Float64Array(n).fill(NaN);
+  const leakPerS = new Float64Array(n);
+  const seen = new Uint8Array(n);
+  for (let e = 0; e < global.events.length; e++) {
+    const ev = global.events[e];
+    if (global.columnOf[e] < 2 + n) seen[ev.cylinder - 1] = 1;
+  }
+  for (let c = 0; c < n; c++) {
+    leakPerS[c] = family[choice[c]].leakPerS;
+    if (!seen[c]) continue;
+    perCylinder[c] = global.coef[2 + c];
+    pressure[c] = perCylinder[c] * family[choice[c]].peakRatio;
+  }
+  const perEvent = new Float64Array(single.events.length).fill(NaN);
+  for (let e = 0; e < single.events.length; e++) {
+    const ev = single.events[e];
+    if (ev.complete) perEvent[e] = single.coef[single.columnOf[e]] * family[choice[ev.cylinder - 1]].peakRatio;
+  }
+
+  let mean = 0;
+  for (let r = 0; r < m.y.length; r++) mean += m.y[r];
+  mean /= m.y.length;
+  let tss = 0;
+  for (let r = 0; r < m.y.length; r++) tss += (m.y[r] - mean) * (m.y[r] - mean);
+  const phaseDeg = ((bestPhase % 720) + 720) % 720;
+  return {
+    phaseDeg,
+    perCylinder,
+    pressure,
+    leakPerS,
+    perEvent,
+    events: single.events,
+    r2: tss > 0 ? 1 - global.rss / tss : 0,
+  };
+}

@@ -1,0 +1,44 @@
+/** Quality warnings: a stable code and a sentence a technician can act on. */
+
+export type WarningCode =
+  | 'NO_CRANKING'
+  | 'CRANKING_TOO_SLOW'
+  | 'CRANKING_TOO_FAST'
+  | 'TOO_FEW_CYCLES'
+  | 'SAMPLE_RATE_TOO_LOW'
+  | 'CLIPPED_SIGNAL'
+  | 'NO_SYNC'
+  | 'SYNC_NOT_FOUND'
+  | 'FIRING_ORDER_MISMATCH'
+  | 'INCONSISTENT_CYCLES'
+  | 'EVENTS_REJECTED'
+  | 'SPREAD_HIGH'
+  | 'METHODS_DISAGREE'
+  | 'NO_TOOTH_GAP'
+  | 'TIME_NOT_MONOTONIC'
+  | 'TIME_GAPS'
+  | 'MISSING_VALUES'
+  | 'NO_USABLE_CHANNEL';
+
+export interface QualityWarning {
+  code: WarningCode;
+  message: string;
+}
+
+export function warning(code: WarningCode, message: string): QualityWarning {
+  return { code, message };
+}
+
+/** Codes that mean the numbers cannot be trusted: every cylinder is then `uncertain`. */
+export const THIN_EVIDENCE: ReadonlySet<WarningCode> = new Set<WarningCode>([
+  'NO_CRANKING',
+  'CRANKING_TOO_SLOW',
+  'CRANKING_TOO_FAST',
+  'TOO_FEW_CYCLES',
+  'SAMPLE_RATE_TOO_LOW',
+  'CLIPPED_SIGNAL',
+  'FIRING_ORDER_MISMATCH',
+  'NO_TOOTH_GAP',
+  'NO_USABLE_CHANNEL',
+  'TIME_NOT_MONOTONIC',
+]);

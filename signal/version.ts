@@ -1,0 +1,2 @@
+/** The analysis engine's version, stamped on every result so a saved analysis can be reproduced. */
+export const ENGINE_VERSION = '1.0.0';

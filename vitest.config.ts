@@ -1,0 +1,10 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  resolve: { alias: { '@': new URL('./', import.meta.url).pathname } },
+  test: {
+    include: ['tests/**/*.test.ts'],
+    testTimeout: 60_000,
+    pool: 'forks',
+  },
+});
