@@ -1,0 +1,83 @@
+/** Generates samples/ from the cranking simulator: the captures, manifest.json (with the truth) and README.md. */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import type { EngineSetup } from '../signal/engine/firing';
+import { type SimChannel, type SimOptions, simulateCranking } from '../signal/sim/simulate';
+import { type CsvStyle, simToCsv, toothTimesToCsv } from '../signal/sim/to-csv';
+
+interface SampleSpec {
+  file: string;
+  engine: EngineSetup;
+  engineLabel: string;
+  fault: string;
+  sim: Omit<SimOptions, 'engine'>;
+  style?: CsvStyle;
+  toothTimes?: boolean;
+  teeth?: string;
+  expect: string;
+}
+
+const I4: EngineSetup = { cylinders: 4, firingOrder: [1, 3, 4, 2], layout: 'inline' };
+const I6: EngineSetup = { cylinders: 6, firingOrder: [1, 5, 3, 6, 2, 4], layout: 'inline' };
+const V6: EngineSetup = { cylinders: 6, firingOrder: [1, 6, 5, 4, 3, 2], intervalsDeg: [90, 150, 90, 150, 90, 150], layout: 'v', numbering: 'along-crank' };
+const V8: EngineSetup = { cylinders: 8, firingOrder: [1, 8, 4, 3, 6, 5, 7, 2], layout: 'v', numbering: 'along-crank' };
+const logger = ['Crankprint sample capture (simulated)', 'Probe: clamp on starter cable'];
+
+const specs: SampleSpec[] = [
+  { file: 'i4-healthy-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'none', sim: { seed: 101, channels: ['current', 'sync'] }, style: { channels: ['current', 'sync'], preamble: logger }, expect: 'all ok' },
+  { file: 'i4-burnt-valve-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 3 leaks (burnt valve)', sim: { seed: 102, channels: ['current', 'sync'], leakPerS: [0, 0, 3, 0] }, style: { channels: ['current', 'sync'] }, expect: 'cylinder 3 low, one-low pattern' },
+  { file: 'i4-adjacent-low-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinders 2 and 3 leak (gasket between them)', sim: { seed: 103, channels: ['current', 'sync'], leakPerS: [0, 2, 2, 0] }, style: { channels: ['current', 'sync'] }, expect: 'cylinders 2 and 3 low, neighbours pattern' },
+  { file: 'i6-one-low-current.csv', engine: I6, engineLabel: 'Inline 6, 1-5-3-6-2-4', fault: 'cylinder 5 leaks', sim: { seed: 104, channels: ['current'], leakPerS: [0, 0, 0, 0, 2.5, 0] }, style: { channels: ['current'], delimiter: ';', timeUnit: 's', preamble: ['Export;bay 1'] }, expect: 'one cylinder low; numbers assumed (no sync)' },
+  { file: 'v6-odd-fire-current-sync.csv', engine: V6, engineLabel: 'V6 90° odd-fire, 1-6-5-4-3-2, 90°/150°', fault: 'cylinder 4 leaks', sim: { seed: 105, channels: ['current', 'sync'], leakPerS: [0, 0, 0, 3, 0, 0] }, style: { channels: ['current', 'sync'], delimiter: '\t' }, expect: 'cylinder 4 low' },
+  { file: 'v8-sync-current.csv', engine: V8, engineLabel: 'V8, 1-8-4-3-6-5-7-2', fault: 'cylinder 6 leaks', sim: { seed: 106, channels: ['current', 'sync'], leakPerS: [0, 0, 0, 0, 0, 4, 0, 0] }, style: { channels: ['current', 'sync'] }, expect: 'cylinder 6 low' },
+  { file: 'i4-60-2-tooth-times.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 60-2 wheel', fault: 'one cylinder leaks (cylinder 2 by the simulator)', sim: { seed: 107, channels: [], leakPerS: [0, 4, 0, 0] }, toothTimes: true, teeth: '60-2', expect: 'one cylinder low; numbers assumed (crank only)' },
+  { file: 'i4-36-1-hall-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 36-1 wheel', fault: 'cylinder 4 leaks', sim: { seed: 108, channels: ['hall', 'sync'], leakPerS: [0, 0, 0, 3], teeth: { count: 36, missing: 1 }, sampleRateHz: 10000 }, style: { channels: ['hall', 'sync'], timeUnit: 's' }, teeth: '36-1', expect: 'cylinder 4 low' },
+  { file: 'i4-noisy-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 1 leaks; noisy clamp', sim: { seed: 109, channels: ['current', 'sync'], leakPerS: [3, 0, 0, 0], noise: 4 }, style: { channels: ['current', 'sync'] }, expect: 'cylinder 1 low' },
+  { file: 'no-cranking.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'the starter never engaged', sim: { seed: 110, channels: ['current'], starterOnS: 99, durationS: 4 }, style: { channels: ['current'] }, expect: 'uncertain, NO_CRANKING' },
+];
+
+mkdirSync('samples', { recursive: true });
+const manifest: unknown[] = [];
+const rows: string[] = [];
+for (const s of specs) {
+  const sim = simulateCranking({ engine: s.engine, ...s.sim, sampleRateHz: s.sim.sampleRateHz ?? 5000 });
+  const text = s.toothTimes ? toothTimesToCsv(sim) : simToCsv(sim, s.style);
+  writeFileSync(`samples/${s.file}`, text);
+  const truth = Array.from(sim.truth.relativePercent, (v) => Math.round(Math.min(100, v) * 10) / 10);
+  const channels = s.toothTimes ? ['tooth times'] : (s.style?.channels ?? ['current']) as (SimChannel | string)[];
+  manifest.push({
+    file: s.file,
+    engine: s.engine,
+    teeth: s.teeth,
+    channels,
+    fault: s.fault,
+    expect: s.expect,
+    truthPercent: s.sim.starterOnS === 99 ? null : truth,
+    synced: channels.includes('sync'),
+  });
+  rows.push(`| \`${s.file}\` | ${s.engineLabel} | ${s.fault} | ${channels.join(', ')} | ${s.expect} | ${s.sim.starterOnS === 99 ? '—' : truth.map((v) => v.toFixed(0)).join(' / ')} |`);
+}
+writeFileSync(
+  'samples/malformed.csv',
+  'Time (ms),Starter current [A]\n0.0,12.5\n0.2,13.1\n0.4,12.9\n0.6,13.4\n0.8,13.0\n1.0,starter\n1.2,clamp off\n1.4,??\n1.6,--\n1.8,err\n2.0,n/c\n2.2,\u0007\n',
+);
+rows.push('| `malformed.csv` | — | text where numbers belong | current | refused: names line 7, column 2 | — |');
+manifest.push({ file: 'malformed.csv', fault: 'text where numbers belong', expect: 'BAD_NUMBER at line 7, column 2', channels: ['current'] });
+writeFileSync('samples/manifest.json', `${JSON.stringify(manifest, null, 2)}\n`);
+writeFileSync(
+  'samples/README.md',
+  `# Sample captures
+
+Simulated with \`npm run samples\` (signal/sim: slider-crank volume, polytropic gas with per-cylinder leakage, a DC
+starter on a battery, crank inertia and friction). The last column is the simulator's truth: each cylinder's
+peak compression pressure in percent of the sealed cylinders' median, cylinder 1 first. The captures are
+invented for the demo and the tests; no vehicle was measured.
+
+| File | Engine | Fault | Channels | What the analysis should show | Truth (%) |
+|---|---|---|---|---|---|
+${rows.join('\n')}
+
+Without a sync channel the cylinder numbers are assumed (the first event is cylinder 1), so a crank-only or
+current-only capture names the low cylinder up to a rotation along the firing order.
+`,
+);
+console.log(`wrote ${specs.length + 1} samples`);
