@@ -1,0 +1,144 @@
+/**
+ * The analysis worker's API: import a capture in chunks (with progress and cancel), keep its full-resolution
+ * columns here, analyse with any settings, and answer min/max decimated views of any time range with
+ * transferable buffers.
+ */
+import {
+  analyzeCapture,
+  type AnalysisResult,
+  type AnalysisSettings,
+  CaptureError,
+  CaptureImporter,
+  type ChannelInfo,
+  decimateMinMax,
+  type ImportedCapture,
+  type ImportOptions,
+  indexAtTime,
+  isCaptureError,
+} from '../signal';
+
+export type Stage = 'reading' | 'parsing' | 'analysing' | 'done';
+export type ProgressFn = (stage: Stage, fraction: number) => void;
+export type TraceChannel = 'current' | 'crank' | 'sync' | 'rpm' | 'toothPeriod';
+
+export interface ImportSummary {
+  rows: number;
+  durationS: number;
+  channels: ChannelInfo[];
+  confidence: number;
+  preview: string[][];
+  header: string[];
+  delimiter: string;
+  decimalComma: boolean;
+  warnings: { code: string; message: string }[];
+}
+
+export interface TraceView {
+  x: Float64Array;
+  min: Float64Array;
+  max: Float64Array;
+}
+
+export type WorkerError = { code: string; message: string; line?: number; column?: number };
+
+const CHUNK = 1 << 20;
+
+export function createAnalysisApi() {
+  let capture: ImportedCapture | null = null;
+  let cancelled = false;
+  let periods: { t: Float64Array; v: Float64Array } | null = null;
+
+  const check = () => {
+    if (cancelled) throw new CaptureError('CANCELLED', 'Cancelled.');
+  };
+
+  return {
+    /** Reads and parses a file (Blob) or bytes, reporting progress; keeps the columns in this worker. */
+    async importCapture(source: Blob | Uint8Array, options: ImportOptions = {}, onProgress?: ProgressFn): Promise<ImportSummary> {
+      cancelled = false;
+      capture = null;
+      periods = null;
+      const size = source instanceof Uint8Array ? source.length : source.size;
+      const headBytes = source instanceof Uint8Array ? source.subarray(0, CHUNK) : new Uint8Array(await source.slice(0, CHUNK).arrayBuffer());
+      const importer = new CaptureImporter(headBytes, size, options);
+      for (let offset = 0; offset < size; offset += CHUNK) {
+        check();
+        const end = Math.min(size, offset + CHUNK);
+        const chunk = source instanceof Uint8Array ? source.subarray(offset, end) : new Uint8Array(await source.slice(offset, end).arrayBuffer());
+        importer.push(chunk);
+        onProgress?.('parsing', end / size);
+      }
+      capture = importer.finish();
+      const t = capture.columns.time ?? capture.columns.toothTimes;
+      return {
+        rows: capture.rows,
+        durationS: t && t.length > 1 ? t[t.length - 1] - t[0] : 0,
+        channels: capture.channels,
+        confidence: capture.confidence,
+        preview: capture.sniff.preview,
+        header: capture.sniff.columns.map((c) => (c.unit ? `${c.name} [${c.unit}]` : c.name)),
+        delimiter: capture.sniff.delimiter,
+        decimalComma: capture.sniff.decimalComma,
+        warnings: capture.warnings,
+      };
+    },
+
+    /** Analyses the imported capture with these settings. */
+    analyze(settings: AnalysisSettings, onProgress?: ProgressFn): AnalysisResult {
+      if (!capture) throw new CaptureError('NO_NUMERIC_DATA', 'Open a capture first.');
+      onProgress?.('analysing', 0);
+      const result = analyzeCapture(capture.columns, settings, capture.warnings);
+      onProgress?.('done', 1);
+      return result;
+    },
+
+    /** Min/max view of one channel over [fromS, toS] in at most `columns` buckets. */
+    decimate(channel: TraceChannel, fromS: number, toS: number, columns: number): TraceView | null {
+      if (!capture) return null;
+      let t: Float64Array | undefined = capture.columns.time;
+      let v: Float64Array | undefined;
+      if (channel === 'toothPeriod') {
+        periods ??= toothPeriods(capture.columns.toothTimes);
+        if (!periods) return null;
+        t = periods.t;
+        v = periods.v;
+      } else {
+        v = capture.columns[channel];
+      }
+      if (!t || !v) return null;
+      const a = indexAtTime(t, fromS);
+      const b = Math.min(t.length, indexAtTime(t, toS) + 1);
+      return decimateMinMax(t, v, a, b, Math.max(2, Math.min(8000, Math.floor(columns))));
+    },
+
+    cancel(): void {
+      cancelled = true;
+    },
+  };
+}
+
+/** Tooth period (ms) at the mid-times of tooth intervals; a gap is divided by its pitches so it reads as speed. */
+function toothPeriods(times: Float64Array | undefined): { t: Float64Array; v: Float64Array } | null {
+  if (!times || times.length < 3) return null;
+  const n = times.length - 1;
+  const sample: number[] = [];
+  for (let k = 0; k < n; k += Math.max(1, Math.floor(n / 500))) sample.push(times[k + 1] - times[k]);
+  sample.sort((a, b) => a - b);
+  const typical = sample[sample.length >> 1];
+  const t = new Float64Array(n);
+  const v = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const d = times[k + 1] - times[k];
+    t[k] = (times[k] + times[k + 1]) / 2;
+    v[k] = (1000 * d) / Math.max(1, Math.round(d / typical));
+  }
+  return { t, v };
+}
+
+/** Plain error object for the page: what was wrong, where, and what to try. */
+export function toWorkerError(e: unknown): WorkerError {
+  if (isCaptureError(e)) return e.toJSON();
+  return { code: 'INTERNAL', message: 'The analysis stopped unexpectedly; try again, and report the file if it happens again.' };
+}
+
+export type AnalysisApi = ReturnType<typeof createAnalysisApi>;
