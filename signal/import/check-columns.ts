@@ -61,10 +61,8 @@ export function clippedShare(v: Float64Array): number {
   return flat / v.length;
 }
 
-export function checkValues(name: string, v: Float64Array, clipMatters: boolean): QualityWarning[] {
+export function checkValues(name: string, v: Float64Array, clipMatters: boolean, nan: number): QualityWarning[] {
   const out: QualityWarning[] = [];
-  let nan = 0;
-  for (let i = 0; i < v.length; i++) if (Number.isNaN(v[i])) nan++;
   if (nan === v.length) out.push(warning('MISSING_VALUES', `The ${name} channel holds no numbers at all; check the column mapping.`));
   else if (nan > 0) out.push(warning('MISSING_VALUES', `The ${name} channel has ${nan} missing value(s); they are filled from their neighbours.`));
   if (clipMatters && clippedShare(v) > 0.002) {
@@ -73,26 +71,23 @@ export function checkValues(name: string, v: Float64Array, clipMatters: boolean)
   return out;
 }
 
-/** Replaces NaN with the previous value (or the next for leading NaN). Returns how many were filled. */
+/** Replaces NaN with the previous value (leading NaN with the first number). Returns how many were missing. */
 export function fillMissing(v: Float64Array): number {
-  let filled = 0;
+  let missing = 0;
   let last = NaN;
+  let leading = 0;
   for (let i = 0; i < v.length; i++) {
-    if (Number.isNaN(v[i])) {
-      if (!Number.isNaN(last)) {
-        v[i] = last;
-        filled++;
-      }
-    } else last = v[i];
+    const x = v[i];
+    if (x !== x) {
+      missing++;
+      if (last === last) v[i] = last;
+      else leading++;
+    } else last = x;
   }
-  let first = NaN;
-  for (let i = v.length - 1; i >= 0; i--) {
-    if (Number.isNaN(v[i])) {
-      if (!Number.isNaN(first)) {
-        v[i] = first;
-        filled++;
-      }
-    } else first = v[i];
+  if (leading > 0 && last === last) {
+    let first = 0;
+    while (first < v.length && v[first] !== v[first]) first++;
+    if (first < v.length) v.fill(v[first], 0, first);
   }
-  return filled;
+  return missing;
 }

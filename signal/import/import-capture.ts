@@ -134,8 +134,8 @@ export class CaptureImporter {
         warnings.push(...checkTime(v, firstLine));
         fillMissing(v);
       } else {
-        warnings.push(...checkValues(`${s.columns[c].name}`, v, role === 'current' || role === 'rpm'));
-        fillMissing(v);
+        const missing = fillMissing(v);
+        warnings.push(...checkValues(`${s.columns[c].name}`, v, role === 'current' || role === 'rpm', missing));
       }
       columns[role] = v;
     }

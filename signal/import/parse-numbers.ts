@@ -48,7 +48,6 @@ export class NumberParser {
   // Field state.
   private field = 0;
   private mant = 0;
-  private digits = 0;
   private frac = 0;
   private inFrac = false;
   private neg = false;
@@ -75,60 +74,152 @@ export class NumberParser {
     this.line = o.firstLine ?? 1;
   }
 
-  /** Parses a chunk; a row or field may continue into the next chunk. */
+  /**
+   * Parses a chunk; a row or field may continue into the next chunk. The loop keeps the plain case (digits, one
+   * decimal mark, a leading minus, delimiters and complete rows) in local variables; anything else goes through
+   * {@link general} with the state written back.
+   */
   push(chunk: Uint8Array): void {
     const delim = this.delim;
     const dec = this.dec;
+    const last = this.width - 1;
+    let cols = this.cols;
+    let cap = this.cap;
+    let mant = this.mant;
+    let frac = this.frac;
+    let inFrac = this.inFrac;
+    let neg = this.neg;
+    let any = this.any;
+    let field = this.field;
+    let rows = this.rows;
+    let content = this.rowHasContent;
+    let line = this.line;
+    let plain = !this.bad && !this.slow && !this.inExp && !this.rowBad;
     for (let i = 0; i < chunk.length; i++) {
       const b = chunk[i];
-      if (b >= 48 && b <= 57) {
-        this.any = true;
-        this.rowHasContent = true;
-        if (this.inExp) {
-          this.expo = this.expo * 10 + (b - 48);
-          if (this.slow) this.text.push(b);
-        } else if (!this.slow && this.digits < 15) {
-          this.mant = this.mant * 10 + (b - 48);
-          if (this.mant > 0) this.digits++;
-          if (this.inFrac) this.frac++;
-        } else {
-          if (!this.slow) this.startSlow();
-          this.text.push(b);
+      if (plain) {
+        if (b >= 48 && b <= 57) {
+          // Below 10^14 one more digit keeps the mantissa under 10^15 < 2^53: exact.
+          if (mant < 1e14) {
+            mant = mant * 10 + (b - 48);
+            if (inFrac) frac++;
+            any = true;
+            content = true;
+            continue;
+          }
+        } else if (b === delim ? field < last : b === 10 && field === last && any) {
+          if (rows >= cap) {
+            this.rows = rows;
+            this.ensure();
+            cols = this.cols;
+            cap = this.cap;
+          }
+          const v = any ? (frac === 0 ? mant : mant / POW10[frac]) : NaN;
+          cols[field][rows] = neg ? -v : v;
+          mant = 0;
+          frac = 0;
+          inFrac = false;
+          neg = false;
+          any = false;
+          if (b === delim) {
+            field++;
+          } else {
+            rows++;
+            field = 0;
+            content = false;
+            line++;
+          }
+          continue;
+        } else if (b === dec) {
+          if (!inFrac) {
+            inFrac = true;
+            continue;
+          }
+        } else if (b === 45) {
+          if (!any && !inFrac && !neg) {
+            neg = true;
+            continue;
+          }
+        } else if (b === 13) {
+          continue;
         }
-        continue;
       }
-      if (b === delim) {
-        this.endField();
-        continue;
-      }
-      if (b === 10) {
-        this.endRow();
-        continue;
-      }
-      if (b === dec && !this.inFrac && !this.inExp) {
-        this.inFrac = true;
-        if (this.slow) this.text.push(46);
-        continue;
-      }
-      if (b === 45 || b === 43) {
-        // Sign of the number or of its exponent.
-        if (this.inExp && this.expo === 0) this.expNeg = b === 45;
-        else if (!this.any && !this.inFrac) this.neg = b === 45;
-        else this.bad = true;
-        if (this.slow) this.text.push(b);
-        continue;
-      }
-      if ((b === 101 || b === 69) && this.any && !this.inExp) {
-        this.inExp = true;
-        if (this.slow) this.text.push(b);
-        continue;
-      }
-      if (b === 13 || b === 32 || b === 34 || b === 9) continue;
-      // Any other byte: the field is not a number.
-      this.bad = true;
-      this.rowHasContent = true;
-      if (this.text.length < 40) this.text.push(b);
+      this.mant = mant;
+        this.frac = frac;
+      this.inFrac = inFrac;
+      this.neg = neg;
+      this.any = any;
+      this.field = field;
+      this.rows = rows;
+      this.rowHasContent = content;
+      this.line = line;
+      this.general(b);
+      cols = this.cols;
+      cap = this.cap;
+      mant = this.mant;
+      frac = this.frac;
+      inFrac = this.inFrac;
+      neg = this.neg;
+      any = this.any;
+      field = this.field;
+      rows = this.rows;
+      content = this.rowHasContent;
+      line = this.line;
+      plain = !this.bad && !this.slow && !this.inExp && !this.rowBad;
     }
+    this.mant = mant;
+    this.frac = frac;
+    this.inFrac = inFrac;
+    this.neg = neg;
+    this.any = any;
+    this.field = field;
+    this.rows = rows;
+    this.rowHasContent = content;
+    this.line = line;
+  }
+
+  /** One byte of any kind, with the whole state on `this`. */
+  private general(b: number): void {
+    if (b >= 48 && b <= 57) {
+      this.any = true;
+      this.rowHasContent = true;
+      if (this.inExp) {
+        this.expo = this.expo * 10 + (b - 48);
+        if (this.slow) this.text.push(b);
+      } else if (!this.slow && this.mant < 1e14) {
+        this.mant = this.mant * 10 + (b - 48);
+        if (this.inFrac) this.frac++;
+      } else {
+        if (!this.slow) this.startSlow();
+        this.text.push(b);
+      }
+      return;
+    }
+    if (b === this.delim) return this.endField();
+    if (b === 10) return this.endRow();
+    if (b === this.dec && !this.inFrac && !this.inExp) {
+      this.inFrac = true;
+      if (this.slow) this.text.push(46);
+      return;
+    }
+    if (b === 45 || b === 43) {
+      // Sign of the number or of its exponent.
+      if (this.inExp && this.expo === 0) this.expNeg = b === 45;
+      else if (!this.any && !this.inFrac) this.neg = b === 45;
+      else this.bad = true;
+      if (this.slow) this.text.push(b);
+      return;
+    }
+    if ((b === 101 || b === 69) && this.any && !this.inExp) {
+      this.inExp = true;
+      if (this.slow) this.text.push(b);
+      return;
+    }
+    if (b === 13 || b === 32 || b === 34 || b === 9) return;
+    // Any other byte: the field is not a number.
+    this.bad = true;
+    this.rowHasContent = true;
+    if (this.text.length < 40) this.text.push(b);
   }
 
   /** Switches the field to the exact fallback: its text so far, rebuilt from the state, then Number(). */
@@ -173,7 +264,6 @@ export class NumberParser {
 
   private resetField() {
     this.mant = 0;
-    this.digits = 0;
     this.frac = 0;
     this.inFrac = false;
     this.neg = false;
@@ -228,7 +318,7 @@ export class NumberParser {
         this.resetField();
       }
     }
-    const columns = this.cols.map((c) => (c.length === this.rows ? c : c.slice(0, this.rows)));
+    const columns = this.cols.map((c) => c.subarray(0, this.rows));
     this.cols = [];
     return {
       columns,

@@ -29,7 +29,7 @@ export interface MethodRun {
 export type MethodOutcome = { ok: true; run: MethodRun } | { ok: false; warnings: QualityWarning[] };
 
 /** Target rate of the down-sampled current, Hz. */
-const ANALYSIS_RATE_HZ = 1000;
+const ANALYSIS_RATE_HZ = 500;
 
 export function runCurrentMethod(
   time: Float64Array,
@@ -47,10 +47,9 @@ export function runCurrentMethod(
   if (rate < 200) {
     return fail('SAMPLE_RATE_TOO_LOW', `The current was sampled at ${Math.round(fs)} samples/s; record at 1,000 samples/s or more (5,000–10,000 is best).`);
   }
-  // 5 ms moving average removes commutator ripple, then block means down-sample.
-  const smooth = movingAverage(current, Math.max(1, Math.round(fs * 0.005)));
+  // Block means down-sample to about 500 Hz (a 2 ms boxcar), then a 5 ms moving average removes commutator ripple.
   const it = blockMean(time, factor);
-  const ic = blockMean(smooth, factor);
+  const ic = movingAverage(blockMean(current, factor), Math.max(1, Math.round(rate * 0.005)));
   const window = windowOverride ?? windowFromCurrent(it, ic);
   if (!window) {
     return fail('NO_CRANKING', 'No cranking was found in the current: it never rose and settled at a cranking level. Check the clamp is on the starter cable, its direction and range, and record 5–10 s of cranking.');
@@ -92,14 +91,16 @@ export function runCurrentMethod(
   }
 
   const hi = quantile(slice, 0.99);
-  let best: { fit: TorqueFit; motion: CrankMotion; score: number } | null = null;
+  // I_stall by the best fit of the sealed shapes, then the full fit (leak shapes) at that value.
+  let best: { motion: CrankMotion; score: number } | null = null;
   for (const k of [1.3, 1.7, 2.3, 3.2]) {
     const motion = motionFromCurrent(it, ic, marks, markAngles, k * hi);
-    const fit = runFit(motion, setup, identity === 'sync', rotation);
-    if (fit && (!best || fit.r2 > best.score)) best = { fit, motion, score: fit.r2 };
+    const quick = runFit(motion, setup, identity === 'sync', rotation, undefined, false);
+    if (quick && (!best || quick.r2 > best.score)) best = { motion, score: quick.r2 };
   }
-  if (!best) return fail('TOO_FEW_CYCLES', 'The current holds too little cranking to fit; crank for 5–10 s.');
-  return { ok: true, run: { motion: best.motion, fit: best.fit, window, rpm, identity, warnings } };
+  const fit = best && runFit(best.motion, setup, identity === 'sync', rotation);
+  if (!best || !fit) return fail('TOO_FEW_CYCLES', 'The current holds too little cranking to fit; crank for 5–10 s.');
+  return { ok: true, run: { motion: best.motion, fit, window, rpm, identity, warnings } };
 
   function fail(code: Parameters<typeof warning>[0], message: string): MethodOutcome {
     return { ok: false, warnings: [...warnings, warning(code, message)] };

@@ -14,6 +14,7 @@ export function runFit(
   synced: boolean,
   rotation: number,
   exclude?: Set<string>,
+  refineLeaks = true,
 ): TorqueFit | null {
   const iv = firingIntervals(setup);
   const n = setup.cylinders;
@@ -23,6 +24,7 @@ export function runFit(
     phasesDeg: tdcPhasesDeg(setup),
     firingOrder: setup.firingOrder,
     exclude,
+    refineLeaks,
     coarseStepDeg: Math.min(6, period / 8),
   };
   if (synced) {

@@ -1,10 +1,10 @@
 /** Cylinder-1 sync pulses (ignition or injector trigger, cam sensor): rising edges through a hysteresis band. */
-import { quantile } from '../dsp/stats';
+import { quantileProbe } from '../dsp/stats';
 
 /** Times (s) of the sync channel's rising edges, at least `minSpacingS` apart; empty when there is no clear pulse. */
 export function findSyncPulses(t: Float64Array, v: Float64Array, minSpacingS: number): number[] {
-  const lo = quantile(v, 0.05);
-  const hi = quantile(v, 0.999);
+  const lo = quantileProbe(v, 0.05);
+  const hi = quantileProbe(v, 0.999);
   if (!(hi - lo > 0.5)) return [];
   const up = lo + 0.6 * (hi - lo);
   const down = lo + 0.4 * (hi - lo);

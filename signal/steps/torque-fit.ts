@@ -47,6 +47,8 @@ export interface FitOptions {
   /** Events to leave out of the per-cylinder figures (keys `${position}:${tdcDeg.toFixed(1)}`), e.g. rejected ones. */
   exclude?: Set<string>;
   gas?: GasModel;
+  /** Let each cylinder take the leak shape that fits it best. @default true */
+  refineLeaks?: boolean;
 }
 
 const families = new Map<string, LeakyShape[]>();
@@ -171,9 +173,14 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   const centre2 = bestPhase;
   for (let p = centre2 - 0.75; p <= centre2 + 0.75; p += 0.25) if (p !== centre2) tryPhase(p);
 
-  // Each cylinder in turn takes the leak shape with the smallest residual; two passes settle neighbours.
-  for (let pass = 0; pass < 2; pass++) {
-    for (let c = 0; c < n; c++) {
+  // Cylinders reading below 97 % of the median take, in turn, the leak shape with the smallest residual; two
+  // passes settle neighbours. Sealed cylinders keep the sealed shape.
+  const first = solveAt(m, o, bestPhase, false, shapes());
+  const coef = first ? Array.from({ length: n }, (_, c) => first.coef[2 + c]) : [];
+  const ref = [...coef].sort((a, b) => a - b)[n >> 1];
+  const suspects = coef.map((k, c) => (k < 0.97 * ref ? c : -1)).filter((c) => c >= 0);
+  for (let pass = 0; pass < (o.refineLeaks === false ? 0 : 2); pass++) {
+    for (const c of suspects) {
       let bestF = choice[c];
       for (let f = 0; f < family.length; f++) {
         if (f === bestF) continue;

@@ -3,32 +3,23 @@
  * hysteresis band. Variable reluctance: an AC wave whose amplitude follows speed, timed at the
  * positive-to-negative zero crossing after the wave has risen above an arming level.
  */
-import { quantile } from '../dsp/stats';
+import { quantileProbe } from '../dsp/stats';
 
 export type SensorKind = 'hall' | 'vr';
 
 /** Guesses the sensor type: a Hall wave sits at two levels, a VR wave swings around zero. */
 export function guessSensorKind(v: Float64Array): SensorKind {
-  const lo = quantile(sampleEvery(v, 50_000), 0.02);
-  const hi = quantile(sampleEvery(v, 50_000), 0.98);
+  const lo = quantileProbe(v, 0.02, 50_000);
+  const hi = quantileProbe(v, 0.98, 50_000);
   return lo < -0.2 * Math.abs(hi) ? 'vr' : 'hall';
-}
-
-function sampleEvery(v: Float64Array, max: number): Float64Array {
-  if (v.length <= max) return v;
-  const step = v.length / max;
-  const out = new Float64Array(max);
-  for (let i = 0; i < max; i++) out[i] = v[Math.floor(i * step)];
-  return out;
 }
 
 /** Edge times (s) from a sampled sensor waveform. */
 export function toothTimesFromWaveform(t: Float64Array, v: Float64Array, kind: SensorKind): Float64Array {
-  const probe = sampleEvery(v, 50_000);
   const out: number[] = [];
   if (kind === 'hall') {
-    const lo = quantile(probe, 0.05);
-    const hi = quantile(probe, 0.95);
+    const lo = quantileProbe(v, 0.05, 50_000);
+    const hi = quantileProbe(v, 0.95, 50_000);
     const mid = (lo + hi) / 2;
     const band = 0.15 * (hi - lo);
     let high = v[0] > mid;
@@ -47,7 +38,7 @@ export function toothTimesFromWaveform(t: Float64Array, v: Float64Array, kind: S
       }
     }
   } else {
-    const amp = quantile(probe, 0.98);
+    const amp = quantileProbe(v, 0.98, 50_000);
     const arm = 0.12 * amp;
     let armed = false;
     for (let i = 1; i < v.length; i++) {

@@ -1,0 +1,77 @@
+/**
+ * npm run bench: in one run, the plain parsing baseline and the full import + analysis on generated 1M- and
+ * 10M-sample captures (each measurement in a fresh process, medians over repeats), and min/max decimation
+ * against one plain pass. Ends with one `bench:` line.
+ */
+import { execFileSync } from 'node:child_process';
+import { mkdirSync } from 'node:fs';
+import { decimateMinMax } from '../signal/dsp/decimate';
+import { generateCapture } from './bench/generate';
+
+const dir = '/tmp/crankprint-bench';
+mkdirSync(dir, { recursive: true });
+
+const median = (v: number[]) => [...v].sort((a, b) => a - b)[v.length >> 1];
+const child = (mode: string, file: string) =>
+  JSON.parse(execFileSync(process.execPath, ['--import', 'tsx', 'scripts/bench/child.ts', mode, file], { encoding: 'utf8' }).trim().split('\n').pop()!);
+
+interface Row {
+  baselineMs: number;
+  importMs: number;
+  analysisMs: number;
+  peakRatio: number;
+  mb: number;
+}
+
+function measure(label: string, samples: number, repeats: number): Row {
+  const file = `${dir}/capture-${label}.csv`;
+  const bytes = generateCapture(file, samples);
+  const mb = bytes / 1048576;
+  const base: number[] = [];
+  const imp: number[] = [];
+  const ana: number[] = [];
+  const peak: number[] = [];
+  for (let r = 0; r < repeats; r++) {
+    base.push(child('baseline', file).ms);
+    const m = child('import', file);
+    imp.push(m.importMs);
+    ana.push(m.analysisMs);
+    peak.push(m.peakBytes / m.columnBytes);
+  }
+  const row = { baselineMs: median(base), importMs: median(imp), analysisMs: median(ana), peakRatio: median(peak), mb };
+  console.log(
+    `${label.padEnd(4)} ${mb.toFixed(0).padStart(4)} MB  baseline ${row.baselineMs.toFixed(0).padStart(5)} ms (${(mb / (row.baselineMs / 1000)).toFixed(0)} MB/s)` +
+      `  import ${row.importMs.toFixed(0).padStart(5)} ms (${(mb / (row.importMs / 1000)).toFixed(0)} MB/s, ${(row.importMs / row.baselineMs).toFixed(2)}× baseline, ${((row.importMs * 1e6) / samples).toFixed(0)} ns/sample)` +
+      `  analysis ${row.analysisMs.toFixed(0).padStart(4)} ms  peak memory ${row.peakRatio.toFixed(2)}× column bytes`,
+  );
+  return row;
+}
+
+const r1 = measure('1m', 1_000_000, 5);
+const r10 = measure('10m', 10_000_000, 3);
+
+// Decimation of the full 10M range to 2,000 columns against one plain pass over the same array.
+const n = 10_000_000;
+const t = Float64Array.from({ length: n }, (_, i) => i / 1e6);
+const y = Float64Array.from({ length: n }, (_, i) => Math.sin(i / 1000));
+const dec: number[] = [];
+const pass: number[] = [];
+let sink = 0;
+for (let r = 0; r < 7; r++) {
+  let t0 = performance.now();
+  let s = 0;
+  for (let i = 0; i < n; i++) s += y[i];
+  pass.push(performance.now() - t0);
+  sink += s;
+  t0 = performance.now();
+  sink += decimateMinMax(t, y, 0, n, 2000).max[0];
+  dec.push(performance.now() - t0);
+}
+console.log(`decimate 10M → 2,000 columns ${median(dec).toFixed(1)} ms; one plain pass ${median(pass).toFixed(1)} ms ${sink > Infinity ? '' : ''}`);
+
+const f = (v: number, d = 2) => v.toFixed(d);
+console.log(
+  `bench: import_ratio_10m=${f(r10.importMs / r10.baselineMs)} analysis_share_10m=${f(r10.analysisMs / r10.importMs)} ` +
+    `e2e_1m_ms=${f(r1.importMs + r1.analysisMs, 0)} e2e_10m_ms=${f(r10.importMs + r10.analysisMs, 0)} ` +
+    `peak_mem_ratio_10m=${f(r10.peakRatio)} decimate_ratio_10m=${f(median(dec) / median(pass))}`,
+);
