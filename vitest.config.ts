@@ -1,7 +1,7 @@
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
-  resolve: { alias: { '@': new URL('./', import.meta.url).pathname } },
+  resolve: { alias: { '@': new URL('./', import.meta.url).pathname, 'server-only': new URL('./tests/support/empty.ts', import.meta.url).pathname } },
   test: {
     include: ['tests/**/*.test.ts'],
     testTimeout: 60_000,

@@ -1,0 +1,161 @@
+'use client';
+/** The jobs table: quick filters and search kept in the URL, sortable columns, pages of 20. */
+import { type ColumnDef, flexRender, getCoreRowModel, getPaginationRowModel, getSortedRowModel, type SortingState, useReactTable } from '@tanstack/react-table';
+import Link from 'next/link';
+import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { useEffect, useMemo, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Input, Notice } from '@/components/ui/field';
+import type { JobRow } from '@/components/data/jobs/types';
+import { useJobs } from '@/components/data/jobs/use-jobs';
+
+const FILTERS = [
+  { value: 'all', label: 'All' },
+  { value: 'open', label: 'Open' },
+  { value: 'waiting', label: 'Waiting on customer' },
+  { value: 'done', label: 'Done' },
+] as const;
+
+const STATUS_LABEL: Record<string, string> = { open: 'Open', waiting: 'Waiting on customer', done: 'Done' };
+
+function vehicleText(v: JobRow['vehicle']) {
+  return [v.year, v.make, v.model].filter(Boolean).join(' ');
+}
+
+const columns: ColumnDef<JobRow>[] = [
+  {
+    accessorKey: 'repairOrder',
+    header: 'Repair order',
+    cell: (c) => (
+      <Link className="figures font-bold text-brand underline" href={`/jobs/${c.row.original.id}`}>
+        {c.row.original.repairOrder}
+      </Link>
+    ),
+  },
+  {
+    id: 'vehicle',
+    header: 'Vehicle',
+    accessorFn: (r) => vehicleText(r.vehicle),
+    cell: (c) => (
+      <div>
+        <div className="font-bold">{vehicleText(c.row.original.vehicle)}</div>
+        <div className="figures text-sm text-muted">{c.row.original.vehicle.vin ?? 'no VIN'}</div>
+      </div>
+    ),
+  },
+  { accessorKey: 'concern', header: 'Concern', cell: (c) => <span className="line-clamp-2">{c.row.original.concern}</span> },
+  { accessorKey: 'status', header: 'Status', cell: (c) => <span className="rounded-md bg-raised px-2 py-1 text-sm font-bold">{STATUS_LABEL[c.row.original.status]}</span> },
+  {
+    accessorKey: 'updatedAt',
+    header: 'Updated',
+    cell: (c) => <span className="figures text-sm">{new Date(c.row.original.updatedAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}</span>,
+  },
+];
+
+export function JobsTable() {
+  const params = useSearchParams();
+  const router = useRouter();
+  const path = usePathname();
+  const status = params.get('status') ?? 'all';
+  const q = params.get('q') ?? '';
+  const [search, setSearch] = useState(q);
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'updatedAt', desc: true }]);
+
+  // Search is kept in the URL, a moment after typing stops.
+  useEffect(() => {
+    if (search === q) return;
+    const t = setTimeout(() => setParam('q', search), 300);
+    return () => clearTimeout(t);
+  }, [search]);
+
+  function setParam(key: string, value: string) {
+    const next = new URLSearchParams(params);
+    if (value && value !== 'all') next.set(key, value);
+    else next.delete(key);
+    router.replace(`${path}?${next}`, { scroll: false });
+  }
+
+  const query = useJobs({ q: q || undefined, status });
+  const data = useMemo(() => query.data ?? [], [query.data]);
+  const table = useReactTable({
+    data,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getPaginationRowModel: getPaginationRowModel(),
+    initialState: { pagination: { pageSize: 20 } },
+  });
+
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex flex-wrap items-center gap-2">
+        <div role="group" aria-label="Status" className="flex flex-wrap gap-1">
+          {FILTERS.map((f) => (
+            <button
+              key={f.value}
+              type="button"
+              aria-pressed={status === f.value}
+              onClick={() => setParam('status', f.value)}
+              className={`min-h-touch rounded-lg border px-3 font-bold ${status === f.value ? 'border-brand bg-brand text-brand-ink' : 'border-line bg-surface hover:bg-raised'}`}
+            >
+              {f.label}
+            </button>
+          ))}
+        </div>
+        <label className="ml-auto flex min-w-64 flex-1 items-center gap-2 md:max-w-sm">
+          <span className="sr-only">Search</span>
+          <Input type="search" placeholder="Search repair order, VIN or concern" value={search} onChange={(e) => setSearch(e.target.value)} />
+        </label>
+      </div>
+      {query.isError && <Notice tone="error">{(query.error as Error).message}</Notice>}
+      <div className="overflow-x-auto rounded-xl border border-line bg-surface">
+        <table className="w-full text-left">
+          <thead className="bg-raised">
+            {table.getHeaderGroups().map((hg) => (
+              <tr key={hg.id}>
+                {hg.headers.map((h) => (
+                  <th key={h.id} scope="col" className="p-0" aria-sort={h.column.getIsSorted() === 'asc' ? 'ascending' : h.column.getIsSorted() === 'desc' ? 'descending' : 'none'}>
+                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="min-h-touch w-full px-3 text-left font-bold">
+                      {flexRender(h.column.columnDef.header, h.getContext())}
+                      <span aria-hidden="true"> {h.column.getIsSorted() === 'asc' ? '▲' : h.column.getIsSorted() === 'desc' ? '▼' : ''}</span>
+                    </button>
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {table.getRowModel().rows.map((r) => (
+              <tr key={r.id} className="border-t border-line align-top">
+                {r.getVisibleCells().map((c) => (
+                  <td key={c.id} className="px-3 py-3">
+                    {flexRender(c.column.columnDef.cell, c.getContext())}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {!query.isPending && data.length === 0 && (
+          <p className="p-6 text-center text-muted">{q || status !== 'all' ? 'No job matches; clear the search or pick another status.' : 'No jobs yet. Start one with "New job".'}</p>
+        )}
+        {query.isPending && <p className="p-6 text-center text-muted">Loading jobs…</p>}
+      </div>
+      {table.getPageCount() > 1 && (
+        <div className="flex items-center justify-end gap-2">
+          <Button variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+            Previous
+          </Button>
+          <span className="figures">
+            Page {table.getState().pagination.pageIndex + 1} of {table.getPageCount()}
+          </span>
+          <Button variant="secondary" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+            Next
+          </Button>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,21 @@
+/** One job of the shop; another shop's job is a 404. */
+import { z } from 'zod';
+import { recordAudit } from '@/db/queries/audit';
+import { getJob, updateJob } from '@/db/queries/jobs';
+import { jobUpdateSchema } from '@/db/validators/job';
+import { notFound } from '@/server/http';
+import { withShop } from '@/server/with-shop';
+
+export const GET = withShop({ job: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop }) => {
+  const job = await getJob(shop.id, input.jobId);
+  if (!job) throw notFound('That job');
+  return { job };
+});
+
+export const PATCH = withShop({ job: ['update'] }, jobUpdateSchema.extend({ jobId: z.string() }), async ({ input, shop, user }) => {
+  const { jobId, ...patch } = input;
+  const job = await updateJob(shop.id, jobId, patch);
+  if (!job) throw notFound('That job');
+  await recordAudit(shop.id, user.id, 'job.update', { type: 'job', id: job.id }, patch);
+  return { job };
+});

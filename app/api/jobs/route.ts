@@ -1,0 +1,20 @@
+/** The shop's jobs: list (search, status) and create (with an existing or a new vehicle). */
+import { recordAudit } from '@/db/queries/audit';
+import { createJob, DuplicateRepairOrderError, listJobs } from '@/db/queries/jobs';
+import { jobSchema, listQuerySchema } from '@/db/validators/job';
+import { HttpError, notFound } from '@/server/http';
+import { withShop } from '@/server/with-shop';
+
+export const GET = withShop({ job: ['read'] }, listQuerySchema, async ({ input, shop }) => ({ jobs: await listJobs(shop.id, input) }));
+
+export const POST = withShop({ job: ['create'] }, jobSchema, async ({ input, shop, user }) => {
+  try {
+    const job = await createJob(shop.id, user.id, input);
+    if (!job) throw notFound('That vehicle');
+    await recordAudit(shop.id, user.id, 'job.create', { type: 'job', id: job.id }, { repairOrder: job.repairOrder });
+    return { job };
+  } catch (e) {
+    if (e instanceof DuplicateRepairOrderError) throw new HttpError(409, 'CONFLICT', e.message, { repairOrder: e.message });
+    throw e;
+  }
+});

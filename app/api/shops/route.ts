@@ -1,0 +1,31 @@
+/** Create a shop (the signed-in user becomes its owner) and list the user's shops. */
+import { eq } from 'drizzle-orm';
+import { z } from 'zod';
+import { getDb } from '@/db/client';
+import { recordAudit } from '@/db/queries/audit';
+import { members, organizations } from '@/db/schema';
+import { getAuth } from '@/server/auth';
+import { withSession } from '@/server/with-shop';
+
+export const POST = withSession(
+  z.object({ name: z.string().trim().min(2, 'Enter the shop name.').max(80, 'Keep the shop name under 80 characters.') }),
+  async ({ input, req, user }) => {
+    const auth = await getAuth();
+    const slug = `${input.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'shop'}-${crypto.randomUUID().slice(0, 8)}`;
+    const shop = await auth.api.createOrganization({ body: { name: input.name, slug }, headers: req.headers });
+    if (!shop) throw new Error('Shop not created');
+    await auth.api.setActiveOrganization({ body: { organizationId: shop.id }, headers: req.headers });
+    await recordAudit(shop.id, user.id, 'shop.create', { type: 'shop', id: shop.id });
+    return { shop: { id: shop.id, name: shop.name } };
+  },
+);
+
+export const GET = withSession(z.object({}), async ({ user }) => {
+  const db = await getDb();
+  const rows = await db
+    .select({ id: organizations.id, name: organizations.name, role: members.role })
+    .from(members)
+    .innerJoin(organizations, eq(members.organizationId, organizations.id))
+    .where(eq(members.userId, user.id));
+  return { shops: rows };
+});

@@ -1,0 +1,45 @@
+import type { Metadata, Viewport } from 'next';
+import localFont from 'next/font/local';
+import { Providers } from './providers';
+import './globals.css';
+
+const text = localFont({
+  src: [
+    { path: './fonts/atkinson-hyperlegible-latin-400-normal.woff2', weight: '400' },
+    { path: './fonts/atkinson-hyperlegible-latin-700-normal.woff2', weight: '700' },
+  ],
+  variable: '--font-text',
+  display: 'swap',
+});
+
+const figures = localFont({
+  src: [
+    { path: './fonts/ibm-plex-mono-latin-400-normal.woff2', weight: '400' },
+    { path: './fonts/ibm-plex-mono-latin-500-normal.woff2', weight: '500' },
+  ],
+  variable: '--font-figures',
+  display: 'swap',
+});
+
+export const metadata: Metadata = {
+  title: { default: 'Crankprint', template: '%s · Crankprint' },
+  description: 'Relative compression from one crank: per-cylinder results for the job file.',
+};
+
+export const viewport: Viewport = { width: 'device-width', initialScale: 1 };
+
+/** Picks the saved theme (or the system's) before first paint, so there is no flash. */
+const themeScript = `try{var t=localStorage.getItem('crankprint-theme');if(!t)t=matchMedia('(prefers-color-scheme: dark)').matches?'dark':'light';document.documentElement.dataset.theme=t}catch(e){}`;
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${text.variable} ${figures.variable}`} suppressHydrationWarning>
+      <head>
+        <script dangerouslySetInnerHTML={{ __html: themeScript }} />
+      </head>
+      <body className="min-h-screen font-sans text-base antialiased">
+        <Providers>{children}</Providers>
+      </body>
+    </html>
+  );
+}

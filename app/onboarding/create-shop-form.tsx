@@ -1,0 +1,37 @@
+'use client';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Field, Input } from '@/components/ui/field';
+import { api, ApiError } from '@/components/data/api';
+
+export function CreateShopForm() {
+  const router = useRouter();
+  const [name, setName] = useState('');
+  const [error, setError] = useState<string>();
+  const [busy, setBusy] = useState(false);
+  return (
+    <form
+      className="flex flex-col gap-2 rounded-2xl border border-line bg-surface p-6"
+      onSubmit={async (e) => {
+        e.preventDefault();
+        setBusy(true);
+        try {
+          await api('/api/shops', { method: 'POST', json: { name } });
+          router.push('/jobs');
+          router.refresh();
+        } catch (err) {
+          setError(err instanceof ApiError ? (err.fields.name ?? err.message) : 'Could not create the shop; try again.');
+          setBusy(false);
+        }
+      }}
+    >
+      <Field id="shop-name" label="Shop name" error={error}>
+        <Input id="shop-name" value={name} invalid={!!error} onChange={(e) => setName(e.target.value)} />
+      </Field>
+      <Button type="submit" disabled={busy}>
+        Create my shop
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,12 @@
+/** A job row as the jobs route returns it. */
+export interface JobRow {
+  id: string;
+  repairOrder: string;
+  odometer: number | null;
+  odometerUnit: string;
+  concern: string;
+  status: 'open' | 'waiting' | 'done';
+  createdAt: string;
+  updatedAt: string;
+  vehicle: { id: string; vin: string | null; year: number | null; make: string; model: string; engine: { cylinders: number; layout: string; firingOrder: number[] } };
+}

@@ -1,0 +1,169 @@
+/** The shop's own records: vehicles, jobs, captures (raw bytes compressed in chunk rows), analyses, reports, audit. */
+import { customType, index, integer, jsonb, pgTable, primaryKey, real, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { organizations, users } from './auth';
+
+const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({
+  dataType: () => 'bytea',
+});
+
+const id = () =>
+  text()
+    .primaryKey()
+    .$defaultFn(() => crypto.randomUUID());
+const shopId = () =>
+  text()
+    .notNull()
+    .references(() => organizations.id, { onDelete: 'cascade' });
+const created = () => timestamp({ withTimezone: true }).notNull().defaultNow();
+
+/** Engine as stored on a vehicle or profile: what the analysis needs. */
+export interface EngineSpec {
+  cylinders: number;
+  layout: 'inline' | 'v' | 'flat';
+  numbering?: 'along-crank' | 'bank-by-bank';
+  firingOrder: number[];
+  intervalsDeg?: number[];
+  displacementL?: number;
+}
+
+export const vehicles = pgTable(
+  'vehicles',
+  {
+    id: id(),
+    shopId: shopId(),
+    vin: text(),
+    year: integer(),
+    make: text().notNull(),
+    model: text().notNull(),
+    engine: jsonb().$type<EngineSpec>().notNull(),
+    createdAt: created(),
+    updatedAt: created(),
+  },
+  (t) => [index().on(t.shopId), index().on(t.shopId, t.vin)],
+);
+
+export const jobs = pgTable(
+  'jobs',
+  {
+    id: id(),
+    shopId: shopId(),
+    vehicleId: text()
+      .notNull()
+      .references(() => vehicles.id, { onDelete: 'restrict' }),
+    repairOrder: text().notNull(),
+    odometer: integer(),
+    odometerUnit: text().notNull().default('km'),
+    concern: text().notNull(),
+    status: text().notNull().default('open'),
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: created(),
+    updatedAt: created(),
+  },
+  (t) => [uniqueIndex().on(t.shopId, t.repairOrder), index().on(t.shopId, t.updatedAt)],
+);
+
+export const captures = pgTable(
+  'captures',
+  {
+    id: id(),
+    shopId: shopId(),
+    jobId: text()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    fileName: text().notNull(),
+    contentType: text().notNull(),
+    sizeBytes: integer().notNull(),
+    sha256: text().notNull(),
+    compression: text().notNull().default('gzip'),
+    chunkCount: integer().notNull(),
+    uploadedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: created(),
+  },
+  (t) => [uniqueIndex().on(t.jobId, t.sha256), index().on(t.shopId)],
+);
+
+export const captureChunks = pgTable(
+  'capture_chunks',
+  {
+    captureId: text()
+      .notNull()
+      .references(() => captures.id, { onDelete: 'cascade' }),
+    seq: integer().notNull(),
+    data: bytea().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.captureId, t.seq] })],
+);
+
+export const analyses = pgTable(
+  'analyses',
+  {
+    id: id(),
+    shopId: shopId(),
+    captureId: text()
+      .notNull()
+      .references(() => captures.id, { onDelete: 'cascade' }),
+    settings: jsonb().notNull(),
+    engineVersion: text().notNull(),
+    fileSha256: text().notNull(),
+    result: jsonb().notNull(),
+    verdict: text().notNull(),
+    crankingRpm: real(),
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: created(),
+  },
+  (t) => [index().on(t.shopId, t.captureId)],
+);
+
+export const reports = pgTable(
+  'reports',
+  {
+    id: id(),
+    shopId: shopId(),
+    jobId: text()
+      .notNull()
+      .references(() => jobs.id, { onDelete: 'cascade' }),
+    revision: integer().notNull().default(1),
+    status: text().notNull().default('draft'),
+    content: jsonb().notNull(),
+    signedBy: text().references(() => users.id, { onDelete: 'set null' }),
+    signedAt: timestamp({ withTimezone: true }),
+    createdAt: created(),
+  },
+  (t) => [uniqueIndex().on(t.jobId, t.revision), index().on(t.shopId)],
+);
+
+export const engineProfiles = pgTable(
+  'engine_profiles',
+  {
+    id: id(),
+    shopId: shopId(),
+    label: text().notNull(),
+    engine: jsonb().$type<EngineSpec>().notNull(),
+    createdAt: created(),
+  },
+  (t) => [index().on(t.shopId)],
+);
+
+export const auditEvents = pgTable(
+  'audit_events',
+  {
+    id: id(),
+    shopId: text().references(() => organizations.id, { onDelete: 'cascade' }),
+    actorId: text().references(() => users.id, { onDelete: 'set null' }),
+    action: text().notNull(),
+    subjectType: text(),
+    subjectId: text(),
+    detail: jsonb(),
+    createdAt: created(),
+  },
+  (t) => [index().on(t.shopId, t.createdAt)],
+);
+
+export type Vehicle = typeof vehicles.$inferSelect;
+export type NewVehicle = typeof vehicles.$inferInsert;
+export type Job = typeof jobs.$inferSelect;
+export type NewJob = typeof jobs.$inferInsert;
+export type Capture = typeof captures.$inferSelect;
+export type Analysis = typeof analyses.$inferSelect;
+export type Report = typeof reports.$inferSelect;
+export type AuditEvent = typeof auditEvents.$inferSelect;

@@ -1,0 +1,87 @@
+/**
+ * Demo data for an empty database: an invented shop with one user per role and a handful of vehicles and
+ * jobs. Nothing here describes a real shop, person or vehicle.
+ */
+import { hashPassword } from 'better-auth/crypto';
+import { sql } from 'drizzle-orm';
+import type { Db } from './client';
+import { accounts, jobs, members, organizations, users, vehicles, type EngineSpec } from './schema';
+import { vinCheckDigit } from './validators/vin';
+
+export const DEMO_PASSWORD = 'crank-demo-2026';
+export const DEMO_ACCOUNTS = [
+  { role: 'owner', name: 'Demo Owner', email: 'owner@demo.crankprint.test' },
+  { role: 'technician', name: 'Demo Technician', email: 'tech@demo.crankprint.test' },
+  { role: 'advisor', name: 'Demo Advisor', email: 'advisor@demo.crankprint.test' },
+] as const;
+
+const I4: EngineSpec = { cylinders: 4, layout: 'inline', firingOrder: [1, 3, 4, 2], displacementL: 2.0 };
+const I6: EngineSpec = { cylinders: 6, layout: 'inline', firingOrder: [1, 5, 3, 6, 2, 4], displacementL: 3.0 };
+const V6: EngineSpec = { cylinders: 6, layout: 'v', numbering: 'along-crank', firingOrder: [1, 6, 5, 4, 3, 2], intervalsDeg: [90, 150, 90, 150, 90, 150], displacementL: 3.8 };
+const V8: EngineSpec = { cylinders: 8, layout: 'v', numbering: 'along-crank', firingOrder: [1, 8, 4, 3, 6, 5, 7, 2], displacementL: 5.3 };
+
+/** A made-up North American VIN with a correct check digit. */
+function demoVin(serial: number): string {
+  const draft = `1CPDEM0V0ZR${String(serial).padStart(6, '0')}`;
+  const chars = draft.split('');
+  chars[8] = vinCheckDigit(draft);
+  return chars.join('');
+}
+
+const DEMO_VEHICLES = [
+  { year: 2014, make: 'Demo Motors', model: 'Compact sedan 2.0', engine: I4, vin: demoVin(101) },
+  { year: 2011, make: 'Demo Motors', model: 'Wagon 3.0', engine: I6, vin: demoVin(102) },
+  { year: 2006, make: 'Demo Motors', model: 'Minivan 3.8', engine: V6, vin: demoVin(103) },
+  { year: 2017, make: 'Demo Motors', model: 'Pickup 5.3', engine: V8, vin: demoVin(104) },
+  { year: 2019, make: 'Demo Motors', model: 'Hatchback 2.0', engine: I4, vin: demoVin(105) },
+];
+
+const DEMO_JOBS = [
+  { ro: 'RO-24101', vehicle: 0, odometer: 148_220, concern: 'Runs rough at idle, check-engine light flashing on cold start.', status: 'open' },
+  { ro: 'RO-24102', vehicle: 1, odometer: 201_450, concern: 'Lacks power climbing hills; white smoke after start-up.', status: 'open' },
+  { ro: 'RO-24103', vehicle: 2, odometer: 176_300, concern: 'Misfire on the rear bank under load.', status: 'waiting' },
+  { ro: 'RO-24104', vehicle: 3, odometer: 92_800, concern: 'Cranks long before it starts; uses oil between changes.', status: 'open' },
+  { ro: 'RO-24099', vehicle: 4, odometer: 61_020, concern: 'Ticking noise and a shake at idle after a timing belt job elsewhere.', status: 'done' },
+];
+
+/** Seeds the demo shop when the database has no shop yet. */
+export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
+  const [{ count }] = await db.select({ count: sql<number>`count(*)::int` }).from(organizations);
+  if (count > 0) return false;
+  const hash = await hashPassword(DEMO_PASSWORD);
+  await db.transaction(async (tx) => {
+    const shopId = crypto.randomUUID();
+    await tx.insert(organizations).values({ id: shopId, name: 'Demo Engine Clinic', slug: 'demo-engine-clinic' });
+    const ids: string[] = [];
+    for (const a of DEMO_ACCOUNTS) {
+      const userId = crypto.randomUUID();
+      ids.push(userId);
+      await tx.insert(users).values({ id: userId, name: a.name, email: a.email, emailVerified: true });
+      await tx.insert(accounts).values({ id: crypto.randomUUID(), accountId: userId, providerId: 'credential', userId, password: hash });
+      await tx.insert(members).values({ id: crypto.randomUUID(), organizationId: shopId, userId, role: a.role });
+    }
+    const vehicleIds: string[] = [];
+    for (const v of DEMO_VEHICLES) {
+      const [row] = await tx.insert(vehicles).values({ shopId, ...v }).returning({ id: vehicles.id });
+      vehicleIds.push(row.id);
+    }
+    let minutes = 0;
+    for (const j of DEMO_JOBS) {
+      minutes += 95;
+      const at = new Date(Date.now() - minutes * 60_000);
+      await tx.insert(jobs).values({
+        shopId,
+        vehicleId: vehicleIds[j.vehicle],
+        repairOrder: j.ro,
+        odometer: j.odometer,
+        odometerUnit: 'km',
+        concern: j.concern,
+        status: j.status,
+        createdBy: ids[1],
+        createdAt: at,
+        updatedAt: at,
+      });
+    }
+  });
+  return true;
+}

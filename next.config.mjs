@@ -1,0 +1,7 @@
+/** @type {import('next').NextConfig} */
+const nextConfig = {
+  serverExternalPackages: ['@electric-sql/pglite'],
+  poweredByHeader: false,
+};
+
+export default nextConfig;

@@ -1,0 +1,106 @@
+/**
+ * better-auth for sign-in, e-mail verification, password reset and sessions; its organization plugin is the
+ * shop, with the roles of server/permissions.ts. Built lazily on the one database client.
+ */
+import 'server-only';
+import { betterAuth } from 'better-auth';
+import { drizzleAdapter } from 'better-auth/adapters/drizzle';
+import { nextCookies } from 'better-auth/next-js';
+import { organization } from 'better-auth/plugins';
+import { getDb } from '@/db/client';
+import * as schema from '@/db/schema';
+import { sendMail } from './mail';
+import { ac, roles } from './permissions';
+
+export const APP_URL = process.env.BETTER_AUTH_URL || 'http://127.0.0.1:3000';
+
+/** Shop management goes through Crankprint's own routes (session, role, input, audit); these stay server-side. */
+const SERVER_ONLY_PATHS = [
+  '/organization/create',
+  '/organization/update',
+  '/organization/delete',
+  '/organization/invite-member',
+  '/organization/cancel-invitation',
+  '/organization/remove-member',
+  '/organization/update-member-role',
+  '/organization/leave',
+  '/organization/add-member',
+];
+
+/** Attempts allowed per minute and client on the sensitive endpoints; CRANKPRINT_RATE_LIMIT_SCALE raises them for tests. */
+const scale = Math.max(1, Number(process.env.CRANKPRINT_RATE_LIMIT_SCALE) || 1);
+const RATE_LIMIT = {
+  enabled: true,
+  window: 60,
+  max: 200 * scale,
+  customRules: {
+    '/sign-in/email': { window: 60, max: 10 * scale },
+    '/sign-up/email': { window: 60, max: 5 * scale },
+    '/request-password-reset': { window: 60, max: 5 * scale },
+    '/reset-password': { window: 60, max: 10 * scale },
+  },
+};
+
+function build(db: Awaited<ReturnType<typeof getDb>>) {
+  return betterAuth({
+    rateLimit: RATE_LIMIT,
+    appName: 'Crankprint',
+    baseURL: APP_URL,
+    secret: process.env.BETTER_AUTH_SECRET,
+    database: drizzleAdapter(db, { provider: 'pg', schema, usePlural: true }),
+    disabledPaths: SERVER_ONLY_PATHS,
+    trustedOrigins: [APP_URL],
+    emailAndPassword: {
+      enabled: true,
+      requireEmailVerification: true,
+      minPasswordLength: 10,
+      revokeSessionsOnPasswordReset: true,
+      sendResetPassword: async ({ user, url }) => {
+        await sendMail({
+          to: user.email,
+          subject: 'Reset your Crankprint password',
+          text: `Someone asked to reset the password for ${user.email}. If it was you, open this link within an hour:\n${url}\nIf it was not you, ignore this message.`,
+        });
+      },
+    },
+    emailVerification: {
+      sendOnSignUp: true,
+      autoSignInAfterVerification: true,
+      sendVerificationEmail: async ({ user, url }) => {
+        await sendMail({
+          to: user.email,
+          subject: 'Confirm your e-mail for Crankprint',
+          text: `Welcome to Crankprint, ${user.name}. Confirm your e-mail address to sign in:\n${url}`,
+        });
+      },
+    },
+    session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24 },
+    plugins: [
+      organization({
+        ac,
+        roles,
+        creatorRole: 'owner',
+        allowUserToCreateOrganization: true,
+        invitationExpiresIn: 60 * 60 * 24 * 7,
+        sendInvitationEmail: async ({ id, email, role, organization: shop, inviter }) => {
+          await sendMail({
+            to: email,
+            subject: `Join ${shop.name} on Crankprint`,
+            text: `${inviter.user.name} invites you to ${shop.name} on Crankprint as ${role}.\nOpen this link to accept:\n${APP_URL}/invite/${id}`,
+          });
+        },
+      }),
+      nextCookies(),
+    ],
+  });
+}
+
+export type Auth = ReturnType<typeof build>;
+
+const g = globalThis as unknown as { __crankprintAuth?: Promise<Auth> };
+
+/** The process's better-auth instance, built once the database is open. */
+export function getAuth(): Promise<Auth> {
+  g.__crankprintAuth ??= getDb().then(build);
+  return g.__crankprintAuth;
+}

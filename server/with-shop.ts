@@ -1,0 +1,157 @@
+/**
+ * The one wrapper every route handler goes through: session → shop membership → role permission → zod input,
+ * in that order. Handlers never read the session themselves.
+ */
+import 'server-only';
+import { and, asc, eq } from 'drizzle-orm';
+import { type NextRequest, NextResponse } from 'next/server';
+import { z } from 'zod';
+import { getDb } from '@/db/client';
+import { members, organizations } from '@/db/schema';
+import { getAuth } from './auth';
+import { errorResponse, fieldErrors, HttpError } from './http';
+import { can, type Permission, type RoleName } from './permissions';
+
+export interface SessionContext {
+  user: { id: string; name: string; email: string };
+  sessionId: string;
+  activeShopId: string | null;
+}
+
+export interface ShopContext<I> extends SessionContext {
+  shop: { id: string; name: string };
+  member: { id: string; role: RoleName };
+  input: I;
+  req: NextRequest;
+}
+
+type Params = Promise<Record<string, string>>;
+type Handler<I> = (ctx: ShopContext<I> & { params: Record<string, string> }) => Promise<unknown>;
+
+const ACTIONS: Record<string, string> = {
+  create: 'create',
+  read: 'view',
+  update: 'change',
+  delete: 'delete',
+  upload: 'upload',
+  save: 'save',
+  edit: 'edit',
+  sign: 'sign',
+  send: 'send',
+  share: 'share',
+  cancel: 'cancel',
+  manage: 'manage',
+};
+
+/** The signed-in user, or a 401. */
+export async function requireSession(req: { headers: Headers }): Promise<SessionContext> {
+  const auth = await getAuth();
+  const s = await auth.api.getSession({ headers: req.headers });
+  if (!s) throw new HttpError(401, 'UNAUTHENTICATED', 'Sign in to continue.');
+  const active = (s.session as { activeOrganizationId?: string | null }).activeOrganizationId ?? null;
+  return { user: { id: s.user.id, name: s.user.name, email: s.user.email }, sessionId: s.session.id, activeShopId: active };
+}
+
+interface Membership {
+  memberId: string;
+  role: string;
+  shopId: string;
+  shopName: string;
+}
+
+/** The member's shop: the session's active shop, else their first membership; a 403 when they have none. */
+export async function resolveMembership(s: SessionContext): Promise<Membership> {
+  const db = await getDb();
+  const rows = await db
+    .select({ memberId: members.id, role: members.role, shopId: organizations.id, shopName: organizations.name })
+    .from(members)
+    .innerJoin(organizations, eq(members.organizationId, organizations.id))
+    .where(s.activeShopId ? and(eq(members.userId, s.user.id), eq(members.organizationId, s.activeShopId)) : eq(members.userId, s.user.id))
+    .orderBy(asc(members.createdAt))
+    .limit(1);
+  const row: Membership | undefined = rows[0] ?? (s.activeShopId ? await resolveMembership({ ...s, activeShopId: null }) : undefined);
+  if (!row) throw new HttpError(403, 'NO_SHOP', 'You are not a member of a shop yet: create one, or accept an invitation from your shop owner.');
+  return row;
+}
+
+async function readInput(req: NextRequest, params: Record<string, string>): Promise<unknown> {
+  const query = Object.fromEntries(req.nextUrl.searchParams.entries());
+  if (req.method === 'GET' || req.method === 'DELETE' || req.method === 'HEAD') return { ...query, ...params };
+  const type = req.headers.get('content-type') ?? '';
+  if (!type.includes('application/json')) {
+    throw new HttpError(415, 'UNSUPPORTED_MEDIA_TYPE', 'Send the request body as JSON (Content-Type: application/json).');
+  }
+  let body: unknown;
+  try {
+    body = await req.json();
+  } catch {
+    throw new HttpError(400, 'BAD_JSON', 'The request body is not valid JSON.');
+  }
+  if (typeof body !== 'object' || body === null || Array.isArray(body)) throw new HttpError(400, 'BAD_JSON', 'The request body must be a JSON object.');
+  return { ...query, ...(body as object), ...params };
+}
+
+/** Parses query, body and route params merged; a 400 naming each wrong field in a sentence. */
+async function parseInput<S extends z.ZodType>(schema: S, req: NextRequest, params: Record<string, string>): Promise<z.infer<S>> {
+  const parsed = schema.safeParse(await readInput(req, params));
+  if (parsed.success) return parsed.data;
+  const fields = fieldErrors(parsed.error);
+  throw new HttpError(400, 'INVALID_INPUT', `Check ${Object.keys(fields).length === 1 ? 'this field' : 'these fields'}: ${Object.values(fields).join(' ')}`, fields);
+}
+
+function describe(permission: Permission): string {
+  const [resource, actions] = Object.entries(permission)[0] ?? ['that', ['do']];
+  return `${(actions as string[]).map((a) => ACTIONS[a] ?? a).join(' or ')} ${resource === 'member' ? 'members' : resource === 'invitation' ? 'invitations' : `${resource}s`}`;
+}
+
+/**
+ * Wraps a route handler: `permission` is checked against the member's role, `schema` parses query, body and
+ * route params merged. The handler's return value is sent as JSON (a Response is passed through).
+ */
+export function withShop<S extends z.ZodType>(permission: Permission, schema: S, handler: Handler<z.infer<S>>) {
+  return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
+    try {
+      const session = await requireSession(req);
+      const m = await resolveMembership(session);
+      const role = m.role as RoleName;
+      if (!can(role, permission)) {
+        throw new HttpError(403, 'FORBIDDEN', `Your role (${role}) cannot ${describe(permission)}; ask your shop owner.`);
+      }
+      const params = (await context.params) ?? {};
+      const input = await parseInput(schema, req, params);
+      const out = await handler({
+        ...session,
+        shop: { id: m.shopId, name: m.shopName },
+        member: { id: m.memberId, role },
+        input,
+        req,
+        params,
+      });
+      if (out instanceof Response) return out;
+      return NextResponse.json(out ?? { ok: true });
+    } catch (e) {
+      return handleError(e);
+    }
+  };
+}
+
+/** For routes that need a signed-in user but no shop yet (creating a shop). */
+export function withSession<S extends z.ZodType>(schema: S, handler: (ctx: SessionContext & { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
+  return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
+    try {
+      const session = await requireSession(req);
+      const input = await parseInput(schema, req, (await context.params) ?? {});
+      const out = await handler({ ...session, input, req });
+      if (out instanceof Response) return out;
+      return NextResponse.json(out ?? { ok: true });
+    } catch (e) {
+      return handleError(e);
+    }
+  };
+}
+
+function handleError(e: unknown): Response {
+  if (e instanceof HttpError) return errorResponse(e);
+  console.error(e);
+  return errorResponse(new HttpError(500, 'INTERNAL', 'Something went wrong on the server; try again, and tell your shop owner if it keeps happening.'));
+}

@@ -1,0 +1,112 @@
+/**
+ * The role matrix: every route handler × (anonymous, owner, technician, advisor, owner of another shop), with
+ * PRODUCT.md's role table as the expectation. A route file or method without a row here fails the test.
+ */
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import { type APIRequestContext, expect, test } from '@playwright/test';
+import { DEMO, newContext, signIn, signUpVerified, unique } from './helpers';
+
+type Actor = 'anon' | 'owner' | 'technician' | 'advisor' | 'other';
+const ACTORS: Actor[] = ['anon', 'technician', 'advisor', 'other', 'owner'];
+
+interface Fixture {
+  jobId: string;
+  vehicleId: string;
+  advisorMemberId: string;
+  invitationIds: string[];
+}
+
+interface Row {
+  file: string;
+  method: string;
+  call: (ctx: APIRequestContext, f: Fixture) => Promise<{ status(): number }>;
+  expect: Record<Actor, number>;
+}
+
+const job = (ro: string) => ({
+  repairOrder: ro,
+  concern: 'Rough idle when cold.',
+  vehicle: { make: 'Test', model: 'Matrix', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } },
+});
+let seq = 0;
+
+const ROWS: Row[] = [
+  { file: 'auth/[...all]', method: 'GET', call: (c) => c.get('/api/auth/get-session'), expect: { anon: 200, owner: 200, technician: 200, advisor: 200, other: 200 } },
+  { file: 'auth/[...all]', method: 'POST', call: (c) => c.post('/api/auth/organization/invite-member', { data: { email: 'x@example.com', role: 'owner' } }), expect: { anon: 404, owner: 404, technician: 404, advisor: 404, other: 404 } },
+  { file: 'jobs', method: 'GET', call: (c) => c.get('/api/jobs'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
+  { file: 'jobs', method: 'POST', call: (c) => c.post('/api/jobs', { data: job(`RM-${++seq}`) }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 200 } },
+  { file: 'jobs/[jobId]', method: 'GET', call: (c, f) => c.get(`/api/jobs/${f.jobId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'jobs/[jobId]', method: 'PATCH', call: (c, f) => c.patch(`/api/jobs/${f.jobId}`, { data: { status: 'open' } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
+  { file: 'vehicles', method: 'GET', call: (c) => c.get('/api/vehicles'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
+  { file: 'vehicles', method: 'POST', call: (c) => c.post('/api/vehicles', { data: job('x').vehicle }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 200 } },
+  { file: 'vehicles/[vehicleId]', method: 'GET', call: (c, f) => c.get(`/api/vehicles/${f.vehicleId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'shop', method: 'GET', call: (c) => c.get('/api/shop'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
+  { file: 'shop/invitations', method: 'POST', call: (c) => c.post('/api/shop/invitations', { data: { email: unique('inv'), role: 'advisor' } }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },
+  { file: 'shop/invitations/[invitationId]', method: 'DELETE', call: (c, f) => c.delete(`/api/shop/invitations/${f.invitationIds[0]}`), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 404 } },
+  { file: 'shop/members/[memberId]', method: 'PATCH', call: (c, f) => c.patch(`/api/shop/members/${f.advisorMemberId}`, { data: { role: 'advisor' } }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 404 } },
+  { file: 'shop/members/[memberId]', method: 'DELETE', call: (c) => c.delete('/api/shop/members/no-such-member'), expect: { anon: 401, owner: 404, technician: 403, advisor: 403, other: 404 } },
+  { file: 'shops', method: 'GET', call: (c) => c.get('/api/shops'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
+  // Last: creating a shop makes it the creator's active shop.
+  { file: 'shops', method: 'POST', call: (c) => c.post('/api/shops', { data: { name: `Extra shop ${++seq}` } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
+];
+
+/** Every (route file, method) under app/api. */
+function routes(): { file: string; method: string }[] {
+  const out: { file: string; method: string }[] = [];
+  const walk = (dir: string) => {
+    for (const name of readdirSync(dir)) {
+      const p = join(dir, name);
+      if (statSync(p).isDirectory()) walk(p);
+      else if (name === 'route.ts') {
+        const src = readFileSync(p, 'utf8');
+        const file = p.replace(/^app\/api\//, '').replace(/\/route\.ts$/, '');
+        const methods = new Set<string>();
+        for (const m of src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)) methods.add(m[1]);
+        for (const m of src.matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g)) methods.add(m[1]);
+        for (const m of methods) out.push({ file, method: m });
+      }
+    }
+  };
+  walk('app/api');
+  return out;
+}
+
+test('every route handler has a row in the role matrix', () => {
+  const missing = routes().filter((r) => !ROWS.some((x) => x.file === r.file && x.method === r.method));
+  expect(missing, 'routes missing from the role matrix').toEqual([]);
+});
+
+test('role matrix: session → role → shop scope on every route', async () => {
+  const ctx: Record<Actor, APIRequestContext> = {
+    anon: await newContext(),
+    owner: await signIn(DEMO.owner),
+    technician: await signIn(DEMO.technician),
+    advisor: await signIn(DEMO.advisor),
+    other: await signUpVerified(unique('other-owner'), 'Other Owner'),
+  };
+  expect((await ctx.other.post('/api/shops', { data: { name: 'Another Shop' } })).status()).toBe(200);
+  const jobs = (await (await ctx.owner.get('/api/jobs')).json()).jobs;
+  const shop = await (await ctx.owner.get('/api/shop')).json();
+  const fixture: Fixture = {
+    jobId: jobs[0].id,
+    vehicleId: jobs[0].vehicle.id,
+    advisorMemberId: shop.members.find((m: { email: string }) => m.email === DEMO.advisor).id,
+    invitationIds: [],
+  };
+  const inv = await ctx.owner.post('/api/shop/invitations', { data: { email: unique('cancel-me'), role: 'technician' } });
+  fixture.invitationIds.push((await inv.json()).invitation.id);
+
+  // Another shop's list holds none of the demo shop's jobs.
+  const otherJobs = (await (await ctx.other.get('/api/jobs')).json()).jobs as { id: string }[];
+  expect(otherJobs.some((j) => j.id === fixture.jobId)).toBe(false);
+
+  const failures: string[] = [];
+  for (const row of ROWS) {
+    for (const actor of ACTORS) {
+      const res = await row.call(ctx[actor], fixture);
+      if (res.status() !== row.expect[actor]) failures.push(`${row.method} ${row.file} as ${actor}: ${res.status()}, expected ${row.expect[actor]}`);
+    }
+  }
+  expect(failures).toEqual([]);
+});

@@ -1,0 +1,132 @@
+/**
+ * A new shop from nothing, in the browser: sign up, confirm the e-mail from the sink, create the shop, invite a
+ * technician, who signs up, accepts, creates a job and finds it in the list. Screenshots go to artifacts/.
+ */
+import { mkdirSync } from 'node:fs';
+import { expect, type Page, test } from '@playwright/test';
+import { DEMO, DEMO_PASSWORD, unique, waitForMail } from './helpers';
+
+mkdirSync('artifacts/screens', { recursive: true });
+const shot = (page: Page, name: string) => page.screenshot({ path: `artifacts/screens/${name}.png`, fullPage: true });
+const local = (url: string) => url.replace(/^https?:\/\/[^/]+/, '');
+
+test('sign up, verify, create a shop, invite a technician who creates a job', async ({ browser }) => {
+  const ownerEmail = unique('owner');
+  const techEmail = unique('tech');
+  const owner = await (await browser.newContext()).newPage();
+
+  await owner.goto('/sign-up');
+  await owner.getByLabel('Your name').fill('New Owner');
+  await owner.getByLabel('E-mail').fill(ownerEmail);
+  await owner.getByLabel('Password', { exact: true }).fill('a-long-password-1');
+  await owner.getByLabel('Password again').fill('a-long-password-1');
+  await shot(owner, 'sign-up');
+  await owner.getByRole('button', { name: 'Create account' }).click();
+  await expect(owner.getByText('Check your e-mail')).toBeVisible();
+
+  const verify = await waitForMail(ownerEmail, /Confirm your e-mail/);
+  await owner.goto(local(verify.links[0]));
+  await expect(owner).toHaveURL(/\/onboarding/);
+  await owner.getByLabel('Shop name').fill('Walkthrough Motors');
+  await owner.getByRole('button', { name: 'Create my shop' }).click();
+  await expect(owner.getByRole('heading', { name: 'Jobs' })).toBeVisible();
+  await expect(owner.getByText('No jobs yet')).toBeVisible();
+
+  await owner.goto('/shop');
+  await owner.getByLabel('E-mail').fill(techEmail);
+  await owner.getByLabel('Role', { exact: true }).selectOption('technician');
+  await owner.getByRole('button', { name: 'Send invitation' }).click();
+  await expect(owner.getByText(`Invitation sent to ${techEmail}`)).toBeVisible();
+  await shot(owner, 'shop-members');
+  const invite = await waitForMail(techEmail, /Join Walkthrough Motors/);
+
+  const tech = await (await browser.newContext()).newPage();
+  await tech.goto('/sign-up');
+  await tech.getByLabel('Your name').fill('New Technician');
+  await tech.getByLabel('E-mail').fill(techEmail);
+  await tech.getByLabel('Password', { exact: true }).fill('another-long-pass');
+  await tech.getByLabel('Password again').fill('another-long-pass');
+  await tech.getByRole('button', { name: 'Create account' }).click();
+  const techVerify = await waitForMail(techEmail, /Confirm your e-mail/);
+  await tech.goto(local(techVerify.links[0]));
+  await tech.goto(local(invite.links[0]));
+  await tech.getByRole('button', { name: 'Accept the invitation' }).click();
+  await expect(tech.getByRole('heading', { name: 'Jobs' })).toBeVisible();
+  await expect(tech.getByText('technician', { exact: false }).first()).toBeVisible();
+
+  await tech.getByRole('link', { name: 'New job' }).click();
+  await tech.getByLabel('Repair-order number').fill('RO-7001');
+  await tech.getByLabel('Odometer').fill('123456');
+  await tech.getByLabel('Customer concern, in their words').fill('Shakes at idle and the light flashes.');
+  await tech.getByLabel('VIN').fill('1M8GDM9AXKP042788');
+  await tech.getByLabel('Year').fill('2012');
+  await tech.getByLabel('Make').fill('Test Make');
+  await tech.getByLabel('Model').fill('Test Model');
+  await tech.getByLabel('Engine profile').selectOption('i6');
+  await shot(tech, 'new-job');
+  await tech.getByRole('button', { name: 'Create job' }).click();
+  await expect(tech.getByRole('heading', { name: /RO-7001/ })).toBeVisible();
+  await shot(tech, 'job');
+  await tech.goto('/jobs');
+  await expect(tech.getByRole('link', { name: 'RO-7001' })).toBeVisible();
+  await shot(tech, 'jobs');
+});
+
+test('the new-job form names each wrong field in words, and nothing is saved', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByRole('button', { name: /technician/i }).click();
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('heading', { name: 'Jobs' })).toBeVisible();
+  await page.goto('/jobs/new');
+  await page.getByLabel('VIN').fill('1M8GDM9A1KP042788');
+  await page.getByLabel('Firing order').fill('1-3-4-4');
+  await page.getByRole('button', { name: 'Create job' }).click();
+  await expect(page.getByText('Enter the repair-order number.')).toBeVisible();
+  await expect(page.getByText('The check digit (9th character) should be X, not 1')).toBeVisible();
+  await expect(page.getByText('The firing order must list each cylinder 1 to 4 exactly once.')).toBeVisible();
+  await shot(page, 'new-job-errors');
+});
+
+test('sign-in gives one answer for a wrong password and an unknown user; demo accounts are offered', async ({ page }) => {
+  await page.goto('/sign-in');
+  await shot(page, 'sign-in');
+  await expect(page.getByText('Demo accounts')).toBeVisible();
+  for (const [email, password] of [
+    [DEMO.owner, 'wrong-password-123'],
+    ['nobody@example.com', DEMO_PASSWORD],
+  ]) {
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password').fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page.getByText('The e-mail address or password is wrong.')).toBeVisible();
+  }
+});
+
+test('an advisor reads jobs but is not offered, and cannot open, job creation', async ({ page }) => {
+  await page.goto('/sign-in');
+  await page.getByRole('button', { name: /advisor/i }).click();
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('link', { name: 'RO-24101' })).toBeVisible();
+  await expect(page.getByRole('link', { name: 'New job' })).toHaveCount(0);
+  await page.goto('/jobs/new');
+  await expect(page.getByText('can read jobs but not create them')).toBeVisible();
+  await page.goto('/jobs');
+  await page.evaluate(() => {
+    document.documentElement.dataset.theme = 'dark';
+  });
+  await shot(page, 'jobs-dark');
+});
+
+test('password reset through the e-mailed link', async ({ page }) => {
+  await page.goto('/forgot-password');
+  await page.getByLabel('E-mail').fill(DEMO.advisor);
+  await page.getByRole('button', { name: 'Send the reset link' }).click();
+  await expect(page.getByText('a reset link is on its way')).toBeVisible();
+  const mail = await waitForMail(DEMO.advisor, /Reset your Crankprint password/);
+  await page.goto(local(mail.links[0]));
+  await expect(page).toHaveURL(/reset-password\?token=/);
+  await page.getByLabel('New password', { exact: true }).fill(DEMO_PASSWORD);
+  await page.getByLabel('New password again').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Save the new password' }).click();
+  await expect(page.getByText('Your password is changed.')).toBeVisible();
+});
