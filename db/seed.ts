@@ -2,10 +2,15 @@
  * Demo data for an empty database: an invented shop with one user per role and a handful of vehicles and
  * jobs. Nothing here describes a real shop, person or vehicle.
  */
+import { createHash } from 'node:crypto';
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { gzipSync } from 'node:zlib';
 import { hashPassword } from 'better-auth/crypto';
 import { sql } from 'drizzle-orm';
+import { analyzeBytes } from '../signal';
 import type { Db } from './client';
-import { accounts, jobs, members, organizations, users, vehicles, type EngineSpec } from './schema';
+import { accounts, analyses, captureChunks, captures, jobs, members, organizations, users, vehicles, type EngineSpec } from './schema';
 import { vinCheckDigit } from './validators/vin';
 
 export const DEMO_PASSWORD = 'crank-demo-2026';
@@ -37,12 +42,24 @@ const DEMO_VEHICLES = [
 ];
 
 const DEMO_JOBS = [
-  { ro: 'RO-24101', vehicle: 0, odometer: 148_220, concern: 'Runs rough at idle, check-engine light flashing on cold start.', status: 'open' },
-  { ro: 'RO-24102', vehicle: 1, odometer: 201_450, concern: 'Lacks power climbing hills; white smoke after start-up.', status: 'open' },
-  { ro: 'RO-24103', vehicle: 2, odometer: 176_300, concern: 'Misfire on the rear bank under load.', status: 'waiting' },
-  { ro: 'RO-24104', vehicle: 3, odometer: 92_800, concern: 'Cranks long before it starts; uses oil between changes.', status: 'open' },
-  { ro: 'RO-24099', vehicle: 4, odometer: 61_020, concern: 'Ticking noise and a shake at idle after a timing belt job elsewhere.', status: 'done' },
+  { ro: 'RO-24101', vehicle: 0, odometer: 148_220, concern: 'Runs rough at idle, check-engine light flashing on cold start.', status: 'open', sample: 'i4-burnt-valve-current-sync.csv' },
+  { ro: 'RO-24102', vehicle: 1, odometer: 201_450, concern: 'Lacks power climbing hills; white smoke after start-up.', status: 'open', sample: 'i6-one-low-current.csv' },
+  { ro: 'RO-24103', vehicle: 2, odometer: 176_300, concern: 'Misfire on the rear bank under load.', status: 'waiting', sample: 'v6-odd-fire-current-sync.csv' },
+  { ro: 'RO-24104', vehicle: 3, odometer: 92_800, concern: 'Cranks long before it starts; uses oil between changes.', status: 'open', sample: 'v8-sync-current.csv' },
+  { ro: 'RO-24099', vehicle: 4, odometer: 61_020, concern: 'Ticking noise and a shake at idle after a timing belt job elsewhere.', status: 'done', sample: 'i4-healthy-current-sync.csv' },
 ];
+
+/** Default analysis settings for a vehicle's engine, as the workspace starts them. */
+function defaultSettings(e: EngineSpec) {
+  return {
+    engine: { cylinders: e.cylinders, firingOrder: e.firingOrder, intervalsDeg: e.intervalsDeg, layout: e.layout, numbering: e.numbering ?? 'along-crank' },
+    method: 'auto' as const,
+    lowLimitPercent: 90,
+    spreadLimitPercent: 10,
+    rotation: 0,
+    sensor: 'auto' as const,
+  };
+}
 
 /** Seeds the demo shop when the database has no shop yet. */
 export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
@@ -69,7 +86,9 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
     for (const j of DEMO_JOBS) {
       minutes += 95;
       const at = new Date(Date.now() - minutes * 60_000);
-      await tx.insert(jobs).values({
+      const [job] = await tx
+        .insert(jobs)
+        .values({
         shopId,
         vehicleId: vehicleIds[j.vehicle],
         repairOrder: j.ro,
@@ -80,7 +99,22 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
         createdBy: ids[1],
         createdAt: at,
         updatedAt: at,
-      });
+      })
+        .returning({ id: jobs.id });
+      // A capture from samples/ with a saved analysis, so the first screen shows real traces and charts.
+      const file = join(/*turbopackIgnore: true*/ process.cwd(), 'samples', j.sample);
+      if (!existsSync(file)) continue;
+      const bytes = new Uint8Array(readFileSync(file));
+      const sha256 = createHash('sha256').update(bytes).digest('hex');
+      const chunks: Uint8Array[] = [];
+      for (let o = 0; o < bytes.length; o += 1 << 20) chunks.push(gzipSync(bytes.subarray(o, o + (1 << 20))));
+      const captureId = crypto.randomUUID();
+      await tx.insert(captures).values({ id: captureId, shopId, jobId: job.id, fileName: j.sample, contentType: 'text/csv', sizeBytes: bytes.length, sha256, chunkCount: chunks.length, uploadedBy: ids[1], createdAt: at });
+      await tx.insert(captureChunks).values(chunks.map((data, seq) => ({ captureId, seq, data })));
+      const engine = DEMO_VEHICLES[j.vehicle].engine;
+      const settings = defaultSettings(engine);
+      const { result } = analyzeBytes(bytes, { ...settings, engine: { ...settings.engine } });
+      await tx.insert(analyses).values({ shopId, captureId, settings, engineVersion: result.engineVersion, fileSha256: sha256, result, verdict: result.verdict, crankingRpm: result.crankingRpm, createdBy: ids[1], createdAt: at });
     }
   });
   return true;

@@ -74,9 +74,9 @@ export async function resolveMembership(s: SessionContext): Promise<Membership> 
   return row;
 }
 
-async function readInput(req: NextRequest, params: Record<string, string>): Promise<unknown> {
+async function readInput(req: NextRequest, params: Record<string, string>, rawBody = false): Promise<unknown> {
   const query = Object.fromEntries(req.nextUrl.searchParams.entries());
-  if (req.method === 'GET' || req.method === 'DELETE' || req.method === 'HEAD') return { ...query, ...params };
+  if (rawBody || req.method === 'GET' || req.method === 'DELETE' || req.method === 'HEAD') return { ...query, ...params };
   const type = req.headers.get('content-type') ?? '';
   if (!type.includes('application/json')) {
     throw new HttpError(415, 'UNSUPPORTED_MEDIA_TYPE', 'Send the request body as JSON (Content-Type: application/json).');
@@ -92,8 +92,8 @@ async function readInput(req: NextRequest, params: Record<string, string>): Prom
 }
 
 /** Parses query, body and route params merged; a 400 naming each wrong field in a sentence. */
-async function parseInput<S extends z.ZodType>(schema: S, req: NextRequest, params: Record<string, string>): Promise<z.infer<S>> {
-  const parsed = schema.safeParse(await readInput(req, params));
+async function parseInput<S extends z.ZodType>(schema: S, req: NextRequest, params: Record<string, string>, rawBody = false): Promise<z.infer<S>> {
+  const parsed = schema.safeParse(await readInput(req, params, rawBody));
   if (parsed.success) return parsed.data;
   const fields = fieldErrors(parsed.error);
   throw new HttpError(400, 'INVALID_INPUT', `Check ${Object.keys(fields).length === 1 ? 'this field' : 'these fields'}: ${Object.values(fields).join(' ')}`, fields);
@@ -106,9 +106,10 @@ function describe(permission: Permission): string {
 
 /**
  * Wraps a route handler: `permission` is checked against the member's role, `schema` parses query, body and
- * route params merged. The handler's return value is sent as JSON (a Response is passed through).
+ * route params merged (with `rawBody`, query and params only: the handler streams the body itself). The
+ * handler's return value is sent as JSON (a Response is passed through).
  */
-export function withShop<S extends z.ZodType>(permission: Permission, schema: S, handler: Handler<z.infer<S>>) {
+export function withShop<S extends z.ZodType>(permission: Permission, schema: S, handler: Handler<z.infer<S>>, options: { rawBody?: boolean } = {}) {
   return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
     try {
       const session = await requireSession(req);
@@ -118,7 +119,7 @@ export function withShop<S extends z.ZodType>(permission: Permission, schema: S,
         throw new HttpError(403, 'FORBIDDEN', `Your role (${role}) cannot ${describe(permission)}; ask your shop owner.`);
       }
       const params = (await context.params) ?? {};
-      const input = await parseInput(schema, req, params);
+      const input = await parseInput(schema, req, params, options.rawBody);
       const out = await handler({
         ...session,
         shop: { id: m.shopId, name: m.shopName },

@@ -11,6 +11,7 @@ type Actor = 'anon' | 'owner' | 'technician' | 'advisor' | 'other';
 const ACTORS: Actor[] = ['anon', 'technician', 'advisor', 'other', 'owner'];
 
 interface Fixture {
+  captureId: string;
   jobId: string;
   vehicleId: string;
   advisorMemberId: string;
@@ -30,6 +31,13 @@ const job = (ro: string) => ({
   vehicle: { make: 'Test', model: 'Matrix', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } },
 });
 let seq = 0;
+const upload = (c: APIRequestContext, jobId: string) =>
+  c.post(`/api/jobs/${jobId}/captures`, {
+    headers: { 'content-type': 'text/csv', 'x-file-name': `matrix-${++seq}.csv` },
+    data: Buffer.from(`Time (s),Starter current [A]\n${Array.from({ length: 50 }, (_, i) => `${i / 1000},${(i * 7 + seq) % 97}`).join('\n')}\n`),
+  });
+const settings = { engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] } };
+const profile = { label: `Matrix profile ${seq}`, engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } };
 
 const ROWS: Row[] = [
   { file: 'auth/[...all]', method: 'GET', call: (c) => c.get('/api/auth/get-session'), expect: { anon: 200, owner: 200, technician: 200, advisor: 200, other: 200 } },
@@ -38,6 +46,14 @@ const ROWS: Row[] = [
   { file: 'jobs', method: 'POST', call: (c) => c.post('/api/jobs', { data: job(`RM-${++seq}`) }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 200 } },
   { file: 'jobs/[jobId]', method: 'GET', call: (c, f) => c.get(`/api/jobs/${f.jobId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'jobs/[jobId]', method: 'PATCH', call: (c, f) => c.patch(`/api/jobs/${f.jobId}`, { data: { status: 'open' } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
+  { file: 'jobs/[jobId]/captures', method: 'GET', call: (c, f) => c.get(`/api/jobs/${f.jobId}/captures`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'jobs/[jobId]/captures', method: 'POST', call: (c, f) => upload(c, f.jobId), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
+  { file: 'captures/[captureId]', method: 'GET', call: (c, f) => c.get(`/api/captures/${f.captureId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'captures/[captureId]/raw', method: 'GET', call: (c, f) => c.get(`/api/captures/${f.captureId}/raw`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'captures/[captureId]/analyses', method: 'GET', call: (c, f) => c.get(`/api/captures/${f.captureId}/analyses`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'captures/[captureId]/analyses', method: 'POST', call: (c, f) => c.post(`/api/captures/${f.captureId}/analyses`, { data: { settings } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
+  { file: 'profiles', method: 'GET', call: (c) => c.get('/api/profiles'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
+  { file: 'profiles', method: 'POST', call: (c) => c.post('/api/profiles', { data: profile }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },
   { file: 'vehicles', method: 'GET', call: (c) => c.get('/api/vehicles'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
   { file: 'vehicles', method: 'POST', call: (c) => c.post('/api/vehicles', { data: job('x').vehicle }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 200 } },
   { file: 'vehicles/[vehicleId]', method: 'GET', call: (c, f) => c.get(`/api/vehicles/${f.vehicleId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
@@ -88,7 +104,10 @@ test('role matrix: session → role → shop scope on every route', async () => 
   expect((await ctx.other.post('/api/shops', { data: { name: 'Another Shop' } })).status()).toBe(200);
   const jobs = (await (await ctx.owner.get('/api/jobs')).json()).jobs;
   const shop = await (await ctx.owner.get('/api/shop')).json();
+  const demoJob = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24101');
+  const demoCaptures = (await (await ctx.owner.get(`/api/jobs/${demoJob.id}/captures`)).json()).captures;
   const fixture: Fixture = {
+    captureId: demoCaptures[0].id,
     jobId: jobs[0].id,
     vehicleId: jobs[0].vehicle.id,
     advisorMemberId: shop.members.find((m: { email: string }) => m.email === DEMO.advisor).id,

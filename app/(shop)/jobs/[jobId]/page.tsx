@@ -2,7 +2,11 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { listAudit } from '@/db/queries/audit';
+import { latestAnalysesForJob, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
+import type { AnalysisResult } from '@/signal';
+import { CaptureUpload } from './_components/capture-upload';
+import { MiniBars } from './_components/mini-bars';
 import { pageMember } from '@/server/page-context';
 
 export const metadata: Metadata = { title: 'Job' };
@@ -14,7 +18,12 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
   const m = await pageMember(`/jobs/${jobId}`);
   const job = await getJob(m.shop.id, jobId);
   if (!job) notFound();
-  const activity = (await listAudit(m.shop.id, 200)).filter((a) => a.subjectId === job.id).slice(0, 20);
+  const [captures, latest, audit] = await Promise.all([listCaptures(m.shop.id, job.id), latestAnalysesForJob(m.shop.id, job.id), listAudit(m.shop.id, 300)]);
+  const captureIds = new Set(captures.map((c) => c.id));
+  const activity = audit
+    .filter((a) => a.subjectId === job.id || (a.detail as { jobId?: string } | null)?.jobId === job.id || (a.detail as { captureId?: string } | null)?.captureId && captureIds.has((a.detail as { captureId: string }).captureId))
+    .slice(0, 20);
+  const canUpload = m.can({ capture: ['upload'] });
   const v = job.vehicle;
   const e = v.engine;
   return (
@@ -56,11 +65,33 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           {job.concern}
         </p>
       </header>
-      <section aria-labelledby="captures" className="rounded-2xl border border-line bg-surface p-5">
+      <section aria-labelledby="captures" className="flex flex-col gap-3 rounded-2xl border border-line bg-surface p-5">
         <h2 id="captures" className="text-lg font-bold">
           Captures
         </h2>
-        <p className="text-muted">No capture on this job yet. Uploads arrive with the capture workflow.</p>
+        {captures.length === 0 && <p className="text-muted">{canUpload ? 'No capture yet: drop the exported CSV or TSV below.' : 'No capture on this job yet.'}</p>}
+        {captures.length > 0 && (
+          <ul className="grid gap-3 md:grid-cols-2" data-testid="capture-list">
+            {captures.map((c) => {
+              const a = latest.get(c.id);
+              const r = a?.result as AnalysisResult | undefined;
+              return (
+                <li key={c.id}>
+                  <Link href={`/jobs/${job.id}/captures/${c.id}`} className="flex min-h-touch items-center gap-4 rounded-xl border border-line p-3 hover:border-brand">
+                    {r ? <MiniBars cylinders={r.cylinders} label={`Last result: ${r.verdict}`} /> : <span className="text-sm text-muted">not saved yet</span>}
+                    <span className="flex-1">
+                      <span className="figures block font-bold">{c.fileName}</span>
+                      <span className="figures block text-sm text-muted">
+                        {(c.sizeBytes / 1024).toFixed(0)} KB · {c.createdAt.toLocaleString()} {r ? `· ${r.verdict}` : ''}
+                      </span>
+                    </span>
+                  </Link>
+                </li>
+              );
+            })}
+          </ul>
+        )}
+        {canUpload ? <CaptureUpload jobId={job.id} /> : <p className="text-sm text-muted">Your role can read captures but not upload them.</p>}
       </section>
       <section aria-labelledby="activity" className="rounded-2xl border border-line bg-surface p-5">
         <h2 id="activity" className="text-lg font-bold">

@@ -1,0 +1,56 @@
+/**
+ * Saving an analysis: the server re-runs the same engine on the stored raw file with the given settings and
+ * stores settings, engine version, file SHA-256 and results. Nothing is overwritten; each save adds one.
+ * A file the engine cannot read answers 422 with the engine's error code, line and column.
+ */
+import { z } from 'zod';
+import { recordAudit } from '@/db/queries/audit';
+import { getCapture, listAnalyses, readCaptureBytes, saveAnalysis } from '@/db/queries/captures';
+import { analysisSettingsSchema } from '@/db/validators/analysis';
+import { HttpError, notFound } from '@/server/http';
+import { runAnalysis } from '@/server/run-analysis';
+import { withShop } from '@/server/with-shop';
+import { isCaptureError } from '@/signal';
+
+export const GET = withShop({ analysis: ['read'] }, z.object({ captureId: z.string() }), async ({ input, shop }) => {
+  if (!(await getCapture(shop.id, input.captureId))) throw notFound('That capture');
+  return { analyses: await listAnalyses(shop.id, input.captureId) };
+});
+
+export const POST = withShop({ analysis: ['save'] }, z.object({ captureId: z.string(), settings: analysisSettingsSchema }), async ({ input, shop, user }) => {
+  const capture = await getCapture(shop.id, input.captureId);
+  const bytes = capture && (await readCaptureBytes(shop.id, capture.id));
+  if (!capture || !bytes) throw notFound('That capture');
+  let result;
+  try {
+    result = runAnalysis(bytes, input.settings);
+  } catch (e) {
+    if (isCaptureError(e)) {
+      return Response.json(
+        { error: { code: 'UNREADABLE_CAPTURE', message: e.message, engine: { code: e.code, line: e.line, column: e.column } } },
+        { status: 422 },
+      );
+    }
+    throw e;
+  }
+  if (result.verdict === 'uncertain' && result.fitQuality === 0) {
+    // The engine found nothing to measure: say so with its warning codes, and store nothing.
+    return Response.json(
+      { error: { code: 'NOTHING_TO_MEASURE', message: result.warnings.map((w) => w.message).join(' '), warnings: result.warnings }, result },
+      { status: 422 },
+    );
+  }
+  const analysis = await saveAnalysis(shop.id, {
+    captureId: capture.id,
+    settings: input.settings,
+    engineVersion: result.engineVersion,
+    fileSha256: capture.sha256,
+    result,
+    verdict: result.verdict,
+    crankingRpm: result.crankingRpm,
+    createdBy: user.id,
+  });
+  await recordAudit(shop.id, user.id, 'analysis.save', { type: 'analysis', id: analysis.id }, { captureId: capture.id, verdict: result.verdict });
+  if (!analysis) throw new HttpError(500, 'INTERNAL', 'The analysis was not stored; try again.');
+  return { analysis };
+});

@@ -1,0 +1,23 @@
+/** Engine profiles: the built-in library (TRADE.md firing orders) and the shop's own; owners add their own. */
+import { z } from 'zod';
+import { recordAudit } from '@/db/queries/audit';
+import { createProfile, listProfiles } from '@/db/queries/profiles';
+import { engineSchema } from '@/db/validators/vehicle';
+import { engineSpec } from '@/db/queries/vehicles';
+import { withShop } from '@/server/with-shop';
+import { ENGINE_PROFILES } from '@/signal/engine/profiles';
+
+export const GET = withShop({ profile: ['read'] }, z.object({}), async ({ shop }) => ({
+  builtIn: ENGINE_PROFILES.map((p) => ({ key: p.key, label: p.label, engine: { cylinders: p.cylinders, firingOrder: p.firingOrder, intervalsDeg: p.intervalsDeg, layout: p.layout ?? 'inline', numbering: p.numbering ?? 'along-crank' } })),
+  shop: await listProfiles(shop.id),
+}));
+
+export const POST = withShop(
+  { profile: ['create'] },
+  z.object({ label: z.string().trim().min(2, 'Name the profile, for example "Shop V8 bank-by-bank".').max(80), engine: engineSchema }),
+  async ({ input, shop, user }) => {
+    const profile = await createProfile(shop.id, input.label, engineSpec(input.engine));
+    await recordAudit(shop.id, user.id, 'profile.create', { type: 'profile', id: profile.id });
+    return { profile };
+  },
+);

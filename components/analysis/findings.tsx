@@ -1,0 +1,50 @@
+/** Where the eye lands after the chart: the verdict, the pattern hint with next tests, and the warnings. */
+import type { AnalysisResult } from '@/signal';
+import { STATUS_TEXT } from './status-style';
+
+const VERDICT: Record<string, string> = {
+  ok: 'No cylinder below the low limit.',
+  low: 'At least one cylinder is below the low limit.',
+  uncertain: 'Not enough good evidence to rank the cylinders.',
+};
+
+export function Findings({ result }: { result: AnalysisResult }) {
+  return (
+    <div className="flex flex-col gap-3">
+      <p className={`text-lg font-bold ${STATUS_TEXT[result.verdict]}`} data-testid="verdict">
+        {result.verdict === 'low' ? '▼ ' : result.verdict === 'uncertain' ? '? ' : '✓ '}
+        {VERDICT[result.verdict]}
+      </p>
+      <p>{result.pattern.hint}</p>
+      {result.pattern.nextTests.length > 0 && (
+        <div>
+          <h3 className="font-bold">Next tests</h3>
+          <ol className="list-decimal pl-6">
+            {result.pattern.nextTests.map((t) => (
+              <li key={t}>{t}</li>
+            ))}
+          </ol>
+        </div>
+      )}
+      {result.crossCheck && (
+        <p className={result.crossCheck.agree ? '' : 'font-bold text-low'}>
+          Cross-check with the {result.crossCheck.method === 'current' ? 'starter-current' : 'crank-speed'} method:{' '}
+          {result.crossCheck.agree ? 'the two methods agree' : 'the two methods disagree'} (largest difference <span className="figures">{result.crossCheck.maxDifference}</span> points).
+        </p>
+      )}
+      {result.warnings.length > 0 && (
+        <div>
+          <h3 className="font-bold">Warnings</h3>
+          <ul className="flex flex-col gap-2" data-testid="warnings">
+            {result.warnings.map((w, i) => (
+              <li key={i} className="rounded-lg border-l-4 border-uncertain bg-raised p-2">
+                <span className="figures mr-2 text-sm text-muted">{w.code}</span>
+                {w.message}
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+    </div>
+  );
+}

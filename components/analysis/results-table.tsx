@@ -1,0 +1,43 @@
+/** The figures beneath the chart: raw figure (A or rpm), the plain index, events used and rejected, spread. */
+import type { CylinderResult } from '@/signal';
+import { STATUS_TEXT } from './status-style';
+
+export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult[]; rawUnit: 'A' | 'rpm' }) {
+  return (
+    <div className="overflow-x-auto rounded-xl border border-line">
+      <table className="w-full text-right">
+        <caption className="sr-only">Per-cylinder figures</caption>
+        <thead className="bg-raised text-sm">
+          <tr>
+            <th scope="col" className="px-3 py-2 text-left">Cylinder</th>
+            <th scope="col" className="px-3 py-2">Relative compression</th>
+            <th scope="col" className="px-3 py-2 text-left">Status</th>
+            <th scope="col" className="px-3 py-2">{rawUnit === 'A' ? 'Current rise' : 'Speed dip'}</th>
+            <th scope="col" className="px-3 py-2">Plain index</th>
+            <th scope="col" className="px-3 py-2">Cycle spread</th>
+            <th scope="col" className="px-3 py-2">Events used</th>
+            <th scope="col" className="px-3 py-2">Rejected</th>
+          </tr>
+        </thead>
+        <tbody className="figures">
+          {cylinders.map((c) => (
+            <tr key={c.cylinder} className="border-t border-line" data-testid={`row-${c.cylinder}`}>
+              <th scope="row" className="px-3 py-2 text-left font-sans">
+                {c.cylinder}
+              </th>
+              <td className="px-3 py-2">{c.relativePercent.toFixed(1)} %</td>
+              <td className={`px-3 py-2 text-left font-sans font-bold ${STATUS_TEXT[c.status]}`}>{c.status}</td>
+              <td className="px-3 py-2">
+                {c.raw.toFixed(1)} {rawUnit}
+              </td>
+              <td className="px-3 py-2">{c.plainPercent.toFixed(1)} %</td>
+              <td className="px-3 py-2">± {c.spreadPercent.toFixed(1)}</td>
+              <td className="px-3 py-2">{c.events}</td>
+              <td className="px-3 py-2">{c.rejected}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,117 @@
+'use client';
+/** Engine setup, method and limits. Every change re-runs the analysis in the worker at once. */
+import { Field, Input, Select } from '@/components/ui/field';
+import type { AnalysisSettingsValues } from '@/db/validators/analysis';
+
+export interface ProfileOption {
+  key: string;
+  label: string;
+  engine: AnalysisSettingsValues['engine'];
+}
+
+export function SettingsPanel({
+  settings,
+  onChange,
+  profiles,
+  identityAssumed,
+}: {
+  settings: AnalysisSettingsValues;
+  onChange: (s: AnalysisSettingsValues) => void;
+  profiles: ProfileOption[];
+  identityAssumed: boolean;
+}) {
+  const e = settings.engine;
+  const set = (patch: Partial<AnalysisSettingsValues>) => onChange({ ...settings, ...patch });
+  const setEngine = (patch: Partial<AnalysisSettingsValues['engine']>) => set({ engine: { ...e, ...patch } });
+  const orderText = e.firingOrder.join('-');
+  return (
+    <form className="flex flex-col gap-1" onSubmit={(ev) => ev.preventDefault()} aria-label="Analysis settings">
+      <Field id="s-profile" label="Engine profile">
+        <Select
+          id="s-profile"
+          value=""
+          onChange={(ev) => {
+            const p = profiles.find((x) => x.key === ev.target.value);
+            if (p) set({ engine: p.engine, rotation: 0 });
+          }}
+        >
+          <option value="">Apply a profile…</option>
+          {profiles.map((p) => (
+            <option key={p.key} value={p.key}>
+              {p.label}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <div className="grid grid-cols-2 gap-x-3">
+        <Field id="s-cyl" label="Cylinders">
+          <Input id="s-cyl" className="figures" value={e.cylinders} readOnly aria-readonly="true" />
+        </Field>
+        <Field id="s-layout" label="Layout">
+          <Select id="s-layout" value={e.layout} onChange={(ev) => setEngine({ layout: ev.target.value as 'inline' })}>
+            <option value="inline">Inline</option>
+            <option value="v">V</option>
+            <option value="flat">Flat</option>
+          </Select>
+        </Field>
+      </div>
+      <Field id="s-order" label="Firing order" hint={e.intervalsDeg && new Set(e.intervalsDeg).size > 1 ? `Uneven firing: ${e.intervalsDeg.join('/')}°` : 'Even firing intervals'}>
+        <Input
+          id="s-order"
+          className="figures"
+          defaultValue={orderText}
+          key={orderText}
+          onBlur={(ev) => {
+            const order = ev.target.value.split(/[\s,-]+/).filter(Boolean).map(Number);
+            if (order.length === e.cylinders && [...order].sort((a, b) => a - b).every((c, i) => c === i + 1)) setEngine({ firingOrder: order });
+            else ev.target.value = orderText;
+          }}
+        />
+      </Field>
+      <Field id="s-method" label="Method">
+        <Select id="s-method" value={settings.method} onChange={(ev) => set({ method: ev.target.value as 'auto' })}>
+          <option value="auto">Automatic (from the channels)</option>
+          <option value="current">Starter current</option>
+          <option value="crank-speed">Crank speed</option>
+        </Select>
+      </Field>
+      <Field id="s-teeth" label="Tooth pattern" hint="Found from the gaps when left empty.">
+        <Select id="s-teeth" value={settings.teeth ?? ''} onChange={(ev) => set({ teeth: ev.target.value || undefined })}>
+          <option value="">Detect</option>
+          {['60-2', '36-1', '36-2', '24-1', '12-1', '4-1'].map((t) => (
+            <option key={t} value={t}>
+              {t}
+            </option>
+          ))}
+        </Select>
+      </Field>
+      <div className="grid grid-cols-2 gap-x-3">
+        <Field id="s-low" label="Low limit (%)">
+          <Input id="s-low" type="number" min={50} max={99} className="figures" value={settings.lowLimitPercent} onChange={(ev) => ev.target.value && set({ lowLimitPercent: Number(ev.target.value) })} />
+        </Field>
+        <Field id="s-spread" label="Spread limit (%)">
+          <Input id="s-spread" type="number" min={1} max={50} className="figures" value={settings.spreadLimitPercent} onChange={(ev) => ev.target.value && set({ spreadLimitPercent: Number(ev.target.value) })} />
+        </Field>
+      </div>
+      {identityAssumed && (
+        <div className="rounded-lg bg-raised p-3">
+          <p className="text-sm">Without sync the first event is taken as cylinder {e.firingOrder[0]}. Step the assignment along the firing order:</p>
+          <div className="mt-2 flex items-center gap-2">
+            <button type="button" className="min-h-touch min-w-touch rounded-lg border border-line font-bold" aria-label="Rotate assignment back" onClick={() => set({ rotation: settings.rotation - 1 })}>
+              ←
+            </button>
+            <span className="figures flex-1 text-center">step {settings.rotation}</span>
+            <button type="button" className="min-h-touch min-w-touch rounded-lg border border-line font-bold" aria-label="Rotate assignment on" onClick={() => set({ rotation: settings.rotation + 1 })}>
+              →
+            </button>
+          </div>
+        </div>
+      )}
+      {settings.window && (
+        <button type="button" className="mt-2 min-h-touch rounded-lg border border-line px-3 text-left font-bold" onClick={() => set({ window: undefined })}>
+          Cranking window set by hand (<span className="figures">{settings.window.startS.toFixed(2)}–{settings.window.endS.toFixed(2)} s</span>): reset to automatic
+        </button>
+      )}
+    </form>
+  );
+}

@@ -1,0 +1,71 @@
+'use client';
+/**
+ * The analysis worker for one capture: loads the raw file into the worker with progress, re-analyses when
+ * settings change, and asks for decimated views. The full-resolution columns never leave the worker.
+ */
+import * as Comlink from 'comlink';
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { AnalysisResult, AnalysisSettings, ImportOptions } from '@/signal';
+import type { ImportSummary, Stage, TraceChannel, TraceView, WorkerError } from '@/workers/analysis-api';
+import type { AnalysisWorker } from '@/workers/analysis.worker';
+
+export type LoadState =
+  | { phase: 'idle' }
+  | { phase: 'loading'; stage: Stage | 'downloading'; fraction: number }
+  | { phase: 'ready'; summary: ImportSummary }
+  | { phase: 'error'; error: WorkerError };
+
+export function useAnalysisWorker() {
+  const remote = useRef<Comlink.Remote<AnalysisWorker> | null>(null);
+  const worker = useRef<Worker | null>(null);
+  const [load, setLoad] = useState<LoadState>({ phase: 'idle' });
+
+  useEffect(() => {
+    const w = new Worker(new URL('../../workers/analysis.worker.ts', import.meta.url), { type: 'module' });
+    worker.current = w;
+    remote.current = Comlink.wrap<AnalysisWorker>(w);
+    return () => {
+      remote.current = null;
+      w.terminate();
+    };
+  }, []);
+
+  /** Downloads (when given a URL) and imports a capture into the worker. */
+  const open = useCallback(async (source: string | Blob, options: ImportOptions = {}) => {
+    const r = remote.current;
+    if (!r) return null;
+    let blob: Blob;
+    if (typeof source === 'string') {
+      setLoad({ phase: 'loading', stage: 'downloading', fraction: 0 });
+      const res = await fetch(source);
+      if (!res.ok) {
+        setLoad({ phase: 'error', error: { code: 'DOWNLOAD', message: `The capture could not be downloaded (${res.status}); reload the page.` } });
+        return null;
+      }
+      blob = await res.blob();
+    } else blob = source;
+    setLoad({ phase: 'loading', stage: 'parsing', fraction: 0 });
+    const out = await r.importCapture(blob, options, Comlink.proxy((stage: Stage, fraction: number) => setLoad({ phase: 'loading', stage, fraction })));
+    if (!out.ok) {
+      setLoad({ phase: 'error', error: out.error });
+      return null;
+    }
+    setLoad({ phase: 'ready', summary: out.value });
+    return out.value;
+  }, []);
+
+  const analyze = useCallback(async (settings: AnalysisSettings): Promise<{ ok: true; value: AnalysisResult } | { ok: false; error: WorkerError }> => {
+    const r = remote.current;
+    if (!r) return { ok: false, error: { code: 'NO_WORKER', message: 'The analysis worker is not running; reload the page.' } };
+    return r.analyze(settings);
+  }, []);
+
+  const decimate = useCallback(async (channel: TraceChannel, fromS: number, toS: number, columns: number): Promise<TraceView | null> => {
+    const r = remote.current;
+    return r ? r.decimate(channel, fromS, toS, columns) : null;
+  }, []);
+
+  const cancel = useCallback(() => remote.current?.cancel(), []);
+
+  return { load, open, analyze, decimate, cancel };
+}

@@ -1,0 +1,265 @@
+'use client';
+/**
+ * The analysis workspace: the worker parses the capture, the trace and the per-cylinder chart show the result,
+ * and every setting change re-runs the engine at once. Settings live in the URL, so a reload or a hand-over
+ * keeps them. Saving asks the server to re-run the same engine on the stored file.
+ */
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/field';
+import { api, ApiError } from '@/components/data/api';
+import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/db/validators/analysis';
+import { type AnalysisResult, type ChannelRole, parseToothPattern } from '@/signal';
+import type { WorkerError } from '@/workers/analysis-api';
+import { CautionsGate } from './cautions-dialog';
+import { CylinderBars } from './cylinder-bars';
+import { Findings } from './findings';
+import { MappingDialog } from './mapping-dialog';
+import { ResultsTable } from './results-table';
+import { type ProfileOption, SettingsPanel } from './settings-panel';
+import { type TraceData, type TraceHandle, TraceChart, type TraceSeries } from './trace-chart';
+import { useAnalysisWorker } from './use-analysis-worker';
+
+interface Props {
+  captureId: string;
+  rawUrl: string;
+  initialSettings: AnalysisSettingsValues;
+  profiles: ProfileOption[];
+  userId: string;
+  canSave: boolean;
+}
+
+const CHANNELS: { role: ChannelRole; channel: 'current' | 'crank' | 'rpm' | 'sync' | 'toothPeriod'; label: string; unit: string; token: string; right?: boolean }[] = [
+  { role: 'current', channel: 'current', label: 'Starter current', unit: 'A', token: 'brand' },
+  { role: 'crank', channel: 'crank', label: 'Crank sensor', unit: 'V', token: 'ink' },
+  { role: 'rpm', channel: 'rpm', label: 'Engine speed', unit: 'rpm', token: 'brand' },
+  { role: 'toothTimes', channel: 'toothPeriod', label: 'Tooth period', unit: 'ms', token: 'brand' },
+  { role: 'sync', channel: 'sync', label: 'Sync', unit: 'V', token: 'sync', right: true },
+];
+
+function settingsFromUrl(raw: string | null, fallback: AnalysisSettingsValues): AnalysisSettingsValues {
+  if (!raw) return fallback;
+  try {
+    const parsed = analysisSettingsSchema.safeParse(JSON.parse(raw));
+    return parsed.success ? parsed.data : fallback;
+  } catch {
+    return fallback;
+  }
+}
+
+export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId, canSave }: Props) {
+  const router = useRouter();
+  const path = usePathname();
+  const params = useSearchParams();
+  const qc = useQueryClient();
+  const settings = useMemo(() => settingsFromUrl(params.get('s'), initialSettings), [params, initialSettings]);
+  const setSettings = useCallback(
+    (s: AnalysisSettingsValues) => {
+      const next = new URLSearchParams(params);
+      next.set('s', JSON.stringify(s));
+      router.replace(`${path}?${next}`, { scroll: false });
+    },
+    [params, path, router],
+  );
+  const w = useAnalysisWorker();
+  const [result, setResult] = useState<AnalysisResult | null>(null);
+  const [error, setError] = useState<WorkerError | null>(null);
+  const [highlighted, setHighlighted] = useState<number | null>(null);
+  const [views, setViews] = useState(0);
+  const [askMapping, setAskMapping] = useState(false);
+  const trace = useRef<TraceHandle>(null);
+  const opened = useRef(false);
+
+  // Load the capture into the worker once.
+  useEffect(() => {
+    if (opened.current) return;
+    opened.current = true;
+    void w.open(rawUrl, { mapping: settings.mapping, sampleRateHz: settings.sampleRateHz }).then((summary) => {
+      if (summary && summary.confidence < 0.7 && !settings.mapping) setAskMapping(true);
+    });
+  }, [w, rawUrl, settings.mapping, settings.sampleRateHz]);
+
+  // Re-run the engine whenever the settings change.
+  const ready = w.load.phase === 'ready';
+  useEffect(() => {
+    if (!ready || askMapping) return;
+    let current = true;
+    void w
+      .analyze({
+        engine: settings.engine,
+        method: settings.method,
+        teeth: settings.teeth ? (parseToothPattern(settings.teeth) ?? undefined) : undefined,
+        lowLimitPercent: settings.lowLimitPercent,
+        spreadLimitPercent: settings.spreadLimitPercent,
+        window: settings.window,
+        rotation: settings.rotation,
+        sensor: settings.sensor,
+      })
+      .then((out) => {
+        if (!current) return;
+        if (out.ok) {
+          setResult(out.value);
+          setError(null);
+        } else setError(out.error);
+      });
+    return () => {
+      current = false;
+    };
+  }, [ready, askMapping, settings, w]);
+
+  const summary = w.load.phase === 'ready' ? w.load.summary : null;
+  const shown = useMemo(() => CHANNELS.filter((c) => summary?.channels.some((ch) => ch.role === c.role)), [summary]);
+  const fetchView = useCallback(
+    async (fromS: number, toS: number, columns: number): Promise<TraceData | null> => {
+      const parts = await Promise.all(shown.map((c) => w.decimate(c.channel, fromS, toS, columns)));
+      const first = parts.find(Boolean);
+      if (!first) return null;
+      const series: TraceSeries[] = [];
+      parts.forEach((p, i) => {
+        if (p && p.x.length === first.x.length) series.push({ label: shown[i].label, unit: shown[i].unit, token: shown[i].token, right: shown[i].right, min: p.min, max: p.max });
+      });
+      return { x: first.x, series };
+    },
+    [shown, w],
+  );
+
+  const save = useMutation({
+    mutationFn: () => api<{ analysis: { id: string; result: AnalysisResult } }>(`/api/captures/${captureId}/analyses`, { method: 'POST', json: { settings } }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: ['captures', captureId] }),
+  });
+
+  const events = result?.events ?? [];
+  const onKey = (e: React.KeyboardEvent) => {
+    if ((e.target as HTMLElement).closest('input, select, textarea')) return;
+    const t = trace.current;
+    if (!t) return;
+    if (e.key === '+' || e.key === '=') t.zoom(0.5);
+    else if (e.key === '-') t.zoom(2);
+    else if (e.key === '0') t.resetZoom();
+    else if (e.key === 'ArrowRight' || e.key === 'ArrowLeft') {
+      const used = events.filter((x) => x.used);
+      if (used.length === 0) return;
+      const idx = Math.max(0, Math.min(used.length - 1, (stepIndex.current += e.key === 'ArrowRight' ? 1 : -1)));
+      stepIndex.current = idx;
+      t.centreOn(used[idx].timeS);
+      setHighlighted(used[idx].cylinder);
+    } else if (e.key === 'r' && result?.identity === 'assumed') setSettings({ ...settings, rotation: settings.rotation + 1 });
+    else return;
+    e.preventDefault();
+  };
+  const stepIndex = useRef(-1);
+
+  const body = (
+    <div className="flex flex-col gap-4" onKeyDown={onKey} tabIndex={-1}>
+      {w.load.phase === 'loading' && (
+        <div role="status" aria-live="polite" className="rounded-xl border border-line bg-surface p-4">
+          <p className="font-bold">{w.load.stage === 'downloading' ? 'Fetching the capture…' : w.load.stage === 'parsing' ? 'Reading the numbers…' : 'Analysing…'}</p>
+          <progress className="mt-2 w-full" value={w.load.fraction} max={1} />
+        </div>
+      )}
+      {w.load.phase === 'error' && (
+        <Notice tone="error">
+          <span data-testid="capture-error">
+            {w.load.error.message}
+            {w.load.error.line ? ` (line ${w.load.error.line}${w.load.error.column ? `, column ${w.load.error.column}` : ''})` : ''}
+          </span>
+        </Notice>
+      )}
+      {askMapping && summary && (
+        <MappingDialog
+          summary={summary}
+          onApply={async (roles, sampleRateHz) => {
+            const s = await w.open(rawUrl, { mapping: roles, sampleRateHz });
+            if (s) {
+              setAskMapping(false);
+              setSettings({ ...settings, mapping: roles, sampleRateHz });
+            }
+          }}
+        />
+      )}
+      {error && <Notice tone="error">{error.message}</Notice>}
+      {summary && !askMapping && (
+        <div className="grid gap-4 xl:grid-cols-[1fr_20rem]">
+          <div className="flex min-w-0 flex-col gap-4">
+            <section aria-labelledby="trace-title" className="rounded-2xl border border-line bg-surface p-3">
+              <div className="flex flex-wrap items-center justify-between gap-2">
+                <h2 id="trace-title" className="font-bold">
+                  Trace
+                </h2>
+                <div className="flex gap-1">
+                  <Button variant="secondary" onClick={() => trace.current?.zoom(0.5)} aria-label="Zoom in">
+                    +
+                  </Button>
+                  <Button variant="secondary" onClick={() => trace.current?.zoom(2)} aria-label="Zoom out">
+                    −
+                  </Button>
+                  <Button variant="secondary" onClick={() => trace.current?.resetZoom()}>
+                    Whole capture
+                  </Button>
+                </div>
+              </div>
+              <p className="text-sm text-muted">
+                Drag across the trace to zoom; drag the edges of the shaded cranking window to move it. Keys: + − 0, ← → step through events
+                {result?.identity === 'assumed' ? ', R rotates the cylinders' : ''}.
+              </p>
+              <TraceChart
+                ref={trace}
+                range={[0, summary.durationS + 1e-9]}
+                fetchView={fetchView}
+                events={events}
+                window={result?.window.endS ? result.window : undefined}
+                onWindowChange={(win) => setSettings({ ...settings, window: win })}
+                highlighted={highlighted}
+                onView={() => setViews((v) => v + 1)}
+              />
+              <span className="sr-only" data-testid="views">
+                {views}
+              </span>
+            </section>
+            {result && (
+              <section aria-labelledby="chart-title" className="rounded-2xl border border-line bg-surface p-4" data-testid="cylinder-chart">
+                <div className="flex flex-wrap items-baseline justify-between gap-2">
+                  <h2 id="chart-title" className="text-lg font-bold">
+                    Relative compression
+                  </h2>
+                  <p className="figures text-sm">
+                    {result.method === 'current' ? 'starter current' : 'crank speed'} · {result.crankingRpm} rpm · spread {result.spreadPercent} points · cylinder numbers {result.identity === 'sync' ? 'from sync' : 'assumed'}
+                  </p>
+                </div>
+                <CylinderBars cylinders={result.cylinders} lowLimit={settings.lowLimitPercent} onHover={setHighlighted} highlighted={highlighted} />
+                <Findings result={result} />
+                <div className="mt-4">
+                  <ResultsTable cylinders={result.cylinders} rawUnit={result.rawUnit} />
+                </div>
+              </section>
+            )}
+          </div>
+          <aside aria-labelledby="setup-title" className="flex flex-col gap-3 rounded-2xl border border-line bg-surface p-4">
+            <h2 id="setup-title" className="text-lg font-bold">
+              Engine setup and limits
+            </h2>
+            <SettingsPanel settings={settings} onChange={setSettings} profiles={profiles} identityAssumed={result?.identity === 'assumed'} />
+            {canSave ? (
+              <div className="flex flex-col gap-2 border-t border-line pt-3">
+                <Button onClick={() => save.mutate()} disabled={!result || save.isPending}>
+                  {save.isPending ? 'Saving…' : 'Save this analysis'}
+                </Button>
+                {save.isSuccess && (
+                  <Notice tone="ok">
+                    <span data-testid="saved">Saved. The server re-ran the engine on the stored file.</span>
+                  </Notice>
+                )}
+                {save.isError && <Notice tone="error">{save.error instanceof ApiError ? save.error.message : 'Could not save; try again.'}</Notice>}
+              </div>
+            ) : (
+              <p className="border-t border-line pt-3 text-sm text-muted">Your role can read analyses but not save them.</p>
+            )}
+          </aside>
+        </div>
+      )}
+    </div>
+  );
+  return <CautionsGate userId={userId}>{body}</CautionsGate>;
+}

@@ -1,0 +1,114 @@
+/**
+ * Captures of one shop: raw bytes gzip-compressed in chunk rows, written in one transaction (a failed or
+ * cancelled upload leaves nothing), read back in order. Every function takes the shop id it is scoped to.
+ */
+import 'server-only';
+import { gunzipSync } from 'node:zlib';
+import { and, asc, desc, eq } from 'drizzle-orm';
+import { getDb } from '../client';
+import { analyses, captureChunks, captures, jobs } from '../schema';
+
+export interface NewCapture {
+  jobId: string;
+  fileName: string;
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  /** gzip-compressed pieces, in order. */
+  chunks: Uint8Array[];
+  uploadedBy: string;
+}
+
+export class DuplicateCaptureError extends Error {
+  readonly captureId: string;
+  constructor(captureId: string) {
+    super('This file was already uploaded to this job.');
+    this.captureId = captureId;
+  }
+}
+
+const captureColumns = {
+  id: captures.id,
+  jobId: captures.jobId,
+  fileName: captures.fileName,
+  contentType: captures.contentType,
+  sizeBytes: captures.sizeBytes,
+  sha256: captures.sha256,
+  createdAt: captures.createdAt,
+  uploadedBy: captures.uploadedBy,
+};
+
+/** Stores a capture; throws DuplicateCaptureError when the same file is already on the job. Null when the job is not the shop's. */
+export async function createCapture(shopId: string, c: NewCapture) {
+  const db = await getDb();
+  return db.transaction(async (tx) => {
+    const [job] = await tx.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, c.jobId)));
+    if (!job) return null;
+    const [dupe] = await tx.select({ id: captures.id }).from(captures).where(and(eq(captures.jobId, c.jobId), eq(captures.sha256, c.sha256)));
+    if (dupe) throw new DuplicateCaptureError(dupe.id);
+    const [row] = await tx
+      .insert(captures)
+      .values({ shopId, jobId: c.jobId, fileName: c.fileName, contentType: c.contentType, sizeBytes: c.sizeBytes, sha256: c.sha256, chunkCount: c.chunks.length, uploadedBy: c.uploadedBy })
+      .returning(captureColumns);
+    for (let seq = 0; seq < c.chunks.length; seq += 8) {
+      await tx.insert(captureChunks).values(c.chunks.slice(seq, seq + 8).map((data, k) => ({ captureId: row.id, seq: seq + k, data })));
+    }
+    await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, c.jobId));
+    return row;
+  });
+}
+
+export async function listCaptures(shopId: string, jobId: string) {
+  const db = await getDb();
+  return db.select(captureColumns).from(captures).where(and(eq(captures.shopId, shopId), eq(captures.jobId, jobId))).orderBy(desc(captures.createdAt));
+}
+
+export async function getCapture(shopId: string, captureId: string) {
+  const db = await getDb();
+  const [row] = await db.select(captureColumns).from(captures).where(and(eq(captures.shopId, shopId), eq(captures.id, captureId)));
+  return row ?? null;
+}
+
+/** The capture's raw bytes, decompressed, or null when it is not the shop's. */
+export async function readCaptureBytes(shopId: string, captureId: string): Promise<Uint8Array | null> {
+  const capture = await getCapture(shopId, captureId);
+  if (!capture) return null;
+  const db = await getDb();
+  const rows = await db.select({ data: captureChunks.data }).from(captureChunks).where(eq(captureChunks.captureId, captureId)).orderBy(asc(captureChunks.seq));
+  const parts = rows.map((r) => gunzipSync(r.data));
+  const out = new Uint8Array(capture.sizeBytes);
+  let o = 0;
+  for (const p of parts) {
+    out.set(p, o);
+    o += p.length;
+  }
+  return out;
+}
+
+export async function saveAnalysis(
+  shopId: string,
+  a: { captureId: string; settings: unknown; engineVersion: string; fileSha256: string; result: unknown; verdict: string; crankingRpm: number; createdBy: string },
+) {
+  const db = await getDb();
+  const [row] = await db.insert(analyses).values({ shopId, ...a }).returning();
+  return row;
+}
+
+export async function listAnalyses(shopId: string, captureId: string) {
+  const db = await getDb();
+  return db.select().from(analyses).where(and(eq(analyses.shopId, shopId), eq(analyses.captureId, captureId))).orderBy(desc(analyses.createdAt));
+}
+
+/** The newest analysis of each capture on a job, for thumbnails. */
+export async function latestAnalysesForJob(shopId: string, jobId: string) {
+  const db = await getDb();
+  const rows = await db
+    .select({ captureId: analyses.captureId, result: analyses.result, verdict: analyses.verdict, createdAt: analyses.createdAt })
+    .from(analyses)
+    .innerJoin(captures, eq(analyses.captureId, captures.id))
+    .where(and(eq(analyses.shopId, shopId), eq(captures.jobId, jobId)))
+    .orderBy(desc(analyses.createdAt));
+  const latest = new Map<string, (typeof rows)[number]>();
+  for (const r of rows) if (!latest.has(r.captureId)) latest.set(r.captureId, r);
+  return latest;
+}

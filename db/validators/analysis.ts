@@ -1,0 +1,36 @@
+/** Analysis settings as the workspace sends them and the server re-runs them. */
+import { z } from 'zod';
+
+export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'toothTimes', 'ignore'] as const;
+
+export const analysisSettingsSchema = z
+  .object({
+    engine: z.object({
+      cylinders: z.number().int().min(1, 'An engine has at least 1 cylinder.').max(16, 'Crankprint handles up to 16 cylinders.'),
+      firingOrder: z.array(z.number().int().min(1).max(16)),
+      intervalsDeg: z.array(z.number().positive()).optional(),
+      layout: z.enum(['inline', 'v', 'flat']).default('inline'),
+      numbering: z.enum(['along-crank', 'bank-by-bank']).default('along-crank'),
+    }),
+    method: z.enum(['auto', 'current', 'crank-speed']).default('auto'),
+    teeth: z
+      .string()
+      .regex(/^\d{1,3}-\d$/, 'Write the tooth pattern like 60-2.')
+      .optional(),
+    lowLimitPercent: z.number().gt(0, 'The low limit is a percentage above 0.').lt(100, 'The low limit is a percentage below 100.').default(90),
+    spreadLimitPercent: z.number().gt(0).lt(100).default(10),
+    window: z.object({ startS: z.number(), endS: z.number() }).refine((w) => w.endS > w.startS, 'The cranking window must end after it starts.').optional(),
+    rotation: z.number().int().min(-16).max(16).default(0),
+    sensor: z.enum(['auto', 'hall', 'vr']).default('auto'),
+    mapping: z.array(z.enum(CHANNEL_ROLES)).optional(),
+    sampleRateHz: z.number().positive().optional(),
+  })
+  .superRefine((s, ctx) => {
+    const sorted = [...s.engine.firingOrder].sort((a, b) => a - b);
+    if (sorted.length !== s.engine.cylinders || sorted.some((c, i) => c !== i + 1)) {
+      ctx.addIssue({ code: 'custom', path: ['engine', 'firingOrder'], message: `The firing order must list each cylinder 1 to ${s.engine.cylinders} exactly once.` });
+    }
+  });
+
+export type AnalysisSettingsInput = z.input<typeof analysisSettingsSchema>;
+export type AnalysisSettingsValues = z.output<typeof analysisSettingsSchema>;
