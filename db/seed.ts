@@ -5,12 +5,12 @@
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { gzipSync } from 'node:zlib';
 import { hashPassword } from 'better-auth/crypto';
 import { sql } from 'drizzle-orm';
 import { analyzeBytes } from '../signal';
+import { compressPiece, insertChunks } from './chunks';
 import type { Db } from './client';
-import { accounts, analyses, captureChunks, captures, jobs, members, organizations, users, vehicles, type EngineSpec } from './schema';
+import { accounts, analyses, captures, jobs, members, organizations, users, vehicles, type EngineSpec } from './schema';
 import { vinCheckDigit } from './validators/vin';
 
 export const DEMO_PASSWORD = 'crank-demo-2026';
@@ -107,10 +107,10 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
       const bytes = new Uint8Array(readFileSync(file));
       const sha256 = createHash('sha256').update(bytes).digest('hex');
       const chunks: Uint8Array[] = [];
-      for (let o = 0; o < bytes.length; o += 1 << 20) chunks.push(gzipSync(bytes.subarray(o, o + (1 << 20))));
+      for (let o = 0; o < bytes.length; o += 1 << 20) chunks.push(compressPiece(bytes.subarray(o, o + (1 << 20))));
       const captureId = crypto.randomUUID();
       await tx.insert(captures).values({ id: captureId, shopId, jobId: job.id, fileName: j.sample, contentType: 'text/csv', sizeBytes: bytes.length, sha256, chunkCount: chunks.length, uploadedBy: ids[1], createdAt: at });
-      await tx.insert(captureChunks).values(chunks.map((data, seq) => ({ captureId, seq, data })));
+      await insertChunks(tx, captureId, chunks);
       const engine = DEMO_VEHICLES[j.vehicle].engine;
       const settings = defaultSettings(engine);
       const { result } = analyzeBytes(bytes, { ...settings, engine: { ...settings.engine } });

@@ -20,6 +20,7 @@ import { MappingDialog } from './mapping-dialog';
 import { ResultsTable } from './results-table';
 import { type ProfileOption, SettingsPanel } from './settings-panel';
 import { type TraceData, type TraceHandle, TraceChart, type TraceSeries } from './trace-chart';
+import { localUpload } from './local-files';
 import { useAnalysisWorker } from './use-analysis-worker';
 
 interface Props {
@@ -76,10 +77,10 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   useEffect(() => {
     if (opened.current) return;
     opened.current = true;
-    void w.open(rawUrl, { mapping: settings.mapping, sampleRateHz: settings.sampleRateHz }).then((summary) => {
+    void w.open(localUpload(captureId) ?? rawUrl, { mapping: settings.mapping, sampleRateHz: settings.sampleRateHz }).then((summary) => {
       if (summary && summary.confidence < 0.7 && !settings.mapping) setAskMapping(true);
     });
-  }, [w, rawUrl, settings.mapping, settings.sampleRateHz]);
+  }, [w, rawUrl, captureId, settings.mapping, settings.sampleRateHz]);
 
   // Re-run the engine whenever the settings change.
   const ready = w.load.phase === 'ready';

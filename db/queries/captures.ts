@@ -3,10 +3,10 @@
  * cancelled upload leaves nothing), read back in order. Every function takes the shop id it is scoped to.
  */
 import 'server-only';
-import { gunzipSync } from 'node:zlib';
-import { and, asc, desc, eq } from 'drizzle-orm';
+import { and, desc, eq } from 'drizzle-orm';
+import { insertChunks, readChunks } from '../chunks';
 import { getDb } from '../client';
-import { analyses, captureChunks, captures, jobs } from '../schema';
+import { analyses, captures, jobs } from '../schema';
 
 export interface NewCapture {
   jobId: string;
@@ -14,7 +14,7 @@ export interface NewCapture {
   contentType: string;
   sizeBytes: number;
   sha256: string;
-  /** gzip-compressed pieces, in order. */
+  /** gzip-compressed pieces, in order (see db/chunks.ts). */
   chunks: Uint8Array[];
   uploadedBy: string;
 }
@@ -50,9 +50,7 @@ export async function createCapture(shopId: string, c: NewCapture) {
       .insert(captures)
       .values({ shopId, jobId: c.jobId, fileName: c.fileName, contentType: c.contentType, sizeBytes: c.sizeBytes, sha256: c.sha256, chunkCount: c.chunks.length, uploadedBy: c.uploadedBy })
       .returning(captureColumns);
-    for (let seq = 0; seq < c.chunks.length; seq += 8) {
-      await tx.insert(captureChunks).values(c.chunks.slice(seq, seq + 8).map((data, k) => ({ captureId: row.id, seq: seq + k, data })));
-    }
+    await insertChunks(tx, row.id, c.chunks);
     await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, c.jobId));
     return row;
   });
@@ -73,16 +71,7 @@ export async function getCapture(shopId: string, captureId: string) {
 export async function readCaptureBytes(shopId: string, captureId: string): Promise<Uint8Array | null> {
   const capture = await getCapture(shopId, captureId);
   if (!capture) return null;
-  const db = await getDb();
-  const rows = await db.select({ data: captureChunks.data }).from(captureChunks).where(eq(captureChunks.captureId, captureId)).orderBy(asc(captureChunks.seq));
-  const parts = rows.map((r) => gunzipSync(r.data));
-  const out = new Uint8Array(capture.sizeBytes);
-  let o = 0;
-  for (const p of parts) {
-    out.set(p, o);
-    o += p.length;
-  }
-  return out;
+  return readChunks(await getDb(), captureId, capture.sizeBytes);
 }
 
 export async function saveAnalysis(

@@ -8,6 +8,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { and, eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { compressPiece, insertChunks, readChunks } from '@/db/chunks';
 import { type Database, openDatabase } from '@/db/client';
 import { DataDirLockedError } from '@/db/lock';
 import { captureChunks, captures, jobs, members, organizations, users, vehicles } from '@/db/schema';
@@ -55,14 +56,11 @@ function suite(name: string, open: () => Promise<Database>) {
       const id = crypto.randomUUID();
       await d.db.transaction(async (tx) => {
         await tx.insert(captures).values({ id, shopId: j.shopId, jobId: j.id, fileName: 'a.csv', contentType: 'text/csv', sizeBytes: 5000, sha256: 'x', chunkCount: 2, uploadedBy: u.id });
-        await tx.insert(captureChunks).values([
-          { captureId: id, seq: 0, data: bytes.subarray(0, 2500) },
-          { captureId: id, seq: 1, data: bytes.subarray(2500) },
-        ]);
+        await insertChunks(tx, id, [compressPiece(bytes.subarray(0, 2500)), compressPiece(bytes.subarray(2500))]);
       });
-      const chunks = await d.db.select().from(captureChunks).where(eq(captureChunks.captureId, id)).orderBy(captureChunks.seq);
-      const joined = new Uint8Array(Buffer.concat(chunks.map((c) => Buffer.from(c.data))));
-      expect(joined).toEqual(bytes);
+      expect(await readChunks(d.db, id, bytes.length)).toEqual(bytes);
+      const stored = await d.db.select().from(captureChunks).where(eq(captureChunks.captureId, id));
+      expect(stored).toHaveLength(2);
       const failedId = crypto.randomUUID();
       await expect(
         d.db.transaction(async (tx) => {

@@ -7,6 +7,7 @@ import '@uppy/core/css/style.min.css';
 import '@uppy/dashboard/css/style.min.css';
 import { useRouter } from 'next/navigation';
 import { useEffect, useState } from 'react';
+import { rememberUpload } from '@/components/analysis/local-files';
 
 export function CaptureUpload({ jobId }: { jobId: string }) {
   const router = useRouter();
@@ -27,7 +28,11 @@ export function CaptureUpload({ jobId }: { jobId: string }) {
   );
 
   useEffect(() => {
-    const onSuccess = () => router.refresh();
+    const onSuccess = (file: { data?: unknown } | undefined, response: { body?: unknown }) => {
+      const id = (response.body as { capture?: { id: string } } | undefined)?.capture?.id;
+      if (id && file?.data instanceof Blob) rememberUpload(id, file.data);
+      router.refresh();
+    };
     // The server's sentence is in the response body; the network error is the fallback.
     const onError = (file: { name?: string } | undefined, error: { message: string }, response?: unknown) => {
       let text = error.message;

@@ -4,8 +4,8 @@
  * file twice on a job is a 409 naming the capture already there.
  */
 import { createHash } from 'node:crypto';
-import { gzipSync } from 'node:zlib';
 import { z } from 'zod';
+import { CHUNK_BYTES as CHUNK, compressPiece } from '@/db/chunks';
 import { recordAudit } from '@/db/queries/audit';
 import { createCapture, DuplicateCaptureError, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
@@ -14,7 +14,6 @@ import { withShop } from '@/server/with-shop';
 import { isCaptureError } from '@/signal';
 import { CaptureImporter, MAX_CAPTURE_BYTES } from '@/signal/import/import-capture';
 
-const CHUNK = 1 << 20;
 const TEXT_TYPES = /^(text\/(csv|plain|tab-separated-values)|application\/(csv|vnd\.ms-excel|octet-stream))\b/i;
 
 export const GET = withShop({ capture: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop }) => {
@@ -67,7 +66,7 @@ export const POST = withShop(
         firstPiece = piece;
       }
       hash.update(piece);
-      chunks.push(gzipSync(piece, { level: 6 }));
+      chunks.push(compressPiece(piece));
       pending = [];
       pendingBytes = 0;
     };
