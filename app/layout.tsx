@@ -14,8 +14,8 @@ const text = localFont({
 
 const figures = localFont({
   src: [
-    { path: './fonts/ibm-plex-mono-latin-400-normal.woff2', weight: '400' },
-    { path: './fonts/ibm-plex-mono-latin-500-normal.woff2', weight: '500' },
+    { path: './fonts/atkinson-hyperlegible-mono-latin-400-normal.woff2', weight: '400' },
+    { path: './fonts/atkinson-hyperlegible-mono-latin-500-normal.woff2', weight: '500' },
   ],
   variable: '--font-figures',
   display: 'swap',

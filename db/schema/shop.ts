@@ -167,3 +167,42 @@ export type Capture = typeof captures.$inferSelect;
 export type Analysis = typeof analyses.$inferSelect;
 export type Report = typeof reports.$inferSelect;
 export type AuditEvent = typeof auditEvents.$inferSelect;
+
+/** A read-only customer link to one report: the token is stored hashed, expires and can be revoked. */
+export const shareLinks = pgTable(
+  'share_links',
+  {
+    id: id(),
+    shopId: shopId(),
+    reportId: text()
+      .notNull()
+      .references(() => reports.id, { onDelete: 'cascade' }),
+    tokenHash: text().notNull().unique(),
+    expiresAt: timestamp({ withTimezone: true }).notNull(),
+    revokedAt: timestamp({ withTimezone: true }),
+    createdBy: text().references(() => users.id, { onDelete: 'set null' }),
+    createdAt: created(),
+  },
+  (t) => [index().on(t.shopId, t.reportId)],
+);
+
+/** The customer's answer to the recommended next step, against the revision they saw. */
+export const approvals = pgTable(
+  'approvals',
+  {
+    id: id(),
+    shopId: shopId(),
+    reportId: text()
+      .notNull()
+      .references(() => reports.id, { onDelete: 'cascade' }),
+    revision: integer().notNull(),
+    shareLinkId: text().references(() => shareLinks.id, { onDelete: 'set null' }),
+    decision: text().notNull(),
+    typedName: text().notNull(),
+    createdAt: created(),
+  },
+  (t) => [index().on(t.shopId, t.reportId)],
+);
+
+export type ShareLink = typeof shareLinks.$inferSelect;
+export type Approval = typeof approvals.$inferSelect;

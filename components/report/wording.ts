@@ -1,0 +1,24 @@
+/** Interpretation wording drawn from a result's verdict and pattern: a starting point the technician edits. */
+import type { AnalysisResult } from '@/signal';
+
+export function interpretationFor(r: AnalysisResult): string {
+  const method = r.method === 'current' ? 'starter-current' : 'crank-speed';
+  const low = r.cylinders.filter((c) => c.status === 'low');
+  const identity = r.identity === 'sync' ? 'Cylinder numbers come from the cylinder 1 sync signal.' : 'Cylinder numbers were assumed from the firing order (no sync signal); confirm them before acting on a cylinder number.';
+  if (r.verdict === 'uncertain') {
+    return `A relative compression test by the ${method} method could not rank the cylinders: ${r.warnings.map((w) => w.message).join(' ')} The test should be repeated before conclusions are drawn.`;
+  }
+  if (low.length === 0) {
+    return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found every cylinder within the ${r.settings.lowLimitPercent} % low limit (spread ${r.spreadPercent} points). ${r.pattern.hint} ${identity}`;
+  }
+  const list = low.map((c) => `cylinder ${c.cylinder} at ${c.relativePercent.toFixed(0)} %`).join(', ');
+  return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found ${list} of the healthy cylinders, below the ${r.settings.lowLimitPercent} % low limit. ${r.pattern.hint} ${identity} A relative test does not give pressure in psi or kPa; confirm with a gauge compression test before any teardown.`;
+}
+
+export function nextStepsFor(r: AnalysisResult): string[] {
+  return r.pattern.nextTests.length ? [...r.pattern.nextTests] : [];
+}
+
+/** The limits of a relative test, printed in every report. */
+export const TEST_LIMITS =
+  'This is a relative test: it ranks each cylinder against the healthy ones and cannot see wear that is equal on every cylinder. Figures are estimates from a physical model of the cranking engine; they are not gauge pressures.';

@@ -1,0 +1,171 @@
+/**
+ * Reports on a job: revisions (a signed revision is frozen; editing makes the next one), share links (tokens
+ * stored hashed) and the customer's decisions. Every function takes the shop id, except the one that resolves a
+ * share token, which the token itself scopes.
+ */
+import 'server-only';
+import { createHash, randomBytes } from 'node:crypto';
+import { and, desc, eq, gt, inArray, isNull } from 'drizzle-orm';
+import { getDb } from '../client';
+import { analyses, approvals, captures, jobs, organizations, reports, shareLinks, users, vehicles } from '../schema';
+import type { ReportContent } from '../validators/report';
+
+export class ReportStateError extends Error {}
+
+export function hashToken(token: string): string {
+  return createHash('sha256').update(token).digest('hex');
+}
+
+export async function listRevisions(shopId: string, jobId: string) {
+  const db = await getDb();
+  return db.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.jobId, jobId))).orderBy(desc(reports.revision));
+}
+
+export async function getReport(shopId: string, reportId: string) {
+  const db = await getDb();
+  const [r] = await db.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.id, reportId)));
+  return r ?? null;
+}
+
+/** Analyses the report may include: those of captures on jobs of the same vehicle (before/after). */
+async function allowedAnalyses(shopId: string, jobId: string, ids: string[]) {
+  if (ids.length === 0) return [];
+  const db = await getDb();
+  const [job] = await db.select({ vehicleId: jobs.vehicleId }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+  if (!job) return [];
+  return db
+    .select({ id: analyses.id })
+    .from(analyses)
+    .innerJoin(captures, eq(analyses.captureId, captures.id))
+    .innerJoin(jobs, eq(captures.jobId, jobs.id))
+    .where(and(eq(analyses.shopId, shopId), eq(jobs.vehicleId, job.vehicleId), inArray(analyses.id, ids)));
+}
+
+/** Saves the draft: updates the open draft, or starts the next revision after a signed one. */
+export async function saveDraft(shopId: string, jobId: string, content: ReportContent) {
+  const allowed = new Set((await allowedAnalyses(shopId, jobId, content.analysisIds)).map((a) => a.id));
+  const clean = { ...content, analysisIds: content.analysisIds.filter((id) => allowed.has(id)) };
+  const db = await getDb();
+  return db.transaction(async (tx) => {
+    const [latest] = await tx.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.jobId, jobId))).orderBy(desc(reports.revision)).limit(1);
+    if (latest && latest.status === 'draft') {
+      const [r] = await tx.update(reports).set({ content: clean }).where(eq(reports.id, latest.id)).returning();
+      return r;
+    }
+    const [r] = await tx
+      .insert(reports)
+      .values({ shopId, jobId, revision: (latest?.revision ?? 0) + 1, status: 'draft', content: clean })
+      .returning();
+    return r;
+  });
+}
+
+/** Signs a draft that includes at least one saved analysis; the revision is frozen from then on. */
+export async function signReport(shopId: string, reportId: string, userId: string) {
+  const db = await getDb();
+  const r = await getReport(shopId, reportId);
+  if (!r) return null;
+  if (r.status !== 'draft') throw new ReportStateError('This revision is already signed; edit the report to start a new revision.');
+  const content = r.content as ReportContent;
+  if (content.analysisIds.length === 0) throw new ReportStateError('A report needs at least one saved analysis before it can be signed; include one.');
+  const [signed] = await db
+    .update(reports)
+    .set({ status: 'signed', signedBy: userId, signedAt: new Date() })
+    .where(and(eq(reports.id, r.id), eq(reports.status, 'draft')))
+    .returning();
+  return signed;
+}
+
+/** Everything the PDF and the customer view show for one revision. */
+export async function reportBundle(shopId: string, reportId: string) {
+  const db = await getDb();
+  const report = await getReport(shopId, reportId);
+  if (!report) return null;
+  const [row] = await db
+    .select({ shop: organizations, job: jobs, vehicle: vehicles })
+    .from(jobs)
+    .innerJoin(vehicles, eq(jobs.vehicleId, vehicles.id))
+    .innerJoin(organizations, eq(jobs.shopId, organizations.id))
+    .where(and(eq(jobs.shopId, shopId), eq(jobs.id, report.jobId)));
+  const content = report.content as ReportContent;
+  const included = content.analysisIds.length
+    ? await db
+        .select({ analysis: analyses, capture: captures, jobRepairOrder: jobs.repairOrder })
+        .from(analyses)
+        .innerJoin(captures, eq(analyses.captureId, captures.id))
+        .innerJoin(jobs, eq(captures.jobId, jobs.id))
+        .where(and(eq(analyses.shopId, shopId), inArray(analyses.id, content.analysisIds)))
+    : [];
+  const ordered = content.analysisIds.map((id) => included.find((i) => i.analysis.id === id)).filter((x): x is (typeof included)[number] => !!x);
+  const [signer] = report.signedBy ? await db.select({ name: users.name }).from(users).where(eq(users.id, report.signedBy)) : [];
+  return { report, content, shop: row.shop, job: row.job, vehicle: row.vehicle, analyses: ordered, signerName: signer?.name ?? null };
+}
+
+export type ReportBundle = NonNullable<Awaited<ReturnType<typeof reportBundle>>>;
+
+/** A new share link: 256 random bits, only the hash stored. Returns the token once. */
+export async function createShareLink(shopId: string, reportId: string, userId: string, days = 14) {
+  const token = randomBytes(32).toString('base64url');
+  const db = await getDb();
+  const [link] = await db
+    .insert(shareLinks)
+    .values({ shopId, reportId, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + days * 86_400_000), createdBy: userId })
+    .returning();
+  return { token, link };
+}
+
+export async function listShareLinks(shopId: string, reportId: string) {
+  const db = await getDb();
+  return db
+    .select({ id: shareLinks.id, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt, createdAt: shareLinks.createdAt })
+    .from(shareLinks)
+    .where(and(eq(shareLinks.shopId, shopId), eq(shareLinks.reportId, reportId)))
+    .orderBy(desc(shareLinks.createdAt));
+}
+
+export async function revokeShareLink(shopId: string, linkId: string) {
+  const db = await getDb();
+  const [l] = await db.update(shareLinks).set({ revokedAt: new Date() }).where(and(eq(shareLinks.shopId, shopId), eq(shareLinks.id, linkId))).returning();
+  return l ?? null;
+}
+
+/** The live link for a token (not expired, not revoked), or null; the caller answers 404 either way. */
+export async function findShareLink(token: string) {
+  if (!/^[A-Za-z0-9_-]{40,64}$/.test(token)) return null;
+  const db = await getDb();
+  const [l] = await db
+    .select()
+    .from(shareLinks)
+    .where(and(eq(shareLinks.tokenHash, hashToken(token)), isNull(shareLinks.revokedAt), gt(shareLinks.expiresAt, new Date())));
+  return l ?? null;
+}
+
+export async function recordApproval(link: { id: string; shopId: string; reportId: string }, revision: number, decision: 'approve' | 'decline', typedName: string) {
+  const db = await getDb();
+  const [a] = await db.insert(approvals).values({ shopId: link.shopId, reportId: link.reportId, revision, shareLinkId: link.id, decision, typedName }).returning();
+  return a;
+}
+
+export async function listApprovalsForJob(shopId: string, jobId: string) {
+  const db = await getDb();
+  return db
+    .select({ id: approvals.id, decision: approvals.decision, typedName: approvals.typedName, revision: approvals.revision, createdAt: approvals.createdAt })
+    .from(approvals)
+    .innerJoin(reports, eq(approvals.reportId, reports.id))
+    .where(and(eq(approvals.shopId, shopId), eq(reports.jobId, jobId)))
+    .orderBy(desc(approvals.createdAt));
+}
+
+/** Saved analyses the report can include: every capture on jobs of this job's vehicle, newest first. */
+export async function candidateAnalyses(shopId: string, jobId: string) {
+  const db = await getDb();
+  const [job] = await db.select({ vehicleId: jobs.vehicleId }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+  if (!job) return [];
+  return db
+    .select({ id: analyses.id, createdAt: analyses.createdAt, verdict: analyses.verdict, crankingRpm: analyses.crankingRpm, result: analyses.result, fileName: captures.fileName, repairOrder: jobs.repairOrder, jobId: jobs.id })
+    .from(analyses)
+    .innerJoin(captures, eq(analyses.captureId, captures.id))
+    .innerJoin(jobs, eq(captures.jobId, jobs.id))
+    .where(and(eq(analyses.shopId, shopId), eq(jobs.vehicleId, job.vehicleId)))
+    .orderBy(desc(analyses.createdAt));
+}

@@ -1,0 +1,325 @@
+/**
+ * The report as a PDF (React PDF): shop header, job and vehicle, concern, conditions, the per-cylinder chart
+ * and a trace excerpt drawn as vectors, figures, verdict, interpretation, next steps, cautions and limits,
+ * engine version and SHA-256, page numbers. Built from plain data so it renders without a database.
+ */
+import { Document, G, Line, Page, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
+import type { AnalysisResult } from '@/signal';
+
+export interface PdfTrace {
+  t: number[];
+  v: number[];
+  unit: string;
+  label: string;
+  events: { timeS: number; cylinder: number }[];
+}
+
+export interface PdfAnalysis {
+  label: string;
+  result: AnalysisResult;
+  fileSha256: string;
+  trace?: PdfTrace;
+}
+
+export interface ReportPdfData {
+  shopName: string;
+  title: string;
+  repairOrder: string;
+  revision: number;
+  status: 'draft' | 'signed';
+  signedBy?: string | null;
+  signedAt?: string | null;
+  generatedAt: string;
+  vehicle: { description: string; vin: string; engine: string; odometer: string };
+  concern: string;
+  conditions: [string, string][];
+  interpretation: string;
+  nextSteps: string[];
+  analyses: PdfAnalysis[];
+  cautions: readonly string[];
+  limits: string;
+}
+
+const C = { ink: '#1B2430', muted: '#545C68', line: '#CDC7BC', brand: '#A64822', ok: '#166E60', low: '#B0261E', uncertain: '#606876', limit: '#6842A8', event: '#2656A0', raised: '#EEEAE2' };
+
+const s = StyleSheet.create({
+  page: { fontFamily: 'Atkinson', fontSize: 9.5, color: C.ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40 },
+  // Line height sits on the body, not the page: inherited from the page it hides render-prop text (react-pdf 4.9).
+  body: { lineHeight: 1.35 },
+  header: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'flex-end', borderBottomWidth: 2, borderBottomColor: C.brand, paddingBottom: 6, marginBottom: 10 },
+  shop: { fontSize: 15, fontWeight: 700 },
+  h1: { fontSize: 12.5, fontWeight: 700, color: C.brand },
+  h2: { fontSize: 11, fontWeight: 700, marginTop: 10, marginBottom: 4 },
+  mono: { fontFamily: 'AtkinsonMono', fontSize: 8.5 },
+  row: { flexDirection: 'row' },
+  cellLabel: { width: 130, color: C.muted },
+  table: { borderWidth: 1, borderColor: C.line, marginTop: 4 },
+  th: { flexDirection: 'row', backgroundColor: C.raised, fontWeight: 700, fontSize: 8.5 },
+  tr: { flexDirection: 'row', borderTopWidth: 1, borderTopColor: C.line, fontSize: 8.5 },
+  td: { paddingVertical: 2.5, paddingHorizontal: 4 },
+  footerLeft: { position: 'absolute', bottom: 20, left: 40, fontSize: 7.5, color: C.muted },
+  footerRight: { position: 'absolute', bottom: 20, right: 40, fontSize: 7.5, color: C.muted },
+  small: { fontSize: 8, color: C.muted },
+  verdict: { fontSize: 11, fontWeight: 700 },
+});
+
+const STATUS_COLOR = { ok: C.ok, low: C.low, uncertain: C.uncertain } as const;
+const STATUS_WORD = { ok: 'ok', low: 'LOW', uncertain: 'uncertain' } as const;
+
+/** Bars in percent with the low-limit line; low is hatched, uncertain dotted, ok solid; a word under each. */
+function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?: number; height?: number }) {
+  const padL = 26;
+  const padB = 30;
+  const plotW = width - padL - 6;
+  const plotH = height - padB - 8;
+  const n = r.cylinders.length;
+  const slot = plotW / n;
+  const bw = Math.min(26, slot * 0.6);
+  const y = (p: number) => 8 + plotH * (1 - Math.min(110, Math.max(0, p)) / 110);
+  const limit = r.settings.lowLimitPercent;
+  return (
+    <Svg width={width} height={height}>
+      {[0, 50, 100].map((v) => (
+        <G key={v}>
+          <Line x1={padL} x2={width - 6} y1={y(v)} y2={y(v)} stroke={C.line} strokeWidth={0.5} />
+          <Text x={padL - 3} y={y(v) + 2.5} style={{ fontSize: 6.5, fontFamily: 'AtkinsonMono' }} fill={C.muted} textAnchor="end">
+            {`${v}%`}
+          </Text>
+        </G>
+      ))}
+      {r.cylinders.map((c, i) => {
+        const x = padL + slot * i + (slot - bw) / 2;
+        const top = y(c.relativePercent);
+        const h = Math.max(0, y(0) - top);
+        const color = STATUS_COLOR[c.status];
+        const hatch: number[] = [];
+        if (c.status === 'low') for (let k = -h; k < bw; k += 4) hatch.push(k);
+        return (
+          <G key={c.cylinder}>
+            <Rect x={x} y={top} width={bw} height={h} fill={c.status === 'ok' ? color : '#FFFFFF'} stroke={color} strokeWidth={1} />
+            {hatch.map((k) => {
+              const x1 = x + Math.max(0, k);
+              const y1 = top + h - Math.max(0, -k);
+              const len = Math.min(bw - Math.max(0, k), h - Math.max(0, -k));
+              return <Line key={k} x1={x1} y1={y1} x2={x1 + len} y2={y1 - len} stroke={color} strokeWidth={1.2} />;
+            })}
+            {c.status === 'uncertain' &&
+              Array.from({ length: Math.floor(h / 5) }, (_, k) => <Rect key={k} x={x + bw / 2 - 1} y={top + 3 + k * 5} width={2} height={2} fill={color} />)}
+            <Text x={x + bw / 2} y={top - 2.5} style={{ fontSize: 7, fontFamily: 'AtkinsonMono' }} fill={C.ink} textAnchor="middle">
+              {c.relativePercent.toFixed(0)}
+            </Text>
+            <Text x={x + bw / 2} y={height - padB + 11} style={{ fontSize: 7.5, fontWeight: 700 }} fill={C.ink} textAnchor="middle">
+              {`Cyl ${c.cylinder}`}
+            </Text>
+            <Text x={x + bw / 2} y={height - padB + 21} style={{ fontSize: 7, fontWeight: 700 }} fill={color} textAnchor="middle">
+              {STATUS_WORD[c.status]}
+            </Text>
+          </G>
+        );
+      })}
+      <Line x1={padL} x2={width - 6} y1={y(limit)} y2={y(limit)} stroke={C.limit} strokeWidth={1.2} strokeDasharray="4 2" />
+      <Text x={padL + 2} y={y(limit) - 2} style={{ fontSize: 6.5 }} fill={C.limit}>
+        {`low limit ${limit}%`}
+      </Text>
+    </Svg>
+  );
+}
+
+function TraceSvg({ trace, width = 515, height = 110 }: { trace: PdfTrace; width?: number; height?: number }) {
+  const t0 = trace.t[0];
+  const t1 = trace.t[trace.t.length - 1];
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const v of trace.v) {
+    lo = Math.min(lo, v);
+    hi = Math.max(hi, v);
+  }
+  const pad = (hi - lo) * 0.08 || 1;
+  const X = (t: number) => 30 + ((t - t0) / (t1 - t0 || 1)) * (width - 36);
+  const Y = (v: number) => 12 + (height - 26) * (1 - (v - lo + pad) / (hi - lo + 2 * pad));
+  const points = trace.t.map((t, i) => `${X(t).toFixed(1)},${Y(trace.v[i]).toFixed(1)}`).join(' ');
+  return (
+    <Svg width={width} height={height}>
+      <Rect x={30} y={12} width={width - 36} height={height - 26} fill="#FFFFFF" stroke={C.line} strokeWidth={0.5} />
+      {trace.events
+        .filter((e) => e.timeS >= t0 && e.timeS <= t1)
+        .map((e, i) => (
+          <G key={i}>
+            <Line x1={X(e.timeS)} x2={X(e.timeS)} y1={12} y2={height - 14} stroke={C.event} strokeWidth={0.6} />
+            <Text x={X(e.timeS)} y={9} style={{ fontSize: 6.5, fontFamily: 'AtkinsonMono' }} fill={C.event} textAnchor="middle">
+              {String(e.cylinder)}
+            </Text>
+          </G>
+        ))}
+      <Polyline points={points} fill="none" stroke={C.brand} strokeWidth={0.8} />
+      <Text x={2} y={16} style={{ fontSize: 6.5 }} fill={C.muted}>
+        {trace.unit}
+      </Text>
+      <Text x={30} y={height - 3} style={{ fontSize: 6.5, fontFamily: 'AtkinsonMono' }} fill={C.muted}>
+        {`${t0.toFixed(2)} s`}
+      </Text>
+      <Text x={width - 6} y={height - 3} style={{ fontSize: 6.5, fontFamily: 'AtkinsonMono' }} fill={C.muted} textAnchor="end">
+        {`${t1.toFixed(2)} s`}
+      </Text>
+    </Svg>
+  );
+}
+
+function Figures({ r }: { r: AnalysisResult }) {
+  const cols = [
+    ['Cylinder', 50],
+    ['Relative compression', 95],
+    ['Status', 60],
+    [r.rawUnit === 'A' ? 'Current rise' : 'Speed dip', 75],
+    ['Plain index', 70],
+    ['Cycle spread', 70],
+    ['Events used / rejected', 95],
+  ] as const;
+  return (
+    <View style={s.table}>
+      <View style={s.th}>
+        {cols.map(([l, w]) => (
+          <Text key={l} style={[s.td, { width: w }]}>
+            {l}
+          </Text>
+        ))}
+      </View>
+      {r.cylinders.map((c) => (
+        <View key={c.cylinder} style={s.tr}>
+          <Text style={[s.td, { width: 50 }]}>{c.cylinder}</Text>
+          <Text style={[s.td, s.mono, { width: 95 }]}>{`${c.relativePercent.toFixed(1)} %`}</Text>
+          <Text style={[s.td, { width: 60, color: STATUS_COLOR[c.status], fontWeight: 700 }]}>{c.status}</Text>
+          <Text style={[s.td, s.mono, { width: 75 }]}>{`${c.raw.toFixed(1)} ${r.rawUnit}`}</Text>
+          <Text style={[s.td, s.mono, { width: 70 }]}>{`${c.plainPercent.toFixed(1)} %`}</Text>
+          <Text style={[s.td, s.mono, { width: 70 }]}>{`± ${c.spreadPercent.toFixed(1)}`}</Text>
+          <Text style={[s.td, s.mono, { width: 95 }]}>{`${c.events} / ${c.rejected}`}</Text>
+        </View>
+      ))}
+    </View>
+  );
+}
+
+const VERDICT = { ok: 'No cylinder below the low limit', low: 'At least one cylinder below the low limit', uncertain: 'Not enough evidence to rank the cylinders' };
+
+export function ReportDocument({ d }: { d: ReportPdfData }) {
+  const main = d.analyses[0];
+  const r = main?.result;
+  return (
+    <Document title={d.title} author={d.shopName} creator="Crankprint" producer="Crankprint">
+      <Page size="A4" style={s.page}>
+        <Text style={s.footerLeft} fixed>{`${d.shopName} · ${d.repairOrder} · revision ${d.revision}`}</Text>
+        <Text style={s.footerRight} fixed render={({ pageNumber, totalPages }) => `Page ${pageNumber} of ${totalPages}`} />
+        <View style={s.body}>
+        <View style={s.header} fixed>
+          <View>
+            <Text style={s.shop}>{d.shopName}</Text>
+            <Text style={s.h1}>Relative compression report</Text>
+          </View>
+          <View style={{ alignItems: 'flex-end' }}>
+            <Text style={s.mono}>{`${d.repairOrder} · revision ${d.revision}`}</Text>
+            <Text style={s.small}>{d.status === 'signed' ? `Signed by ${d.signedBy ?? '—'} on ${d.signedAt}` : 'DRAFT — not signed'}</Text>
+          </View>
+        </View>
+
+        <Text style={s.h2}>Vehicle</Text>
+        {(
+          [
+            ['Vehicle', d.vehicle.description],
+            ['VIN', d.vehicle.vin],
+            ['Engine', d.vehicle.engine],
+            ['Odometer', d.vehicle.odometer],
+          ] as const
+        ).map(([k, v]) => (
+          <View key={k} style={s.row}>
+            <Text style={s.cellLabel}>{k}</Text>
+            <Text style={k === 'VIN' ? s.mono : {}}>{v}</Text>
+          </View>
+        ))}
+        <Text style={s.h2}>Customer concern</Text>
+        <Text>{d.concern}</Text>
+
+        <Text style={s.h2}>Test conditions</Text>
+        {d.conditions.map(([k, v]) => (
+          <View key={k} style={s.row}>
+            <Text style={s.cellLabel}>{k}</Text>
+            <Text style={v === 'not recorded' ? { color: C.muted } : {}}>{v}</Text>
+          </View>
+        ))}
+
+        {r ? (
+          <>
+            <Text style={s.h2}>Per-cylinder result</Text>
+            <View style={[s.row, { gap: 14 }]}>
+              <ChartSvg r={r} />
+              <View style={{ flex: 1, gap: 3 }}>
+                <Text style={[s.verdict, { color: STATUS_COLOR[r.verdict] }]}>{`Verdict: ${VERDICT[r.verdict]}`}</Text>
+                <Text>{`Method: ${r.method === 'current' ? 'starter current' : 'crank speed'}; mean cranking ${r.crankingRpm} rpm; spread ${r.spreadPercent} points.`}</Text>
+                <Text>{`Cylinder numbers: ${r.identity === 'sync' ? 'from the cylinder 1 sync signal' : 'assumed from the firing order (no sync)'}; firing order ${r.settings.firingOrder.join('-')}.`}</Text>
+                <Text>{`Limits applied: low below ${r.settings.lowLimitPercent} %, spread above ${r.settings.spreadLimitPercent} points.`}</Text>
+                <Text>{r.pattern.hint}</Text>
+                <Text style={s.small}>{main.label}</Text>
+              </View>
+            </View>
+            {main.trace && (
+              <>
+                <Text style={s.h2}>Trace excerpt</Text>
+                <TraceSvg trace={main.trace} />
+                <Text style={s.small}>{`${main.trace.label}; vertical lines mark compression events, numbered by cylinder.`}</Text>
+              </>
+            )}
+            <Text style={s.h2}>Figures</Text>
+            <Figures r={r} />
+            {r.warnings.length > 0 && (
+              <>
+                <Text style={s.h2}>Warnings</Text>
+                {r.warnings.map((w, i) => (
+                  <Text key={i}>{`${w.code}: ${w.message}`}</Text>
+                ))}
+              </>
+            )}
+          </>
+        ) : (
+          <Text style={[s.h2, { color: C.low }]}>No saved analysis is included in this report.</Text>
+        )}
+
+        {d.analyses.length > 1 && (
+          <View wrap={false}>
+            <Text style={s.h2}>Before and after</Text>
+            <View style={[s.row, { gap: 10 }]}>
+              {d.analyses.slice(0, 2).map((a) => (
+                <View key={a.label} style={{ width: 255 }}>
+                  <ChartSvg r={a.result} width={250} height={130} />
+                  <Text style={s.small}>{a.label}</Text>
+                  <Text style={s.mono}>{a.result.cylinders.map((c) => `${c.cylinder}:${c.relativePercent.toFixed(0)}%`).join('  ')}</Text>
+                </View>
+              ))}
+            </View>
+          </View>
+        )}
+
+        <Text style={s.h2}>Interpretation</Text>
+        <Text>{d.interpretation || 'not recorded'}</Text>
+        <Text style={s.h2}>Recommended next steps</Text>
+        {d.nextSteps.length ? d.nextSteps.map((n, i) => <Text key={i}>{`${i + 1}. ${n}`}</Text>) : <Text>not recorded</Text>}
+
+        <View wrap={false}>
+          <Text style={s.h2}>Cautions and limits of this test</Text>
+          {d.cautions.map((c, i) => (
+            <Text key={i}>{`• ${c}`}</Text>
+          ))}
+          <Text style={{ marginTop: 3 }}>{d.limits}</Text>
+        </View>
+
+        <View wrap={false}>
+          <Text style={s.h2}>Traceability</Text>
+          {d.analyses.map((a) => (
+            <Text key={a.label} style={s.mono}>{`${a.label} · engine ${a.result.engineVersion} · SHA-256 ${a.fileSha256}`}</Text>
+          ))}
+          <Text style={s.small}>{`Generated ${d.generatedAt} by Crankprint.`}</Text>
+        </View>
+        </View>
+
+      </Page>
+    </Document>
+  );
+}
