@@ -11,6 +11,7 @@ import { members, organizations } from '@/db/schema';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { can, type Permission, type RoleName } from './permissions';
+import { allow, clientKey, PUBLIC_LIMIT_PER_MIN } from './rate-limit';
 
 export interface SessionContext {
   user: { id: string; name: string; email: string };
@@ -155,4 +156,24 @@ function handleError(e: unknown): Response {
   if (e instanceof HttpError) return errorResponse(e);
   console.error(e);
   return errorResponse(new HttpError(500, 'INTERNAL', 'Something went wrong on the server; try again, and tell your shop owner if it keeps happening.'));
+}
+
+/**
+ * For the customer's share-link routes, which have no session: a rate limit per client, then zod input.
+ * The token in the input is the only scope; handlers answer 404 for any token that does not open a report.
+ */
+export function withPublic<S extends z.ZodType>(schema: S, handler: (ctx: { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
+  return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
+    try {
+      if (!allow(`public:${clientKey(req.headers)}`, PUBLIC_LIMIT_PER_MIN)) {
+        throw new HttpError(429, 'RATE_LIMITED', 'Too many requests; wait a minute and try again.');
+      }
+      const input = await parseInput(schema, req, (await context.params) ?? {});
+      const out = await handler({ input, req });
+      if (out instanceof Response) return out;
+      return NextResponse.json(out ?? { ok: true });
+    } catch (e) {
+      return handleError(e);
+    }
+  };
 }

@@ -47,7 +47,8 @@ export function CylinderBars({
         </g>
       ))}
       <line x1={PAD.l} x2={W - PAD.r} y1={y(lowLimit)} y2={y(lowLimit)} stroke="rgb(var(--limit))" strokeWidth="2.5" strokeDasharray="8 5" />
-      <text x={W - PAD.r} y={y(lowLimit) - 6} textAnchor="end" fontSize="12" fontWeight="700" fill="rgb(var(--limit))">
+      <rect x={PAD.l + 2} y={y(lowLimit) + 3} width="92" height="16" rx="3" fill="rgb(var(--surface))" opacity="0.9" />
+      <text x={PAD.l + 6} y={y(lowLimit) + 15} fontSize="12" fontWeight="700" fill="rgb(var(--limit))">
         low limit {lowLimit} %
       </text>
       {cylinders.map((c, i) => {

@@ -123,6 +123,17 @@ export async function listShareLinks(shopId: string, reportId: string) {
     .orderBy(desc(shareLinks.createdAt));
 }
 
+/** Every share link of a job's report revisions, newest first. */
+export async function listShareLinksForJob(shopId: string, jobId: string) {
+  const db = await getDb();
+  return db
+    .select({ id: shareLinks.id, revision: reports.revision, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt, createdAt: shareLinks.createdAt })
+    .from(shareLinks)
+    .innerJoin(reports, eq(shareLinks.reportId, reports.id))
+    .where(and(eq(shareLinks.shopId, shopId), eq(reports.jobId, jobId)))
+    .orderBy(desc(shareLinks.createdAt));
+}
+
 export async function revokeShareLink(shopId: string, linkId: string) {
   const db = await getDb();
   const [l] = await db.update(shareLinks).set({ revokedAt: new Date() }).where(and(eq(shareLinks.shopId, shopId), eq(shareLinks.id, linkId))).returning();

@@ -12,6 +12,9 @@ const ACTORS: Actor[] = ['anon', 'technician', 'advisor', 'other', 'owner'];
 
 interface Fixture {
   captureId: string;
+  reportJobId: string;
+  reportId: string;
+  linkId: string;
   jobId: string;
   vehicleId: string;
   advisorMemberId: string;
@@ -52,6 +55,15 @@ const ROWS: Row[] = [
   { file: 'captures/[captureId]/raw', method: 'GET', call: (c, f) => c.get(`/api/captures/${f.captureId}/raw`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'captures/[captureId]/analyses', method: 'GET', call: (c, f) => c.get(`/api/captures/${f.captureId}/analyses`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'captures/[captureId]/analyses', method: 'POST', call: (c, f) => c.post(`/api/captures/${f.captureId}/analyses`, { data: { settings } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
+  { file: 'jobs/[jobId]/report', method: 'GET', call: (c, f) => c.get(`/api/jobs/${f.reportJobId}/report`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'jobs/[jobId]/report', method: 'PUT', call: (c, f) => c.put(`/api/jobs/${f.reportJobId}/report`, { data: { interpretation: 'x' } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
+  { file: 'jobs/[jobId]/report/sign', method: 'POST', call: (c, f) => c.post(`/api/jobs/${f.reportJobId}/report/sign`, { data: { reportId: f.reportId } }), expect: { anon: 401, owner: 409, technician: 409, advisor: 403, other: 404 } },
+  { file: 'reports/[reportId]/pdf', method: 'GET', call: (c, f) => c.get(`/api/reports/${f.reportId}/pdf`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'reports/[reportId]/send', method: 'POST', call: (c, f) => c.post(`/api/reports/${f.reportId}/send`, { data: { to: 'advisor-inbox@example.com' } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'reports/[reportId]/share', method: 'GET', call: (c, f) => c.get(`/api/reports/${f.reportId}/share`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'reports/[reportId]/share', method: 'POST', call: (c, f) => c.post(`/api/reports/${f.reportId}/share`, { data: {} }), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'share-links/[linkId]', method: 'DELETE', call: (c, f) => c.delete(`/api/share-links/${f.linkId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'public/decision', method: 'POST', call: (c) => c.post('/api/public/decision', { data: { token: 'A'.repeat(43), decision: 'approve', typedName: 'Guess' } }), expect: { anon: 404, owner: 404, technician: 404, advisor: 404, other: 404 } },
   { file: 'profiles', method: 'GET', call: (c) => c.get('/api/profiles'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
   { file: 'profiles', method: 'POST', call: (c) => c.post('/api/profiles', { data: profile }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },
   { file: 'vehicles', method: 'GET', call: (c) => c.get('/api/vehicles'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
@@ -106,8 +118,15 @@ test('role matrix: session → role → shop scope on every route', async () => 
   const shop = await (await ctx.owner.get('/api/shop')).json();
   const demoJob = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24101');
   const demoCaptures = (await (await ctx.owner.get(`/api/jobs/${demoJob.id}/captures`)).json()).captures;
+  const candidates = (await (await ctx.owner.get(`/api/jobs/${demoJob.id}/report`)).json()).candidates;
+  const draft = (await (await ctx.owner.put(`/api/jobs/${demoJob.id}/report`, { data: { analysisIds: [candidates[0].id] } })).json()).report;
+  expect((await ctx.owner.post(`/api/jobs/${demoJob.id}/report/sign`, { data: { reportId: draft.id } })).status()).toBe(200);
+  const link = (await (await ctx.owner.post(`/api/reports/${draft.id}/share`, { data: {} })).json()).link;
   const fixture: Fixture = {
     captureId: demoCaptures[0].id,
+    reportJobId: demoJob.id,
+    reportId: draft.id,
+    linkId: link.id,
     jobId: jobs[0].id,
     vehicleId: jobs[0].vehicle.id,
     advisorMemberId: shop.members.find((m: { email: string }) => m.email === DEMO.advisor).id,

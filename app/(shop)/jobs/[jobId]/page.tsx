@@ -4,6 +4,8 @@ import { notFound } from 'next/navigation';
 import { listAudit } from '@/db/queries/audit';
 import { latestAnalysesForJob, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
+import { listApprovalsForJob, listRevisions } from '@/db/queries/reports';
+import { buttonClass } from '@/components/ui/button';
 import type { AnalysisResult } from '@/signal';
 import { CaptureUpload } from './_components/capture-upload';
 import { MiniBars } from './_components/mini-bars';
@@ -24,6 +26,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
     .filter((a) => a.subjectId === job.id || (a.detail as { jobId?: string } | null)?.jobId === job.id || (a.detail as { captureId?: string } | null)?.captureId && captureIds.has((a.detail as { captureId: string }).captureId))
     .slice(0, 20);
   const canUpload = m.can({ capture: ['upload'] });
+  const [revisions, approvals] = await Promise.all([listRevisions(m.shop.id, job.id), listApprovalsForJob(m.shop.id, job.id)]);
   const v = job.vehicle;
   const e = v.engine;
   return (
@@ -92,6 +95,20 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           </ul>
         )}
         {canUpload ? <CaptureUpload jobId={job.id} /> : <p className="text-sm text-muted">Your role can read captures but not upload them.</p>}
+      </section>
+      <section aria-labelledby="report" className="flex flex-wrap items-center justify-between gap-3 rounded-2xl border border-line bg-surface p-5">
+        <div>
+          <h2 id="report" className="text-lg font-bold">
+            Report
+          </h2>
+          <p className="text-muted">
+            {revisions[0] ? `Revision ${revisions[0].revision}, ${revisions[0].status === 'signed' ? 'signed' : 'draft'}.` : 'No report yet.'}{' '}
+            {approvals[0] ? `Customer ${approvals[0].decision === 'approve' ? 'approved' : 'declined'} (${approvals[0].typedName}, revision ${approvals[0].revision}).` : ''}
+          </p>
+        </div>
+        <Link className={buttonClass('primary')} href={`/jobs/${job.id}/report`}>
+          {revisions[0] ? 'Open the report' : m.can({ report: ['edit'] }) ? 'Write the report' : 'Report'}
+        </Link>
       </section>
       <section aria-labelledby="activity" className="rounded-2xl border border-line bg-surface p-5">
         <h2 id="activity" className="text-lg font-bold">

@@ -1,0 +1,27 @@
+/** The job's report: revisions, the analyses it can include, share links and the customer's decisions; save a draft. */
+import { z } from 'zod';
+import { recordAudit } from '@/db/queries/audit';
+import { getJob } from '@/db/queries/jobs';
+import { candidateAnalyses, listApprovalsForJob, listRevisions, listShareLinksForJob, saveDraft } from '@/db/queries/reports';
+import { reportContentSchema } from '@/db/validators/report';
+import { notFound } from '@/server/http';
+import { withShop } from '@/server/with-shop';
+
+export const GET = withShop({ report: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop }) => {
+  if (!(await getJob(shop.id, input.jobId))) throw notFound('That job');
+  const revisions = await listRevisions(shop.id, input.jobId);
+  return {
+    revisions,
+    candidates: await candidateAnalyses(shop.id, input.jobId),
+    approvals: await listApprovalsForJob(shop.id, input.jobId),
+    shareLinks: await listShareLinksForJob(shop.id, input.jobId),
+  };
+});
+
+export const PUT = withShop({ report: ['edit'] }, reportContentSchema.extend({ jobId: z.string() }), async ({ input, shop, user }) => {
+  const { jobId, ...content } = input;
+  if (!(await getJob(shop.id, jobId))) throw notFound('That job');
+  const report = await saveDraft(shop.id, jobId, content);
+  await recordAudit(shop.id, user.id, 'report.save', { type: 'report', id: report.id }, { jobId, revision: report.revision });
+  return { report };
+});

@@ -1,0 +1,20 @@
+/** The technician signs the open draft; a signed revision is frozen. */
+import { z } from 'zod';
+import { recordAudit } from '@/db/queries/audit';
+import { getReport, ReportStateError, signReport } from '@/db/queries/reports';
+import { conflict, notFound } from '@/server/http';
+import { withShop } from '@/server/with-shop';
+
+export const POST = withShop({ report: ['sign'] }, z.object({ jobId: z.string(), reportId: z.string() }), async ({ input, shop, user }) => {
+  const r = await getReport(shop.id, input.reportId);
+  if (!r || r.jobId !== input.jobId) throw notFound('That report');
+  try {
+    const signed = await signReport(shop.id, r.id, user.id);
+    if (!signed) throw notFound('That report');
+    await recordAudit(shop.id, user.id, 'report.sign', { type: 'report', id: r.id }, { jobId: r.jobId, revision: r.revision });
+    return { report: signed };
+  } catch (e) {
+    if (e instanceof ReportStateError) throw conflict(e.message);
+    throw e;
+  }
+});

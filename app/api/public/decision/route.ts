@@ -1,0 +1,22 @@
+/** The customer approves or declines the recommended next step through the share link (no account). */
+import { z } from 'zod';
+import { recordAudit } from '@/db/queries/audit';
+import { findShareLink, recordApproval, reportBundle } from '@/db/queries/reports';
+import { HttpError } from '@/server/http';
+import { withPublic } from '@/server/with-shop';
+
+export const POST = withPublic(
+  z.object({
+    token: z.string().max(100),
+    decision: z.enum(['approve', 'decline'], { message: 'Choose approve or decline.' }),
+    typedName: z.string().trim().min(2, 'Type your name to sign your answer.').max(120),
+  }),
+  async ({ input }) => {
+    const link = await findShareLink(input.token);
+    const b = link && (await reportBundle(link.shopId, link.reportId));
+    if (!link || !b) throw new HttpError(404, 'NOT_FOUND', 'This link does not open a report; ask the shop for a new one.');
+    const a = await recordApproval(link, b.report.revision, input.decision, input.typedName);
+    await recordAudit(link.shopId, null, `report.${input.decision}`, { type: 'report', id: link.reportId }, { jobId: b.job.id, typedName: input.typedName, revision: b.report.revision });
+    return { decision: a.decision, revision: a.revision, at: a.createdAt };
+  },
+);

@@ -1,0 +1,25 @@
+/** Customer share links for a signed report: random 256-bit tokens, stored hashed, expiring (14 days by default). */
+import { z } from 'zod';
+import { recordAudit } from '@/db/queries/audit';
+import { createShareLink, getReport, listShareLinks } from '@/db/queries/reports';
+import { APP_URL } from '@/server/auth';
+import { conflict, notFound } from '@/server/http';
+import { withShop } from '@/server/with-shop';
+
+export const GET = withShop({ report: ['share'] }, z.object({ reportId: z.string() }), async ({ input, shop }) => {
+  if (!(await getReport(shop.id, input.reportId))) throw notFound('That report');
+  return { links: await listShareLinks(shop.id, input.reportId) };
+});
+
+export const POST = withShop(
+  { report: ['share'] },
+  z.object({ reportId: z.string(), days: z.coerce.number().int().min(1, 'A link lasts at least a day.').max(60, 'A link lasts at most 60 days.').default(14) }),
+  async ({ input, shop, user }) => {
+    const r = await getReport(shop.id, input.reportId);
+    if (!r) throw notFound('That report');
+    if (r.status !== 'signed') throw conflict('Sign the report before sharing it with the customer.');
+    const { token, link } = await createShareLink(shop.id, r.id, user.id, input.days);
+    await recordAudit(shop.id, user.id, 'report.share', { type: 'report', id: r.id }, { jobId: r.jobId, linkId: link.id, expiresAt: link.expiresAt });
+    return { link: { id: link.id, expiresAt: link.expiresAt }, url: `${APP_URL}/r/${token}` };
+  },
+);

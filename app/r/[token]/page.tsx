@@ -1,0 +1,60 @@
+/** The customer's read-only report page: no account, one report, reached only through its share link. */
+import type { Metadata } from 'next';
+import { headers } from 'next/headers';
+import { notFound } from 'next/navigation';
+import { LogoMark } from '@/components/brand/logo';
+import { CylinderBars } from '@/components/analysis/cylinder-bars';
+import { findShareLink, reportBundle } from '@/db/queries/reports';
+import { allow, clientKey, PUBLIC_LIMIT_PER_MIN } from '@/server/rate-limit';
+import type { AnalysisResult } from '@/signal';
+import { DecisionForm } from './decision-form';
+
+export const dynamic = 'force-dynamic';
+export const metadata: Metadata = { title: 'Your vehicle’s test result', robots: { index: false, follow: false }, referrer: 'no-referrer' };
+
+export default async function CustomerReport({ params }: { params: Promise<{ token: string }> }) {
+  const { token } = await params;
+  if (!allow(`public:${clientKey(await headers())}`, PUBLIC_LIMIT_PER_MIN)) notFound();
+  const link = await findShareLink(token);
+  const b = link && (await reportBundle(link.shopId, link.reportId));
+  if (!link || !b) notFound();
+  const r = b.analyses[0]?.analysis.result as AnalysisResult | undefined;
+  const vehicle = [b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ');
+  const low = r?.cylinders.filter((c) => c.status === 'low') ?? [];
+  return (
+    <main className="mx-auto flex max-w-2xl flex-col gap-5 px-4 py-8 text-lg">
+      <header className="flex items-center gap-3">
+        <LogoMark size={36} />
+        <div>
+          <p className="text-xl font-bold">{b.shop.name}</p>
+          <p className="text-base text-muted">Repair order {b.job.repairOrder}</p>
+        </div>
+      </header>
+      <h1 className="text-2xl font-bold">{vehicle}</h1>
+      <p>
+        You told us: “{b.job.concern}” To find out whether the cause is inside the engine, we measured how well each cylinder holds compression while the engine was turned over by its starter.
+      </p>
+      {r && (
+        <section aria-labelledby="result" className="rounded-2xl border border-line bg-surface p-4">
+          <h2 id="result" className="text-xl font-bold">
+            {low.length === 0 ? 'All cylinders measured alike' : `${low.length === 1 ? 'One cylinder is' : `${low.length} cylinders are`} weaker than the others`}
+          </h2>
+          <CylinderBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} />
+          <p className="text-base text-muted">Each bar compares a cylinder with the healthy ones. This is a screening test; the next step confirms it.</p>
+        </section>
+      )}
+      <section aria-labelledby="next" className="rounded-2xl border-2 border-brand bg-surface p-4">
+        <h2 id="next" className="text-xl font-bold">
+          What we recommend next
+        </h2>
+        <ol className="mt-2 list-decimal pl-6">
+          {(b.content.nextSteps.length ? b.content.nextSteps : ['Talk with your service advisor about the next step.']).map((s) => (
+            <li key={s}>{s}</li>
+          ))}
+        </ol>
+        <DecisionForm token={token} revision={b.report.revision} />
+      </section>
+      <p className="text-sm text-muted">Report revision {b.report.revision}. This page expires on {link.expiresAt.toLocaleDateString('en-US', { dateStyle: 'long' })}.</p>
+    </main>
+  );
+}

@@ -1,0 +1,78 @@
+/**
+ * The job-file report: sign-off freezes a revision, the PDF goes by e-mail with the attachment, a customer link
+ * opens one report without an account and records the answer against the revision seen; revoked or guessed
+ * links are a 404 with no hint which; an advisor can send but not edit.
+ */
+import { expect, test } from '@playwright/test';
+import { DEMO, newContext, signIn, waitForMail } from './helpers';
+
+test('sign, e-mail, share, approve, revoke; the old revision stays readable', async ({ page, browser }) => {
+  await page.goto('/sign-in');
+  await page.getByRole('button', { name: /technician/i }).click();
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('link', { name: 'RO-24104' }).click();
+  await page.getByRole('link', { name: /Write the report|Open the report/ }).click();
+  await expect(page.getByRole('heading', { name: 'Analyses to include' }).or(page.getByText('Analyses to include'))).toBeVisible();
+  await page.getByLabel('Coolant (°C)').fill('85');
+  await page.getByLabel('Battery at rest (V)').fill('12.6');
+  await page.getByRole('button', { name: 'Save draft' }).click();
+  await expect(page.getByText(/Draft saved as revision 1/)).toBeVisible();
+  await page.getByRole('button', { name: 'Sign revision 1' }).click();
+  await expect(page.getByText('Revision 1 is signed and frozen.')).toBeVisible();
+  await page.screenshot({ path: 'artifacts/screens/report-editor.png', fullPage: true });
+
+  await page.getByLabel('E-mail the PDF to').fill('service-desk@example.com');
+  await page.getByRole('button', { name: 'Send', exact: true }).click();
+  await expect(page.getByText('Report sent to service-desk@example.com.')).toBeVisible();
+  const mail = (await waitForMail('service-desk@example.com', /compression test report for RO-24104/)) as unknown as { attachments: { filename: string; contentType: string }[] };
+  expect(mail.attachments.map((a) => a.contentType)).toContain('application/pdf');
+
+  await page.getByRole('button', { name: 'Create a customer link (14 days)' }).click();
+  const url = (await page.getByTestId('share-url').textContent())!;
+  const path = url.replace(/^https?:\/\/[^/]+/, '');
+  const customer = await (await browser.newContext()).newPage();
+  await customer.goto(path);
+  await expect(customer.getByText('What we recommend next')).toBeVisible();
+  await customer.screenshot({ path: 'artifacts/screens/customer.png', fullPage: true });
+  await customer.getByLabel('Your name').fill('Pat Customer');
+  await customer.getByRole('button', { name: 'Approve the next step' }).click();
+  await expect(customer.getByText('you approved the recommended next step')).toBeVisible();
+
+  // The advisor sees the answer, against revision 1.
+  const advisor = await signIn(DEMO.advisor);
+  const jobs = (await (await advisor.get('/api/jobs?q=RO-24104')).json()).jobs;
+  const report = await (await advisor.get(`/api/jobs/${jobs[0].id}/report`)).json();
+  expect(report.approvals[0]).toMatchObject({ decision: 'approve', typedName: 'Pat Customer', revision: 1 });
+  // The advisor can send but not edit.
+  expect((await advisor.put(`/api/jobs/${jobs[0].id}/report`, { data: { interpretation: 'changed' } })).status()).toBe(403);
+  expect((await advisor.post(`/api/reports/${report.revisions[0].id}/send`, { data: { to: 'customer@example.com' } })).status()).toBe(200);
+
+  // Editing a signed report starts revision 2; revision 1 stays readable.
+  await page.getByLabel('Interpretation').fill('Revised after a second look.');
+  await page.getByRole('button', { name: 'Save as a new revision' }).click();
+  await expect(page.getByText(/Draft saved as revision 2/)).toBeVisible();
+  expect((await advisor.get(`/api/reports/${report.revisions[0].id}/pdf`)).status()).toBe(200);
+
+  // Withdrawn and guessed links: the same 404, on the page and on the decision route.
+  await page.reload();
+  await page.getByRole('button', { name: 'Withdraw' }).first().click();
+  await expect(page.getByText('withdrawn').first()).toBeVisible();
+  const anon = await newContext();
+  for (const p of [path, `/r/${'x'.repeat(43)}`]) {
+    const res = await anon.get(p);
+    expect(res.status()).toBe(404);
+    expect(await res.text()).toContain('This link does not open a report');
+  }
+  const token = path.split('/r/')[1];
+  const decision = await anon.post('/api/public/decision', { data: { token, decision: 'decline', typedName: 'Pat Customer' } });
+  expect(decision.status()).toBe(404);
+});
+
+test('a report without a saved analysis cannot be signed', async () => {
+  const tech = await signIn(DEMO.technician);
+  const jobs = (await (await tech.get('/api/jobs?q=RO-24102')).json()).jobs;
+  const draft = (await (await tech.put(`/api/jobs/${jobs[0].id}/report`, { data: { analysisIds: [], interpretation: 'nothing measured' } })).json()).report;
+  const res = await tech.post(`/api/jobs/${jobs[0].id}/report/sign`, { data: { reportId: draft.id } });
+  expect(res.status()).toBe(409);
+  expect((await res.json()).error.message).toMatch(/at least one saved analysis/);
+});
