@@ -5,7 +5,9 @@
  */
 import { execFileSync } from 'node:child_process';
 import { mkdirSync } from 'node:fs';
+import { renderReportPdf } from '../server/pdf/render';
 import { decimateMinMax } from '../signal/dsp/decimate';
+import { sampleReportData } from '../tests/report/sample-report';
 import { generateCapture } from './bench/generate';
 
 const dir = '/tmp/crankprint-bench';
@@ -69,9 +71,19 @@ for (let r = 0; r < 7; r++) {
 }
 console.log(`decimate 10M → 2,000 columns ${median(dec).toFixed(1)} ms; one plain pass ${median(pass).toFixed(1)} ms ${sink > Infinity ? '' : ''}`);
 
+// A typical report PDF (two analyses, chart and trace excerpt), the first render including font loading.
+const pdfRuns: number[] = [];
+const data = sampleReportData();
+for (let r = 0; r < 6; r++) {
+  const t0 = performance.now();
+  await renderReportPdf(data);
+  pdfRuns.push(performance.now() - t0);
+}
+console.log(`report PDF: first ${pdfRuns[0].toFixed(0)} ms, then median ${median(pdfRuns.slice(1)).toFixed(0)} ms`);
+
 const f = (v: number, d = 2) => v.toFixed(d);
 console.log(
   `bench: import_ratio_10m=${f(r10.importMs / r10.baselineMs)} analysis_share_10m=${f(r10.analysisMs / r10.importMs)} ` +
     `e2e_1m_ms=${f(r1.importMs + r1.analysisMs, 0)} e2e_10m_ms=${f(r10.importMs + r10.analysisMs, 0)} ` +
-    `peak_mem_ratio_10m=${f(r10.peakRatio)} decimate_ratio_10m=${f(median(dec) / median(pass))}`,
+    `peak_mem_ratio_10m=${f(r10.peakRatio)} decimate_ratio_10m=${f(median(dec) / median(pass))} pdf_ms=${f(median(pdfRuns.slice(1)), 0)}`,
 );

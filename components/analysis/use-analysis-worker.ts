@@ -19,11 +19,14 @@ export function useAnalysisWorker() {
   const remote = useRef<Comlink.Remote<AnalysisWorker> | null>(null);
   const worker = useRef<Worker | null>(null);
   const [load, setLoad] = useState<LoadState>({ phase: 'idle' });
+  /** Counts workers started: a new one (strict-mode remount, fast refresh) must be loaded again. */
+  const [generation, setGeneration] = useState(0);
 
   useEffect(() => {
     const w = new Worker(new URL('../../workers/analysis.worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
     remote.current = Comlink.wrap<AnalysisWorker>(w);
+    setGeneration((g) => g + 1);
     return () => {
       remote.current = null;
       w.terminate();
@@ -67,5 +70,5 @@ export function useAnalysisWorker() {
 
   const cancel = useCallback(() => remote.current?.cancel(), []);
 
-  return { load, open, analyze, decimate, cancel };
+  return { load, open, analyze, decimate, cancel, generation };
 }

@@ -71,24 +71,25 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   const [views, setViews] = useState(0);
   const [askMapping, setAskMapping] = useState(false);
   const trace = useRef<TraceHandle>(null);
-  const opened = useRef(false);
 
-  // Load the capture into the worker once.
+  // Load the capture into each worker this page starts (normally one).
+  const { generation, open } = w;
+  const loadOptions = useRef({ mapping: settings.mapping, sampleRateHz: settings.sampleRateHz });
   useEffect(() => {
-    if (opened.current) return;
-    opened.current = true;
-    void w.open(localUpload(captureId) ?? rawUrl, { mapping: settings.mapping, sampleRateHz: settings.sampleRateHz }).then((summary) => {
-      if (summary && summary.confidence < 0.7 && !settings.mapping) setAskMapping(true);
+    if (generation === 0) return;
+    const { mapping, sampleRateHz } = loadOptions.current;
+    void open(localUpload(captureId) ?? rawUrl, { mapping, sampleRateHz }).then((summary) => {
+      if (summary && summary.confidence < 0.7 && !mapping) setAskMapping(true);
     });
-  }, [w, rawUrl, captureId, settings.mapping, settings.sampleRateHz]);
+  }, [generation, open, rawUrl, captureId]);
 
   // Re-run the engine whenever the settings change.
   const ready = w.load.phase === 'ready';
+  const { analyze, decimate } = w;
   useEffect(() => {
     if (!ready || askMapping) return;
     let current = true;
-    void w
-      .analyze({
+    void analyze({
         engine: settings.engine,
         method: settings.method,
         teeth: settings.teeth ? (parseToothPattern(settings.teeth) ?? undefined) : undefined,
@@ -108,13 +109,13 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
     return () => {
       current = false;
     };
-  }, [ready, askMapping, settings, w]);
+  }, [ready, askMapping, settings, analyze, w.load]);
 
   const summary = w.load.phase === 'ready' ? w.load.summary : null;
   const shown = useMemo(() => CHANNELS.filter((c) => summary?.channels.some((ch) => ch.role === c.role)), [summary]);
   const fetchView = useCallback(
     async (fromS: number, toS: number, columns: number): Promise<TraceData | null> => {
-      const parts = await Promise.all(shown.map((c) => w.decimate(c.channel, fromS, toS, columns)));
+      const parts = await Promise.all(shown.map((c) => decimate(c.channel, fromS, toS, columns)));
       const first = parts.find(Boolean);
       if (!first) return null;
       const series: TraceSeries[] = [];
@@ -123,7 +124,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
       });
       return { x: first.x, series };
     },
-    [shown, w],
+    [shown, decimate],
   );
 
   const save = useMutation({

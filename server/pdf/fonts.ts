@@ -1,5 +1,4 @@
 /** Fonts shipped with the app, registered once for the PDF renderer (.woff; .woff2 is not read by it). */
-import 'server-only';
 import { join } from 'node:path';
 import { Font } from '@react-pdf/renderer';
 

@@ -5,7 +5,7 @@
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { renderReportPdf } from '@/server/pdf/build-report';
+import { renderReportPdf } from '@/server/pdf/render';
 import { sampleReportData } from './sample-report';
 
 const hasPoppler = (() => {

@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { CAUTIONS } from '@/components/analysis/cautions';
 import { interpretationFor, nextStepsFor, TEST_LIMITS } from '@/components/report/wording';
-import { conditionRows, traceExcerpt } from '@/server/pdf/build-report';
+import { conditionRows, traceExcerpt } from '@/server/pdf/format';
 import type { ReportPdfData } from '@/server/pdf/report-document';
 import { analyzeBytes } from '@/signal';
 
