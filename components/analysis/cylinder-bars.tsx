@@ -46,11 +46,6 @@ export function CylinderBars({
           </text>
         </g>
       ))}
-      <line x1={PAD.l} x2={W - PAD.r} y1={y(lowLimit)} y2={y(lowLimit)} stroke="rgb(var(--limit))" strokeWidth="2.5" strokeDasharray="8 5" />
-      <rect x={PAD.l + 2} y={y(lowLimit) + 3} width="92" height="16" rx="3" fill="rgb(var(--surface))" opacity="0.9" />
-      <text x={PAD.l + 6} y={y(lowLimit) + 15} fontSize="12" fontWeight="700" fill="rgb(var(--limit))">
-        low limit {lowLimit} %
-      </text>
       {cylinders.map((c, i) => {
         const cx = PAD.l + slot * (i + 0.5);
         const top = y(c.relativePercent);
@@ -84,6 +79,11 @@ export function CylinderBars({
           </g>
         );
       })}
+      <line x1={PAD.l} x2={W - PAD.r} y1={y(lowLimit)} y2={y(lowLimit)} stroke="rgb(var(--limit))" strokeWidth="2.5" strokeDasharray="8 5" />
+      <rect x={PAD.l + 2} y={y(lowLimit) + 3} width="92" height="16" rx="3" fill="rgb(var(--surface))" opacity="0.9" />
+      <text x={PAD.l + 6} y={y(lowLimit) + 15} fontSize="12" fontWeight="700" fill="rgb(var(--limit))">
+        low limit {lowLimit} %
+      </text>
     </svg>
   );
 }

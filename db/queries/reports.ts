@@ -171,12 +171,17 @@ export async function listApprovalsForJob(shopId: string, jobId: string) {
 export async function candidateAnalyses(shopId: string, jobId: string) {
   const db = await getDb();
   const [job] = await db.select({ vehicleId: jobs.vehicleId }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
-  if (!job) return [];
+  return job ? candidateAnalysesForVehicle(shopId, job.vehicleId) : [];
+}
+
+/** Every saved analysis of a vehicle's captures, newest first (its test history, before and after). */
+export async function candidateAnalysesForVehicle(shopId: string, vehicleId: string) {
+  const db = await getDb();
   return db
     .select({ id: analyses.id, createdAt: analyses.createdAt, verdict: analyses.verdict, crankingRpm: analyses.crankingRpm, result: analyses.result, fileName: captures.fileName, repairOrder: jobs.repairOrder, jobId: jobs.id })
     .from(analyses)
     .innerJoin(captures, eq(analyses.captureId, captures.id))
     .innerJoin(jobs, eq(captures.jobId, jobs.id))
-    .where(and(eq(analyses.shopId, shopId), eq(jobs.vehicleId, job.vehicleId)))
+    .where(and(eq(analyses.shopId, shopId), eq(jobs.vehicleId, vehicleId)))
     .orderBy(desc(analyses.createdAt));
 }

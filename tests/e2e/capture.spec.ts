@@ -52,6 +52,12 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
   const result = stored.analyses[0].result;
   expect(result.cylinders.map((c: { relativePercent: number }) => `${c.relativePercent.toFixed(1)} %`)).toEqual(shown);
   expect(stored.analyses[0].fileSha256).toBe(stored.capture.sha256);
+
+  // The vehicle now has two saved tests: before and after, side by side.
+  await page.getByRole('link', { name: 'RO-24099' }).click();
+  await page.getByRole('link', { name: 'All tests on this vehicle' }).click();
+  await expect(page.getByTestId('before-after')).toBeVisible();
+  await page.screenshot({ path: 'artifacts/screens/before-after.png', fullPage: true });
 });
 
 test('an advisor sees captures but cannot upload, in the page or through the API', async ({ page }) => {

@@ -4,7 +4,7 @@
  */
 import { mkdirSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
-import { DEMO, DEMO_PASSWORD, unique, waitForMail } from './helpers';
+import { DEMO, DEMO_PASSWORD, signIn, unique, waitForMail } from './helpers';
 
 mkdirSync('artifacts/screens', { recursive: true });
 const shot = (page: Page, name: string) => page.screenshot({ path: `artifacts/screens/${name}.png`, fullPage: true });
@@ -129,4 +129,14 @@ test('password reset through the e-mailed link', async ({ page }) => {
   await page.getByLabel('New password again').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Save the new password' }).click();
   await expect(page.getByText('Your password is changed.')).toBeVisible();
+});
+
+test('the last owner can be neither demoted nor removed', async () => {
+  const owner = await signIn(DEMO.owner);
+  const shop = await (await owner.get('/api/shop')).json();
+  const me = shop.members.find((m: { email: string }) => m.email === DEMO.owner);
+  const demote = await owner.patch(`/api/shop/members/${me.id}`, { data: { role: 'technician' } });
+  expect(demote.status()).toBe(409);
+  expect((await demote.json()).error.message).toMatch(/last owner/);
+  expect((await owner.delete(`/api/shop/members/${me.id}`)).status()).toBe(409);
 });
