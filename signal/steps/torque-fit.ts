@@ -95,7 +95,8 @@ interface Solved {
   columnOf: Int32Array;
 }
 
-function solveAt(m: CrankMotion, o: FitOptions, phaseDeg: number, perEvent: boolean, shapes: Float64Array[]): Solved | null {
+/** One least-squares solve at a phase; `stride` > 1 uses every stride-th row (the coarse phase scan). */
+function solveAt(m: CrankMotion, o: FitOptions, phaseDeg: number, perEvent: boolean, shapes: Float64Array[], stride = 1): Solved | null {
   const gas = o.gas ?? GENERIC_GAS;
   const n = o.firingOrder.length;
   const rows = m.t.length;
@@ -115,7 +116,7 @@ function solveAt(m: CrankMotion, o: FitOptions, phaseDeg: number, perEvent: bool
   const ivc = -180 + gas.ivcAbdcDeg;
   const evo = 180 - gas.evoBbdcDeg;
   let first = 0;
-  for (let r = 0; r < rows; r++) {
+  for (let r = 0; r < rows; r += stride) {
     const th = m.thetaDeg[r];
     cols[0] = 0;
     vals[0] = 1;
@@ -159,16 +160,18 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   const step = o.coarseStepDeg ?? 6;
   let bestPhase = NaN;
   let bestRss = Infinity;
-  const tryPhase = (p: number) => {
-    const s = solveAt(m, o, p, false, shapes());
+  const tryPhase = (p: number, stride = 1) => {
+    const s = solveAt(m, o, p, false, shapes(), stride);
     if (s && s.rss < bestRss) {
       bestRss = s.rss;
       bestPhase = p;
     }
   };
-  for (let p = o.scanFromDeg; p < o.scanToDeg; p += step) tryPhase(p);
+  // Coarse scan on every third row, then the fine scans on all rows from the coarse best.
+  for (let p = o.scanFromDeg; p < o.scanToDeg; p += step) tryPhase(p, 3);
   if (!Number.isFinite(bestPhase)) return null;
   const centre = bestPhase;
+  bestRss = solveAt(m, o, centre, false, shapes())?.rss ?? Infinity;
   for (let p = centre - step; p <= centre + step; p += 1) if (p !== centre) tryPhase(p);
   const centre2 = bestPhase;
   for (let p = centre2 - 0.75; p <= centre2 + 0.75; p += 0.25) if (p !== centre2) tryPhase(p);
