@@ -1,5 +1,6 @@
 'use client';
 /** Engine setup, method and limits. Every change re-runs the analysis in the worker at once. */
+import { LayoutOptions } from '@/components/ui/engine-options';
 import { Field, Input, Select } from '@/components/ui/field';
 import type { AnalysisSettingsValues } from '@/db/validators/analysis';
 
@@ -49,9 +50,7 @@ export function SettingsPanel({
         </Field>
         <Field id="s-layout" label="Layout">
           <Select id="s-layout" value={e.layout} onChange={(ev) => setEngine({ layout: ev.target.value as 'inline' })}>
-            <option value="inline">Inline</option>
-            <option value="v">V</option>
-            <option value="flat">Flat</option>
+            <LayoutOptions />
           </Select>
         </Field>
       </div>

@@ -114,24 +114,23 @@ export async function createShareLink(shopId: string, reportId: string, userId: 
   return { token, link };
 }
 
-export async function listShareLinks(shopId: string, reportId: string) {
-  const db = await getDb();
-  return db
-    .select({ id: shareLinks.id, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt, createdAt: shareLinks.createdAt })
-    .from(shareLinks)
-    .where(and(eq(shareLinks.shopId, shopId), eq(shareLinks.reportId, reportId)))
-    .orderBy(desc(shareLinks.createdAt));
-}
-
-/** Every share link of a job's report revisions, newest first. */
-export async function listShareLinksForJob(shopId: string, jobId: string) {
+/** Share links of one report revision, or of every revision of a job, newest first. */
+async function shareLinkRows(shopId: string, scope: { reportId: string } | { jobId: string }) {
   const db = await getDb();
   return db
     .select({ id: shareLinks.id, revision: reports.revision, expiresAt: shareLinks.expiresAt, revokedAt: shareLinks.revokedAt, createdAt: shareLinks.createdAt })
     .from(shareLinks)
     .innerJoin(reports, eq(shareLinks.reportId, reports.id))
-    .where(and(eq(shareLinks.shopId, shopId), eq(reports.jobId, jobId)))
+    .where(and(eq(shareLinks.shopId, shopId), 'reportId' in scope ? eq(reports.id, scope.reportId) : eq(reports.jobId, scope.jobId)))
     .orderBy(desc(shareLinks.createdAt));
+}
+
+export function listShareLinks(shopId: string, reportId: string) {
+  return shareLinkRows(shopId, { reportId });
+}
+
+export function listShareLinksForJob(shopId: string, jobId: string) {
+  return shareLinkRows(shopId, { jobId });
 }
 
 export async function revokeShareLink(shopId: string, linkId: string) {

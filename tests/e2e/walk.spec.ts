@@ -10,16 +10,20 @@ mkdirSync('artifacts/screens', { recursive: true });
 const shot = (page: Page, name: string) => page.screenshot({ path: `artifacts/screens/${name}.png`, fullPage: true });
 const local = (url: string) => url.replace(/^https?:\/\/[^/]+/, '');
 
+async function fillSignUp(page: Page, name: string, email: string, password: string) {
+  await page.goto('/sign-up');
+  await page.getByLabel('Your name').fill(name);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByLabel('Password again').fill(password);
+}
+
 test('sign up, verify, create a shop, invite a technician who creates a job', async ({ browser }) => {
   const ownerEmail = unique('owner');
   const techEmail = unique('tech');
   const owner = await (await browser.newContext()).newPage();
 
-  await owner.goto('/sign-up');
-  await owner.getByLabel('Your name').fill('New Owner');
-  await owner.getByLabel('E-mail').fill(ownerEmail);
-  await owner.getByLabel('Password', { exact: true }).fill('a-long-password-1');
-  await owner.getByLabel('Password again').fill('a-long-password-1');
+  await fillSignUp(owner, 'New Owner', ownerEmail, 'a-long-password-1');
   await shot(owner, 'sign-up');
   await owner.getByRole('button', { name: 'Create account' }).click();
   await expect(owner.getByText('Check your e-mail')).toBeVisible();
@@ -41,11 +45,7 @@ test('sign up, verify, create a shop, invite a technician who creates a job', as
   const invite = await waitForMail(techEmail, /Join Walkthrough Motors/);
 
   const tech = await (await browser.newContext()).newPage();
-  await tech.goto('/sign-up');
-  await tech.getByLabel('Your name').fill('New Technician');
-  await tech.getByLabel('E-mail').fill(techEmail);
-  await tech.getByLabel('Password', { exact: true }).fill('another-long-pass');
-  await tech.getByLabel('Password again').fill('another-long-pass');
+  await fillSignUp(tech, 'New Technician', techEmail, 'another-long-pass');
   await tech.getByRole('button', { name: 'Create account' }).click();
   const techVerify = await waitForMail(techEmail, /Confirm your e-mail/);
   await tech.goto(local(techVerify.links[0]));

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import { JobBreadcrumb } from '@/components/ui/job-breadcrumb';
 import { notFound } from 'next/navigation';
 import { getJob } from '@/db/queries/jobs';
 import { pageMember } from '@/server/page-context';
@@ -14,12 +14,9 @@ export default async function ReportPage({ params }: { params: Promise<{ jobId: 
   if (!job) notFound();
   return (
     <div className="flex flex-col gap-4">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link className="font-bold text-brand underline" href={`/jobs/${job.id}`}>
-          {job.repairOrder}
-        </Link>{' '}
-        / Report
-      </nav>
+      <JobBreadcrumb jobId={job.id} repairOrder={job.repairOrder}>
+        Report
+      </JobBreadcrumb>
       <h1 className="text-2xl font-bold">Report for {job.repairOrder}</h1>
       <ReportEditor
         jobId={job.id}

@@ -5,6 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { type FieldPath, useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
+import { LayoutOptions } from '@/components/ui/engine-options';
 import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
 import { ApiError } from '@/components/data/api';
 import { useCreateJob } from '@/components/data/jobs/create-job-mutation';
@@ -152,9 +153,7 @@ export function NewJobForm({ profiles }: { profiles: Profile[] }) {
             </Field>
             <Field id="layout" label="Layout" error={ve?.engine?.layout?.message}>
               <Select id="layout" {...register('vehicle.engine.layout')}>
-                <option value="inline">Inline</option>
-                <option value="v">V</option>
-                <option value="flat">Flat</option>
+                <LayoutOptions />
               </Select>
             </Field>
             <Field id="firingOrder" label="Firing order" error={ve?.engine?.firingOrder?.message}>

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import Link from 'next/link';
+import { JobBreadcrumb } from '@/components/ui/job-breadcrumb';
 import { notFound } from 'next/navigation';
 import { Suspense } from 'react';
 import { Workspace } from '@/components/analysis/workspace';
@@ -31,12 +31,9 @@ export default async function CapturePage({ params }: { params: Promise<{ jobId:
   ] as { key: string; label: string; engine: AnalysisSettingsValues['engine'] }[];
   return (
     <div className="flex flex-col gap-4">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link className="font-bold text-brand underline" href={`/jobs/${job.id}`}>
-          {job.repairOrder}
-        </Link>{' '}
-        / <span className="figures">{capture.fileName}</span>
-      </nav>
+      <JobBreadcrumb jobId={job.id} repairOrder={job.repairOrder}>
+        <span className="figures">{capture.fileName}</span>
+      </JobBreadcrumb>
       <h1 className="text-2xl font-bold">
         {[job.vehicle.year, job.vehicle.make, job.vehicle.model].filter(Boolean).join(' ')} — <span className="figures">{capture.fileName}</span>
       </h1>
