@@ -171,6 +171,11 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   for (let p = o.scanFromDeg; p < o.scanToDeg; p += step) tryPhase(p, 3);
   if (!Number.isFinite(bestPhase)) return null;
   const centre = bestPhase;
+  if (o.refineLeaks === false) {
+    // The quick fit (comparing angle scales): the coarse phase on every row, nothing finer.
+    const quick = solveAt(m, o, centre, false, shapes());
+    return quick ? summarise(m, o, family, choice, centre, quick, null) : null;
+  }
   bestRss = solveAt(m, o, centre, false, shapes())?.rss ?? Infinity;
   for (let p = centre - step; p <= centre + step; p += 1) if (p !== centre) tryPhase(p);
   const centre2 = bestPhase;
@@ -182,7 +187,7 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   const coef = first ? Array.from({ length: n }, (_, c) => first.coef[2 + c]) : [];
   const ref = [...coef].sort((a, b) => a - b)[n >> 1];
   const suspects = coef.map((k, c) => (k < 0.97 * ref ? c : -1)).filter((c) => c >= 0);
-  for (let pass = 0; pass < (o.refineLeaks === false ? 0 : 2); pass++) {
+  for (let pass = 0; pass < 2; pass++) {
     for (const c of suspects) {
       let bestF = choice[c];
       for (let f = 0; f < family.length; f++) {
@@ -202,6 +207,12 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   const global = solveAt(m, o, bestPhase, false, final);
   const single = solveAt(m, o, bestPhase, true, final);
   if (!global || !single) return null;
+  return summarise(m, o, family, choice, bestPhase, global, single);
+}
+
+/** The fit's figures from the global solve (per cylinder) and, when given, the per-event solve. */
+function summarise(m: CrankMotion, o: FitOptions, family: LeakyShape[], choice: Int32Array, bestPhase: number, global: Solved, single: Solved | null): TorqueFit {
+  const n = o.firingOrder.length;
   const perCylinder = new Float64Array(n).fill(NaN);
   const pressure = new Float64Array(n).fill(NaN);
   const leakPerS = new Float64Array(n);
@@ -216,10 +227,13 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
     perCylinder[c] = global.coef[2 + c];
     pressure[c] = perCylinder[c] * family[choice[c]].peakRatio;
   }
-  const perEvent = new Float64Array(single.events.length).fill(NaN);
-  for (let e = 0; e < single.events.length; e++) {
-    const ev = single.events[e];
-    if (ev.complete) perEvent[e] = single.coef[single.columnOf[e]] * family[choice[ev.cylinder - 1]].peakRatio;
+  const events = (single ?? global).events;
+  const perEvent = new Float64Array(events.length).fill(NaN);
+  if (single) {
+    for (let e = 0; e < single.events.length; e++) {
+      const ev = single.events[e];
+      if (ev.complete) perEvent[e] = single.coef[single.columnOf[e]] * family[choice[ev.cylinder - 1]].peakRatio;
+    }
   }
 
   let mean = 0;
@@ -228,13 +242,5 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   let tss = 0;
   for (let r = 0; r < m.y.length; r++) tss += (m.y[r] - mean) * (m.y[r] - mean);
   const phaseDeg = ((bestPhase % 720) + 720) % 720;
-  return {
-    phaseDeg,
-    perCylinder,
-    pressure,
-    leakPerS,
-    perEvent,
-    events: single.events,
-    r2: tss > 0 ? 1 - global.rss / tss : 0,
-  };
+  return { phaseDeg, perCylinder, pressure, leakPerS, perEvent, events, r2: tss > 0 ? 1 - global.rss / tss : 0 };
 }
