@@ -37,9 +37,25 @@ export function stdDev(values: ArrayLike<number>): number {
 
 /** The q-quantile of at most `maxSamples` evenly spaced values: cheap on long channels, no full copy or sort. */
 export function quantileProbe(values: ArrayLike<number>, q: number, maxSamples = 100_000): number {
-  if (values.length <= maxSamples) return quantile(values, q);
-  const step = values.length / maxSamples;
-  const probe = new Float64Array(maxSamples);
-  for (let i = 0; i < maxSamples; i++) probe[i] = values[Math.floor(i * step)];
-  return quantile(probe, q);
+  return quantilesProbe(values, [q], maxSamples)[0];
+}
+
+/** Several quantiles from one sorted probe of at most `maxSamples` evenly spaced values. */
+export function quantilesProbe(values: ArrayLike<number>, qs: number[], maxSamples = 100_000): number[] {
+  const m = Math.min(values.length, maxSamples);
+  const step = values.length / Math.max(1, m);
+  let count = 0;
+  const probe = new Float64Array(m);
+  for (let i = 0; i < m; i++) {
+    const v = values[Math.floor(i * step)];
+    if (v === v) probe[count++] = v;
+  }
+  if (count === 0) return qs.map(() => NaN);
+  const a = probe.subarray(0, count).sort();
+  return qs.map((q) => {
+    const pos = (count - 1) * q;
+    const lo = Math.floor(pos);
+    const hi = Math.min(count - 1, lo + 1);
+    return a[lo] + (a[hi] - a[lo]) * (pos - lo);
+  });
 }

@@ -1,40 +1,37 @@
 /** Checks decoded columns: time going backwards, gaps, missing values and clipped (flat-topped) signals. */
 import { type QualityWarning, warning } from '../steps/warnings';
 
-/** Warnings about the time column; `firstLine` maps row 0 to its line in the file. */
+/** Warnings about the time column (backwards, missing, gaps) from one pass; `firstLine` maps row 0 to its line. */
 export function checkTime(t: Float64Array, firstLine: number): QualityWarning[] {
   const out: QualityWarning[] = [];
+  // The typical step, from a sparse sample, so gaps can be found in the same pass.
+  const probe: number[] = [];
+  const stride = Math.max(1, Math.floor(t.length / 2000));
+  for (let i = stride; i < t.length; i += stride) probe.push((t[i] - t[i - stride]) / stride);
+  probe.sort((a, b) => a - b);
+  const gapStep = t.length > 10 ? 3 * probe[probe.length >> 1] : Infinity;
   let backwards = 0;
   let firstBack = -1;
   let nan = 0;
+  let gaps = 0;
+  let firstGap = -1;
   for (let i = 1; i < t.length; i++) {
-    if (Number.isNaN(t[i])) nan++;
-    else if (t[i] <= t[i - 1]) {
+    const d = t[i] - t[i - 1];
+    if (d !== d) {
+      if (t[i] !== t[i]) nan++;
+    } else if (d <= 0) {
       backwards++;
       if (firstBack < 0) firstBack = i;
+    } else if (d > gapStep) {
+      gaps++;
+      if (firstGap < 0) firstGap = i;
     }
   }
   if (backwards > 0) {
     out.push(warning('TIME_NOT_MONOTONIC', `Time goes backwards or repeats ${backwards} time(s), first at line ${firstBack + firstLine}; the file may join two recordings. Export one recording per file.`));
   }
   if (nan > 0) out.push(warning('MISSING_VALUES', `${nan} time value(s) are missing; those rows are ignored.`));
-  // Gaps: steps more than 3× the median step.
-  if (t.length > 10) {
-    const probe: number[] = [];
-    const stride = Math.max(1, Math.floor(t.length / 2000));
-    for (let i = stride; i < t.length; i += stride) probe.push((t[i] - t[i - stride]) / stride);
-    probe.sort((a, b) => a - b);
-    const step = probe[probe.length >> 1];
-    let gaps = 0;
-    let firstGap = -1;
-    for (let i = 1; i < t.length; i++) {
-      if (t[i] - t[i - 1] > 3 * step) {
-        gaps++;
-        if (firstGap < 0) firstGap = i;
-      }
-    }
-    if (gaps > 0) out.push(warning('TIME_GAPS', `The recording has ${gaps} gap(s) in time, first at line ${firstGap + firstLine}; the logger dropped samples. Record again at a rate it can keep up with.`));
-  }
+  if (gaps > 0) out.push(warning('TIME_GAPS', `The recording has ${gaps} gap(s) in time, first at line ${firstGap + firstLine}; the logger dropped samples. Record again at a rate it can keep up with.`));
   return out;
 }
 

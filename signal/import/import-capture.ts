@@ -67,7 +67,10 @@ export class CaptureImporter {
       auto.roles = options.mapping;
     }
     this.mapping = auto;
-    const bytesPerRow = Math.max(8, (head.length - this.sniff.dataOffset) / Math.max(1, head.subarray(this.sniff.dataOffset).filter((b) => b === 10).length));
+    const sample = head.subarray(this.sniff.dataOffset, Math.min(head.length, SNIFF_BYTES));
+    let newlines = 0;
+    for (let i = 0; i < sample.length; i++) if (sample[i] === 10) newlines++;
+    const bytesPerRow = Math.max(8, sample.length / Math.max(1, newlines));
     this.parser = new NumberParser({
       delimiter: this.sniff.delimiter,
       decimalComma: this.sniff.decimalComma,

@@ -1,10 +1,9 @@
 /** Cylinder-1 sync pulses (ignition or injector trigger, cam sensor): rising edges through a hysteresis band. */
-import { quantileProbe } from '../dsp/stats';
+import { quantilesProbe } from '../dsp/stats';
 
 /** Times (s) of the sync channel's rising edges, at least `minSpacingS` apart; empty when there is no clear pulse. */
 export function findSyncPulses(t: Float64Array, v: Float64Array, minSpacingS: number): number[] {
-  const lo = quantileProbe(v, 0.05);
-  const hi = quantileProbe(v, 0.999);
+  const [lo, hi] = quantilesProbe(v, [0.05, 0.999], 40_000);
   if (!(hi - lo > 0.5)) return [];
   const up = lo + 0.6 * (hi - lo);
   const down = lo + 0.4 * (hi - lo);
