@@ -176,9 +176,11 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
     const quick = solveAt(m, o, centre, false, shapes());
     return quick ? summarise(m, o, family, choice, centre, quick, null) : null;
   }
-  bestRss = solveAt(m, o, centre, false, shapes())?.rss ?? Infinity;
-  for (let p = centre - step; p <= centre + step; p += 1) if (p !== centre) tryPhase(p);
+  // 1° steps on every second row, then quarter degrees on all rows.
+  bestRss = solveAt(m, o, centre, false, shapes(), 2)?.rss ?? Infinity;
+  for (let p = centre - step; p <= centre + step; p += 1) if (p !== centre) tryPhase(p, 2);
   const centre2 = bestPhase;
+  bestRss = solveAt(m, o, centre2, false, shapes())?.rss ?? Infinity;
   for (let p = centre2 - 0.75; p <= centre2 + 0.75; p += 0.25) if (p !== centre2) tryPhase(p);
 
   // Cylinders reading below 97 % of the median take, in turn, the leak shape with the smallest residual; two
@@ -187,7 +189,8 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   const coef = first ? Array.from({ length: n }, (_, c) => first.coef[2 + c]) : [];
   const ref = [...coef].sort((a, b) => a - b)[n >> 1];
   const suspects = coef.map((k, c) => (k < 0.97 * ref ? c : -1)).filter((c) => c >= 0);
-  for (let pass = 0; pass < 2; pass++) {
+  // A second pass only matters when neighbours can trade residual with each other.
+  for (let pass = 0; pass < (suspects.length > 1 ? 2 : 1); pass++) {
     for (const c of suspects) {
       let bestF = choice[c];
       for (let f = 0; f < family.length; f++) {
