@@ -35,27 +35,29 @@ export function checkTime(t: Float64Array, firstLine: number): QualityWarning[] 
   return out;
 }
 
-/** Share of samples sitting in flat runs (≥ 5 samples) at the column's extreme value. */
+/** Share of samples sitting in flat runs (≥ 5 samples) at the column's extreme value, in one pass. */
 export function clippedShare(v: Float64Array): number {
   let hi = -Infinity;
   let lo = Infinity;
-  for (let i = 0; i < v.length; i++) {
-    const x = v[i];
-    if (x > hi) hi = x;
-    if (x < lo) lo = x;
-  }
-  if (!(hi > lo)) return 0;
   let flat = 0;
   let run = 0;
   for (let i = 0; i < v.length; i++) {
-    if (v[i] === hi) run++;
-    else {
+    const x = v[i];
+    if (x > hi) {
+      // A new maximum: runs at the old one no longer count.
+      hi = x;
+      flat = 0;
+      run = 1;
+    } else if (x === hi) {
+      run++;
+    } else {
       if (run >= 5) flat += run;
       run = 0;
     }
+    if (x < lo) lo = x;
   }
   if (run >= 5) flat += run;
-  return flat / v.length;
+  return hi > lo ? flat / v.length : 0;
 }
 
 export function checkValues(name: string, v: Float64Array, clipMatters: boolean, nan: number): QualityWarning[] {

@@ -93,7 +93,7 @@ export function runCurrentMethod(
   const hi = quantile(slice, 0.99);
   // I_stall by the best fit of the sealed shapes, then the full fit (leak shapes) at that value.
   let best: { motion: CrankMotion; score: number } | null = null;
-  for (const k of [1.3, 1.7, 2.3, 3.2]) {
+  for (const k of [1.4, 2.0, 3.0]) {
     const motion = motionFromCurrent(it, ic, marks, markAngles, k * hi);
     const quick = runFit(motion, setup, identity === 'sync', rotation, undefined, false);
     if (quick && (!best || quick.r2 > best.score)) best = { motion, score: quick.r2 };
