@@ -135,9 +135,9 @@ export class CaptureImporter {
           for (let i = 0; i < v.length; i++) v[i] *= k;
         }
         warnings.push(...checkTime(v, firstLine));
-        fillMissing(v);
+        if (parsed.missingValues > 0) fillMissing(v);
       } else {
-        const missing = fillMissing(v);
+        const missing = parsed.missingValues > 0 ? fillMissing(v) : 0;
         warnings.push(...checkValues(`${s.columns[c].name}`, v, role === 'current' || role === 'rpm', missing));
       }
       columns[role] = v;

@@ -32,6 +32,8 @@ export interface ParsedColumns {
   firstRaggedLine: number | null;
   /** The file ended in the middle of a row (no final newline and a short row). */
   truncatedLastLine: boolean;
+  /** Fields stored as NaN (empty, text, or missing from a short row): 0 means every column is complete. */
+  missingValues: number;
 }
 
 const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i);
@@ -64,6 +66,7 @@ export class NumberParser {
   private firstBad: FieldProblem | null = null;
   private ragged = 0;
   private firstRagged: number | null = null;
+  private missing = 0;
 
   constructor(o: NumberParserOptions) {
     this.delim = o.delimiter.charCodeAt(0);
@@ -114,6 +117,7 @@ export class NumberParser {
             cols = this.cols;
             cap = this.cap;
           }
+          if (!any) this.missing++;
           const v = any ? (frac === 0 ? mant : mant / POW10[frac]) : NaN;
           cols[field][rows] = neg ? -v : v;
           mant = 0;
@@ -249,6 +253,7 @@ export class NumberParser {
 
   private endField(): void {
     const v = this.value();
+    if (v !== v) this.missing++;
     if (this.field < this.width) {
       this.ensure();
       this.cols[this.field][this.rows] = v;
@@ -287,6 +292,7 @@ export class NumberParser {
       this.ragged++;
       if (this.firstRagged === null) this.firstRagged = this.line;
       for (let f = this.field; f < this.width; f++) this.cols[f][this.rows] = NaN;
+      this.missing += Math.max(0, this.width - this.field);
     }
     if (this.rowBad) this.badFields++;
     this.rows++;
@@ -328,6 +334,7 @@ export class NumberParser {
       raggedRows: this.ragged,
       firstRaggedLine: this.firstRagged,
       truncatedLastLine: truncated,
+      missingValues: this.missing,
     };
   }
 }
