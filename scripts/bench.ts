@@ -49,8 +49,8 @@ function measure(label: string, samples: number, repeats: number): Row {
   return row;
 }
 
-const r1 = measure('1m', 1_000_000, 5);
-const r10 = measure('10m', 10_000_000, 3);
+const r1 = measure('1m', 1_000_000, 7);
+const r10 = measure('10m', 10_000_000, 5);
 
 // Decimation of the full 10M range to 2,000 columns against one plain pass over the same array.
 const n = 10_000_000;
