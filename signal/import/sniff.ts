@@ -7,6 +7,8 @@ import { CaptureError } from '../errors';
 import { type HeaderCell, NUMBER, parseHeaderCell } from './header';
 
 export const SNIFF_BYTES = 64 * 1024;
+/** More columns than this is not a capture (and would cost a column array each). */
+export const MAX_COLUMNS = 64;
 
 export interface SniffResult {
   delimiter: string;
@@ -66,6 +68,9 @@ export function sniffCapture(head: Uint8Array): SniffResult {
   }
   const decimalComma = delimiter !== ',' && /\d,\d/.test(block);
   const width = clean[firstDataLine].split(delimiter).length;
+  if (width > MAX_COLUMNS) {
+    throw new CaptureError('NO_NUMERIC_DATA', `Line ${firstDataLine + 1} has ${width} columns; a capture has a time column and a few channels. Export one value per column and one sample per line.`, { line: firstDataLine + 1 });
+  }
 
   let headerLine = -1;
   let columns: HeaderCell[] = Array.from({ length: width }, (_, i) => ({ name: `Column ${i + 1}`, unit: null }));
