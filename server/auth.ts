@@ -9,6 +9,7 @@ import { nextCookies } from 'better-auth/next-js';
 import { organization } from 'better-auth/plugins';
 import { getDb } from '@/db/client';
 import * as schema from '@/db/schema';
+import { recordAudit } from '@/db/queries/audit';
 import { sendMail } from './mail';
 import { ac, roles } from './permissions';
 
@@ -75,6 +76,16 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
       },
     },
     session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24 },
+    databaseHooks: {
+      session: {
+        create: {
+          // Every sign-in lands in the audit log (no shop yet: a user may belong to several).
+          after: async (session) => {
+            await recordAudit(null, session.userId, 'auth.sign-in', { type: 'session', id: session.id }, { ip: session.ipAddress ?? null, userAgent: session.userAgent ?? null });
+          },
+        },
+      },
+    },
     plugins: [
       organization({
         ac,

@@ -1,0 +1,16 @@
+/** npm run db:backup -- [file]: the embedded database to a gzip tarball (or pg_dump with DATABASE_URL). */
+import { spawnSync } from 'node:child_process';
+import { backupEmbedded } from '../db/backup';
+import { dataDir } from '../db/client';
+
+const file = process.argv[2] ?? `crankprint-backup-${new Date().toISOString().slice(0, 19).replace(/[:T]/g, '-')}.${process.env.DATABASE_URL ? 'dump' : 'tar.gz'}`;
+if (process.env.DATABASE_URL) {
+  const r = spawnSync('pg_dump', ['--format=custom', `--file=${file}`, process.env.DATABASE_URL], { stdio: 'inherit' });
+  process.exit(r.status ?? 1);
+}
+backupEmbedded(dataDir(), file)
+  .then((bytes) => console.log(`Backed up ${dataDir()} to ${file} (${(bytes / 1048576).toFixed(1)} MB).`))
+  .catch((e) => {
+    console.error((e as Error).message);
+    process.exit(2);
+  });
