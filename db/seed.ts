@@ -9,6 +9,7 @@ import { hashPassword } from 'better-auth/crypto';
 import { sql } from 'drizzle-orm';
 import { analyzeBytes } from '../signal';
 import { compressPiece, insertChunks } from './chunks';
+import { engineSettings, settingsForEngine } from './validators/analysis';
 import type { Db } from './client';
 import { accounts, analyses, captures, jobs, members, organizations, users, vehicles, type EngineSpec } from './schema';
 import { vinCheckDigit } from './validators/vin';
@@ -49,17 +50,7 @@ const DEMO_JOBS = [
   { ro: 'RO-24099', vehicle: 4, odometer: 61_020, concern: 'Ticking noise and a shake at idle after a timing belt job elsewhere.', status: 'done', sample: 'i4-healthy-current-sync.csv' },
 ];
 
-/** Default analysis settings for a vehicle's engine, as the workspace starts them. */
-function defaultSettings(e: EngineSpec) {
-  return {
-    engine: { cylinders: e.cylinders, firingOrder: e.firingOrder, intervalsDeg: e.intervalsDeg, layout: e.layout, numbering: e.numbering ?? 'along-crank' },
-    method: 'auto' as const,
-    lowLimitPercent: 90,
-    spreadLimitPercent: 10,
-    rotation: 0,
-    sensor: 'auto' as const,
-  };
-}
+
 
 /** Seeds the demo shop when the database has no shop yet. */
 export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
@@ -112,8 +103,8 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
       await tx.insert(captures).values({ id: captureId, shopId, jobId: job.id, fileName: j.sample, contentType: 'text/csv', sizeBytes: bytes.length, sha256, chunkCount: chunks.length, uploadedBy: ids[1], createdAt: at });
       await insertChunks(tx, captureId, chunks);
       const engine = DEMO_VEHICLES[j.vehicle].engine;
-      const settings = defaultSettings(engine);
-      const { result } = analyzeBytes(bytes, { ...settings, engine: { ...settings.engine } });
+      const settings = settingsForEngine(engine);
+      const { result } = analyzeBytes(bytes, engineSettings(settings));
       await tx.insert(analyses).values({ shopId, captureId, settings, engineVersion: result.engineVersion, fileSha256: sha256, result, verdict: result.verdict, crankingRpm: result.crankingRpm, createdBy: ids[1], createdAt: at });
     }
   });

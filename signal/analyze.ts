@@ -133,10 +133,8 @@ function toMethodResult(
     if (refit) {
       fit = refit;
       const again = summarize(run.motion, fit, n, half, isCurrent, lowLimit);
-      // Keep the first pass's rejection counts: the refit leaves those events out.
+      // Keep the first pass's rejected set: the refit leaves those events out.
       summary = { ...again, rejectedKeys: summary.rejectedKeys };
-      const counts = new Map<number, number>();
-      for (const e of summary.events) if (!e.used) counts.set(e.cylinder, (counts.get(e.cylinder) ?? 0) + 1);
     }
     warnings.push(warning('EVENTS_REJECTED', `${summary.rejectedKeys.size} compression event(s) looked malformed (a spike or dropout) and were left out.`));
   }

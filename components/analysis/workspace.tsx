@@ -10,8 +10,8 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
-import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/db/validators/analysis';
-import { type AnalysisResult, type ChannelRole, parseToothPattern } from '@/signal';
+import { type AnalysisSettingsValues, analysisSettingsSchema, engineSettings } from '@/db/validators/analysis';
+import type { AnalysisResult, ChannelRole } from '@/signal';
 import type { WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';
@@ -89,23 +89,13 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   useEffect(() => {
     if (!ready || askMapping) return;
     let current = true;
-    void analyze({
-        engine: settings.engine,
-        method: settings.method,
-        teeth: settings.teeth ? (parseToothPattern(settings.teeth) ?? undefined) : undefined,
-        lowLimitPercent: settings.lowLimitPercent,
-        spreadLimitPercent: settings.spreadLimitPercent,
-        window: settings.window,
-        rotation: settings.rotation,
-        sensor: settings.sensor,
-      })
-      .then((out) => {
-        if (!current) return;
-        if (out.ok) {
-          setResult(out.value);
-          setError(null);
-        } else setError(out.error);
-      });
+    void analyze(engineSettings(settings)).then((out) => {
+      if (!current) return;
+      if (out.ok) {
+        setResult(out.value);
+        setError(null);
+      } else setError(out.error);
+    });
     return () => {
       current = false;
     };

@@ -1,5 +1,7 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
+import { type AnalysisSettings, parseToothPattern } from '../../signal';
+import type { EngineSpec } from '../schema/shop';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'toothTimes', 'ignore'] as const;
 
@@ -34,3 +36,24 @@ export const analysisSettingsSchema = z
 
 export type AnalysisSettingsInput = z.input<typeof analysisSettingsSchema>;
 export type AnalysisSettingsValues = z.output<typeof analysisSettingsSchema>;
+
+/** The settings an analysis starts from for a vehicle's engine (the schema's defaults for the rest). */
+export function settingsForEngine(e: EngineSpec): AnalysisSettingsValues {
+  return analysisSettingsSchema.parse({
+    engine: { cylinders: e.cylinders, firingOrder: e.firingOrder, intervalsDeg: e.intervalsDeg, layout: e.layout, numbering: e.numbering ?? 'along-crank' },
+  });
+}
+
+/** The engine's own settings from stored ones: the same call in the worker, on the server and in the seed. */
+export function engineSettings(s: AnalysisSettingsValues): AnalysisSettings {
+  return {
+    engine: s.engine,
+    method: s.method,
+    teeth: s.teeth ? (parseToothPattern(s.teeth) ?? undefined) : undefined,
+    lowLimitPercent: s.lowLimitPercent,
+    spreadLimitPercent: s.spreadLimitPercent,
+    window: s.window,
+    rotation: s.rotation,
+    sensor: s.sensor,
+  };
+}

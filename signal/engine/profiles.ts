@@ -47,3 +47,8 @@ export const ENGINE_PROFILES: EngineProfile[] = [
     numbering: 'bank-by-bank',
   },
 ].map((p) => ({ ...p, intervalsDeg: p.intervalsDeg ?? even(p.cylinders) }) as EngineProfile);
+
+/** A profile's engine with the layout and numbering spelled out, as settings and forms take it. */
+export function profileEngine(p: EngineProfile) {
+  return { cylinders: p.cylinders, firingOrder: p.firingOrder, intervalsDeg: p.intervalsDeg, layout: p.layout ?? 'inline', numbering: p.numbering ?? 'along-crank' };
+}

@@ -7,7 +7,7 @@ import { type EngineSetup } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { median } from '../dsp/stats';
 import { windowFromSpeed } from '../steps/cranking-window';
-import { motionFromSpeed, motionFromTeeth } from '../steps/crank-motion';
+import { meanRpm, motionFromSpeed, motionFromTeeth } from '../steps/crank-motion';
 import { runFit } from '../steps/run-fit';
 import { findSyncPulses } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../steps/warnings';
@@ -83,7 +83,7 @@ export function runCrankSpeedMethod(
   }
   const fit = runFit(motion, setup, identity === 'sync', rotation);
   if (!fit) return fail('TOO_FEW_CYCLES', 'The crank signal holds too little cranking to fit; crank for 5–10 s.');
-  const rpm = meanRpm(motion.t, motion.thetaDeg);
+  const rpm = meanRpm(motion);
   return { ok: true, run: { motion, fit, window, rpm, identity, warnings } };
 }
 
@@ -109,17 +109,12 @@ export function runSpeedChannelMethod(
   const motion = motionFromSpeed(time, rpmChannel, indexAtTime(time, window.startS), indexAtTime(time, window.endS), step);
   const fit = runFit(motion, setup, false, rotation);
   if (!fit) return { ok: false, warnings: [warning('TOO_FEW_CYCLES', 'The speed log holds too little cranking to fit; crank for 5–10 s.')] };
-  return { ok: true, run: { motion, fit, window, rpm: meanRpm(motion.t, motion.thetaDeg), identity: 'assumed', warnings: [] } };
+  return { ok: true, run: { motion, fit, window, rpm: meanRpm(motion), identity: 'assumed', warnings: [] } };
 }
 
 function sampleSpeeds(s: Float64Array): Float64Array {
   const sorted = Float64Array.from(s).sort();
   return sorted.subarray(Math.floor(sorted.length * 0.02), Math.ceil(sorted.length * 0.98));
-}
-
-function meanRpm(t: Float64Array, theta: Float64Array): number {
-  const last = t.length - 1;
-  return last > 0 ? (theta[last] - theta[0]) / 6 / (t[last] - t[0]) : 0;
 }
 
 function angleAtTime(t: Float64Array, theta: Float64Array, time: number): number {

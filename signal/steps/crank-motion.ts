@@ -16,6 +16,13 @@ export interface CrankMotion {
 
 const TWO_PI = 2 * Math.PI;
 
+/** Mean crank speed over the rows, rpm, from the angle covered. */
+export function meanRpm(m: Pick<CrankMotion, 't' | 'thetaDeg'>): number {
+  const last = m.t.length - 1;
+  const dt = last > 0 ? m.t[last] - m.t[0] : 0;
+  return dt > 0 ? (m.thetaDeg[last] - m.thetaDeg[0]) / 6 / dt : 0;
+}
+
 /** Rows from tooth edges: speed over each tooth interval, acceleration by central difference. */
 export function motionFromTeeth(times: Float64Array, angleDeg: Float64Array, fromS: number, toS: number): CrankMotion {
   const m = times.length - 1;

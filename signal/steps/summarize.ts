@@ -5,7 +5,7 @@
 import { median, stdDev } from '../dsp/stats';
 import type { CylinderResult, CylinderStatus, EventMark } from '../types';
 import type { CrankMotion } from './crank-motion';
-import type { FitEvent, TorqueFit } from './torque-fit';
+import { eventKey, type FitEvent, type TorqueFit } from './torque-fit';
 
 export interface Summary {
   cylinders: CylinderResult[];
@@ -83,7 +83,7 @@ export function summarize(
     // Far from the cylinder's own figure by more than 40 points: a spike or dropout, not compression.
     const own = (100 * est[c]) / ref;
     if (Math.abs(pct - own) > 40) {
-      rejectedKeys.add(`${ev.position}:${ev.tdcDeg.toFixed(1)}`);
+      rejectedKeys.add(eventKey(ev));
       rejectedCount[c]++;
       events.push({ timeS, cylinder: ev.cylinder, used: false });
       continue;

@@ -6,7 +6,7 @@
  */
 import { GENERIC_GAS, LEAK_FAMILY_PER_S, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
 import { NormalEquations } from '../dsp/solve';
-import type { CrankMotion } from './crank-motion';
+import { type CrankMotion, meanRpm } from './crank-motion';
 
 export interface FitEvent {
   /** Cylinder number, 1-based. */
@@ -137,13 +137,6 @@ function solveAt(m: CrankMotion, o: FitOptions, phaseDeg: number, perEvent: bool
   for (let c = 0; c < next; c++) if (ne.xtx[c * next + c] === 0) ne.xtx[c * next + c] = 1;
   const solved = ne.solve();
   return solved ? { coef: solved.coef, rss: solved.rss, events, columnOf } : null;
-}
-
-/** Mean crank speed over the rows, rpm, from the angle covered. */
-function meanRpm(m: CrankMotion): number {
-  const last = m.t.length - 1;
-  const dt = m.t[last] - m.t[0];
-  return dt > 0 ? (m.thetaDeg[last] - m.thetaDeg[0]) / 6 / dt : 0;
 }
 
 /**

@@ -5,10 +5,10 @@ import { createProfile, listProfiles } from '@/db/queries/profiles';
 import { engineSchema } from '@/db/validators/vehicle';
 import { engineSpec } from '@/db/queries/vehicles';
 import { withShop } from '@/server/with-shop';
-import { ENGINE_PROFILES } from '@/signal/engine/profiles';
+import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
 
 export const GET = withShop({ profile: ['read'] }, z.object({}), async ({ shop }) => ({
-  builtIn: ENGINE_PROFILES.map((p) => ({ key: p.key, label: p.label, engine: { cylinders: p.cylinders, firingOrder: p.firingOrder, intervalsDeg: p.intervalsDeg, layout: p.layout ?? 'inline', numbering: p.numbering ?? 'along-crank' } })),
+  builtIn: ENGINE_PROFILES.map((p) => ({ key: p.key, label: p.label, engine: profileEngine(p) })),
   shop: await listProfiles(shop.id),
 }));
 

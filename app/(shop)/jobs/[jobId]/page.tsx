@@ -6,6 +6,7 @@ import { latestAnalysesForJob, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
 import { listApprovalsForJob, listRevisions } from '@/db/queries/reports';
 import { buttonClass } from '@/components/ui/button';
+import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
 import type { AnalysisResult } from '@/signal';
 import { CaptureUpload } from './_components/capture-upload';
 import { MiniBars } from './_components/mini-bars';
@@ -13,7 +14,6 @@ import { pageMember } from '@/server/page-context';
 
 export const metadata: Metadata = { title: 'Job' };
 
-const STATUS_LABEL: Record<string, string> = { open: 'Open', waiting: 'Waiting on customer', done: 'Done' };
 
 export default async function JobPage({ params }: { params: Promise<{ jobId: string }> }) {
   const { jobId } = await params;
@@ -36,7 +36,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           <h1 className="text-2xl font-bold">
             <span className="figures">{job.repairOrder}</span> · {[v.year, v.make, v.model].filter(Boolean).join(' ')}
           </h1>
-          <span className="rounded-md bg-raised px-2 py-1 font-bold">{STATUS_LABEL[job.status] ?? job.status}</span>
+          <span className="rounded-md bg-raised px-2 py-1 font-bold">{JOB_STATUS_LABEL[job.status] ?? job.status}</span>
         </div>
         <dl className="mt-3 grid gap-3 sm:grid-cols-4">
           <div>

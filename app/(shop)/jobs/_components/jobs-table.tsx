@@ -6,6 +6,7 @@ import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useEffect, useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Input, Notice } from '@/components/ui/field';
+import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
 import type { JobRow } from '@/components/data/jobs/types';
 import { useJobs } from '@/components/data/jobs/use-jobs';
 
@@ -16,7 +17,6 @@ const FILTERS = [
   { value: 'done', label: 'Done' },
 ] as const;
 
-const STATUS_LABEL: Record<string, string> = { open: 'Open', waiting: 'Waiting on customer', done: 'Done' };
 
 function vehicleText(v: JobRow['vehicle']) {
   return [v.year, v.make, v.model].filter(Boolean).join(' ');
@@ -44,7 +44,7 @@ const columns: ColumnDef<JobRow>[] = [
     ),
   },
   { accessorKey: 'concern', header: 'Concern', cell: (c) => <span className="line-clamp-2">{c.row.original.concern}</span> },
-  { accessorKey: 'status', header: 'Status', cell: (c) => <span className="rounded-md bg-raised px-2 py-1 text-sm font-bold">{STATUS_LABEL[c.row.original.status]}</span> },
+  { accessorKey: 'status', header: 'Status', cell: (c) => <span className="rounded-md bg-raised px-2 py-1 text-sm font-bold">{JOB_STATUS_LABEL[c.row.original.status]}</span> },
   {
     accessorKey: 'updatedAt',
     header: 'Updated',

@@ -7,7 +7,7 @@ import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getCapture, listAnalyses, readCaptureBytes, saveAnalysis } from '@/db/queries/captures';
 import { analysisSettingsSchema } from '@/db/validators/analysis';
-import { HttpError, notFound } from '@/server/http';
+import { notFound } from '@/server/http';
 import { runAnalysis } from '@/server/run-analysis';
 import { withShop } from '@/server/with-shop';
 import { isCaptureError } from '@/signal';
@@ -51,6 +51,5 @@ export const POST = withShop({ analysis: ['save'] }, z.object({ captureId: z.str
     createdBy: user.id,
   });
   await recordAudit(shop.id, user.id, 'analysis.save', { type: 'analysis', id: analysis.id }, { captureId: capture.id, verdict: result.verdict });
-  if (!analysis) throw new HttpError(500, 'INTERNAL', 'The analysis was not stored; try again.');
   return { analysis };
 });

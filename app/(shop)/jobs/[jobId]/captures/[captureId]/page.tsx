@@ -6,9 +6,9 @@ import { Workspace } from '@/components/analysis/workspace';
 import { getCapture, listAnalyses } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
 import { listProfiles } from '@/db/queries/profiles';
-import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, analysisSettingsSchema, settingsForEngine } from '@/db/validators/analysis';
 import { pageMember } from '@/server/page-context';
-import { ENGINE_PROFILES } from '@/signal/engine/profiles';
+import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
 
 export const metadata: Metadata = { title: 'Analysis' };
 
@@ -18,16 +18,13 @@ export default async function CapturePage({ params }: { params: Promise<{ jobId:
   const [job, capture] = await Promise.all([getJob(m.shop.id, jobId), getCapture(m.shop.id, captureId)]);
   if (!job || !capture || capture.jobId !== job.id) notFound();
   const history = await listAnalyses(m.shop.id, capture.id);
-  const e = job.vehicle.engine;
-  const fromVehicle: AnalysisSettingsValues = analysisSettingsSchema.parse({
-    engine: { cylinders: e.cylinders, firingOrder: e.firingOrder, intervalsDeg: e.intervalsDeg, layout: e.layout, numbering: e.numbering ?? 'along-crank' },
-  });
+  const fromVehicle = settingsForEngine(job.vehicle.engine);
   const saved = history[0] ? analysisSettingsSchema.safeParse(history[0].settings) : null;
   const initial = saved?.success ? saved.data : fromVehicle;
   const own = await listProfiles(m.shop.id);
   const profiles = [
     ...own.map((p) => ({ key: `shop-${p.id}`, label: `${p.label} (shop)`, engine: { ...p.engine, numbering: p.engine.numbering ?? 'along-crank' } })),
-    ...ENGINE_PROFILES.map((p) => ({ key: p.key, label: p.label, engine: { cylinders: p.cylinders, firingOrder: p.firingOrder, intervalsDeg: p.intervalsDeg, layout: p.layout ?? 'inline', numbering: p.numbering ?? 'along-crank' } })),
+    ...ENGINE_PROFILES.map((p) => ({ key: p.key, label: p.label, engine: profileEngine(p) })),
   ] as { key: string; label: string; engine: AnalysisSettingsValues['engine'] }[];
   return (
     <div className="flex flex-col gap-4">
