@@ -10,7 +10,7 @@ export default defineConfig({
   workers: 1,
   timeout: 90_000,
   expect: { timeout: 15_000 },
-  reporter: [['list'], ['json', { outputFile: 'artifacts/playwright.json' }]],
+  reporter: [['list'], ['json', { outputFile: process.env.PLAYWRIGHT_JSON_OUTPUT_NAME || 'artifacts/playwright.json' }]],
   use: {
     baseURL: BASE_URL,
     extraHTTPHeaders: { origin: BASE_URL },

@@ -1,7 +1,7 @@
 /**
  * The one database client per process. Embedded PGlite in the data directory by default — opened lazily on
  * first use, kept on globalThis so every route bundle shares it, migrated once behind one promise, guarded by a
- * PID lock and closed on SIGINT/SIGTERM. With DATABASE_URL it is a PostgreSQL server through node-postgres,
+ * PID lock and closed on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a PostgreSQL server through node-postgres,
  * with the same migrations.
  */
 import { mkdirSync } from 'node:fs';
@@ -72,9 +72,40 @@ export function dataDir(): string {
   return process.env.CRANKPRINT_DATA_DIR || '.data';
 }
 
-type Holder = { ready?: Promise<Database>; hooked?: boolean };
+type Holder = { ready?: Promise<Database>; hooked?: boolean; working: number; drained?: () => void; closing?: boolean };
 const g = globalThis as unknown as { __crankprintDb?: Holder };
-const holder: Holder = (g.__crankprintDb ??= {});
+const holder: Holder = (g.__crankprintDb ??= { working: 0 });
+
+/**
+ * Marks a request as using the database until the returned function is called. On SIGTERM new requests are
+ * turned away (see {@link shuttingDown}), the requests under way finish (up to 10 s), and only then is the
+ * database closed. `npm start` sets NEXT_MANUAL_SIG_HANDLE so that Next.js leaves the signal to this.
+ */
+export function beginWork(): () => void {
+  holder.working++;
+  let done = false;
+  return () => {
+    if (done) return;
+    done = true;
+    if (--holder.working === 0) holder.drained?.();
+  };
+}
+
+/** True once SIGTERM or SIGINT has arrived: handlers answer 503 rather than start work. */
+export function shuttingDown(): boolean {
+  return !!holder.closing;
+}
+
+function drain(timeoutMs: number): Promise<void> {
+  if (holder.working === 0) return Promise.resolve();
+  return new Promise((resolve) => {
+    const timer = setTimeout(resolve, timeoutMs);
+    holder.drained = () => {
+      clearTimeout(timer);
+      resolve();
+    };
+  });
+}
 
 /** The process's database, opened and migrated on first use. Every handler awaits this before a query. */
 export function getDatabase(): Promise<Database> {
@@ -83,7 +114,11 @@ export function getDatabase(): Promise<Database> {
     if (!holder.hooked) {
       holder.hooked = true;
       const shutdown = (signal: NodeJS.Signals) => {
-        d.close()
+        holder.closing = true;
+        // A moment for requests already accepted to reach a handler (and be turned away), then the drain.
+        new Promise((r) => setTimeout(r, 300))
+          .then(() => drain(10_000))
+          .then(() => d.close())
           .catch(() => {})
           .finally(() => process.exit(signal === 'SIGINT' ? 130 : 143));
       };

@@ -42,6 +42,16 @@ const RATE_LIMIT = {
   },
 };
 
+/** Loopback http is the only place cookies may travel without TLS (a trial or test on this machine). */
+const LOOPBACK = /^http:\/\/(127\.0\.0\.1|localhost|\[::1\])(:\d+)?\/?$/;
+const SECURE_COOKIES = APP_URL.startsWith('https:') || (process.env.NODE_ENV === 'production' && !LOOPBACK.test(APP_URL));
+/** Proxies whose X-Forwarded-For hop is trusted, so rate limits count per client (README: several instances). */
+const TRUSTED_PROXIES = (process.env.CRANKPRINT_TRUSTED_PROXIES ?? '').split(',').map((s) => s.trim()).filter(Boolean);
+
+if (SECURE_COOKIES && !APP_URL.startsWith('https:')) {
+  console.warn(`BETTER_AUTH_URL is ${APP_URL}: sign-in cookies are marked Secure in production and browsers send them only over HTTPS; serve Crankprint over HTTPS.`);
+}
+
 function build(db: Awaited<ReturnType<typeof getDb>>) {
   return betterAuth({
     rateLimit: RATE_LIMIT,
@@ -51,6 +61,14 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
     database: drizzleAdapter(db, { provider: 'pg', schema, usePlural: true }),
     disabledPaths: SERVER_ONLY_PATHS,
     trustedOrigins: [APP_URL],
+    advanced: {
+      // On everywhere, tests included (better-auth would skip them under a test runner).
+      disableOriginCheck: false,
+      disableCSRFCheck: false,
+      useSecureCookies: SECURE_COOKIES,
+      cookiePrefix: 'crankprint',
+      ipAddress: { trustedProxies: TRUSTED_PROXIES },
+    },
     emailAndPassword: {
       enabled: true,
       requireEmailVerification: true,

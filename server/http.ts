@@ -3,13 +3,15 @@ import { NextResponse } from 'next/server';
 import type { ZodError } from 'zod';
 
 export interface ApiErrorBody {
-  error: { code: string; message: string; fields?: Record<string, string> };
+  error: { code: string; message: string; fields?: Record<string, string>; [detail: string]: unknown };
 }
 
 export class HttpError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields?: Record<string, string>;
+  /** More about the error, merged into the body's `error` object (e.g. the engine's line and column). */
+  detail?: Record<string, unknown>;
   constructor(status: number, code: string, message: string, fields?: Record<string, string>) {
     super(message);
     this.status = status;
@@ -32,5 +34,5 @@ export function fieldErrors(e: ZodError): Record<string, string> {
 }
 
 export function errorResponse(e: HttpError): NextResponse<ApiErrorBody> {
-  return NextResponse.json({ error: { code: e.code, message: e.message, fields: e.fields } }, { status: e.status });
+  return NextResponse.json({ error: { ...e.detail, code: e.code, message: e.message, fields: e.fields } }, { status: e.status });
 }

@@ -6,10 +6,11 @@ import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { type NextRequest, NextResponse } from 'next/server';
 import { z } from 'zod';
-import { getDb } from '@/db/client';
+import { beginWork, getDb, shuttingDown } from '@/db/client';
 import { members, organizations } from '@/db/schema';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
+import { checkOrigin } from './origin';
 import { can, type Permission, type RoleName } from './permissions';
 import { allow, clientKey, PUBLIC_LIMIT_PER_MIN } from './rate-limit';
 
@@ -112,7 +113,9 @@ function describe(permission: Permission): string {
  */
 export function withShop<S extends z.ZodType>(permission: Permission, schema: S, handler: Handler<z.infer<S>>, options: { rawBody?: boolean } = {}) {
   return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
+    const done = beginWork();
     try {
+      admit(req);
       const session = await requireSession(req);
       const m = await resolveMembership(session);
       const role = m.role as RoleName;
@@ -132,7 +135,12 @@ export function withShop<S extends z.ZodType>(permission: Permission, schema: S,
       if (out instanceof Response) return out;
       return NextResponse.json(out ?? { ok: true });
     } catch (e) {
-      return handleError(e);
+      const res = handleError(e);
+      // A streamed body may be refused part-read: the connection cannot carry another request after it.
+      if (options.rawBody) res.headers.set('connection', 'close');
+      return res;
+    } finally {
+      done();
     }
   };
 }
@@ -140,7 +148,9 @@ export function withShop<S extends z.ZodType>(permission: Permission, schema: S,
 /** For routes that need a signed-in user but no shop yet (creating a shop). */
 export function withSession<S extends z.ZodType>(schema: S, handler: (ctx: SessionContext & { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
   return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
+    const done = beginWork();
     try {
+      admit(req);
       const session = await requireSession(req);
       const input = await parseInput(schema, req, (await context.params) ?? {});
       const out = await handler({ ...session, input, req });
@@ -148,8 +158,16 @@ export function withSession<S extends z.ZodType>(schema: S, handler: (ctx: Sessi
       return NextResponse.json(out ?? { ok: true });
     } catch (e) {
       return handleError(e);
+    } finally {
+      done();
     }
   };
+}
+
+/** Before any work: a request from another site is refused, and none is started while the server stops. */
+function admit(req: Request): void {
+  if (shuttingDown()) throw new HttpError(503, 'RESTARTING', 'The server is restarting; try again in a few seconds.');
+  checkOrigin(req);
 }
 
 function handleError(e: unknown): Response {
@@ -164,7 +182,9 @@ function handleError(e: unknown): Response {
  */
 export function withPublic<S extends z.ZodType>(schema: S, handler: (ctx: { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
   return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
+    const done = beginWork();
     try {
+      admit(req);
       if (!allow(`public:${clientKey(req.headers)}`, PUBLIC_LIMIT_PER_MIN)) {
         throw new HttpError(429, 'RATE_LIMITED', 'Too many requests; wait a minute and try again.');
       }
@@ -174,6 +194,8 @@ export function withPublic<S extends z.ZodType>(schema: S, handler: (ctx: { inpu
       return NextResponse.json(out ?? { ok: true });
     } catch (e) {
       return handleError(e);
+    } finally {
+      done();
     }
   };
 }

@@ -9,7 +9,8 @@ export type CaptureErrorCode =
   | 'TOO_LARGE'
   | 'BAD_MAPPING'
   | 'BAD_SETTINGS'
-  | 'CANCELLED';
+  | 'CANCELLED'
+  | 'NOTHING_TO_ANALYSE';
 
 export class CaptureError extends Error {
   readonly code: CaptureErrorCode;

@@ -16,6 +16,7 @@ export type { EngineSetup, BankLayout, Numbering } from './engine/firing';
 export { parseToothPattern } from './teeth/tooth-angles';
 export type * from './types';
 export type { QualityWarning, WarningCode } from './steps/warnings';
+export { refusalFor, SURE_MAPPING } from './steps/screen';
 
 /** Imports and analyses a file held in memory: what the server does when it saves an analysis. */
 export function analyzeBytes(

@@ -12,6 +12,7 @@ import { Notice } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
 import { type AnalysisSettingsValues, analysisSettingsSchema, engineSettings } from '@/db/validators/analysis';
 import type { AnalysisResult, ChannelRole } from '@/signal';
+import { SURE_MAPPING } from '@/signal/steps/screen';
 import type { WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';
@@ -79,7 +80,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
     if (generation === 0) return;
     const { mapping, sampleRateHz } = loadOptions.current;
     void open(localUpload(captureId) ?? rawUrl, { mapping, sampleRateHz }).then((summary) => {
-      if (summary && summary.confidence < 0.7 && !mapping) setAskMapping(true);
+      if (summary && summary.confidence < SURE_MAPPING && !mapping) setAskMapping(true);
     });
   }, [generation, open, rawUrl, captureId]);
 

@@ -4,10 +4,10 @@
  * same corpus in the browser tests.)
  */
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyzeBytes } from '@/signal';
+import { analyzeBytes, refusalFor, SURE_MAPPING } from '@/signal';
 import { CaptureError } from '@/signal/errors';
 import { badCorpus } from './corpus';
 
@@ -28,6 +28,36 @@ describe('bad-input corpus', () => {
     } catch (e) {
       expect(e).toBeInstanceOf(CaptureError);
       expect((e as CaptureError).message.length).toBeGreaterThan(20);
+    }
+  });
+
+  // What the upload route does with each file: refused by the importer, refused for holding nothing to analyse,
+  // or — only when the importer is unsure which column is which — kept so the columns can be mapped by hand.
+  it.each(corpus.map((c) => [c.name, c] as const))('upload screen: %s', (_n, c) => {
+    let outcome: string;
+    try {
+      const { capture, result } = analyzeBytes(c.bytes, { engine });
+      const refusal = refusalFor(capture, result);
+      if (refusal) {
+        expect(refusal.code).toBe('NOTHING_TO_ANALYSE');
+        expect(refusal.message).toMatch(/\.$/);
+        outcome = 'refused';
+      } else {
+        outcome = result.events.length > 0 ? 'analysed' : 'mapping';
+        if (outcome === 'mapping') expect(capture.confidence).toBeLessThan(SURE_MAPPING);
+        else expect(result.verdict).toBe('uncertain');
+      }
+    } catch (e) {
+      expect(e).toBeInstanceOf(CaptureError);
+      outcome = 'refused';
+    }
+    expect(['refused', 'mapping', 'analysed']).toContain(outcome);
+  });
+
+  it('the upload screen keeps every sample that holds cranking', () => {
+    for (const f of readdirSync('samples').filter((n) => /\.(csv|tsv|txt)$/.test(n) && n !== 'malformed.csv')) {
+      const { capture, result } = analyzeBytes(new Uint8Array(readFileSync(join('samples', f))), { engine });
+      expect(!!refusalFor(capture, result), f).toBe(f === 'no-cranking.csv');
     }
   });
 

@@ -9,9 +9,10 @@ import { readChunks } from '@/db/chunks';
 import { openDatabase } from '@/db/client';
 import { captures } from '@/db/schema';
 import { seedDemoIfEmpty } from '@/db/seed';
+import { createDatabase } from '../../scripts/pg-server.mjs';
 
-const counts = async (dir: string) => {
-  const d = await openDatabase({ dataDir: dir });
+const counts = async (at: string) => {
+  const d = await openDatabase(at.startsWith('postgres') ? { url: at } : { dataDir: at });
   const [{ n }] = await d.db.select({ n: sql<number>`(select count(*) from jobs) + (select count(*) from analyses) + (select count(*) from capture_chunks)` }).from(sql`(select 1) as one`);
   const [c] = await d.db.select().from(captures).limit(1);
   const bytes = await readChunks(d.db, c.id, c.sizeBytes);
@@ -37,5 +38,21 @@ describe('db:backup and db:restore', () => {
     const again = spawnSync('npx', ['tsx', 'scripts/db-restore.ts', file], { env: { ...env, CRANKPRINT_DATA_DIR: dst }, encoding: 'utf8' });
     expect(again.status).toBe(2);
     expect(again.stderr).toMatch(/not empty/);
+  }, 120_000);
+
+  // With DATABASE_URL the same commands are pg_dump and pg_restore (the PostgreSQL pass of `npm test`).
+  it.runIf(!!process.env.CRANKPRINT_TEST_PG_URL)('round-trip a PostgreSQL database with pg_dump and pg_restore', async () => {
+    const src = await createDatabase(process.env.CRANKPRINT_TEST_PG_URL!, 'backup_src');
+    const dst = await createDatabase(process.env.CRANKPRINT_TEST_PG_URL!, 'backup_dst');
+    const d = await openDatabase({ url: src });
+    await seedDemoIfEmpty(d.db);
+    await d.close();
+    const before = await counts(src);
+    const file = join(tmpdir(), `crankprint-${Date.now()}.dump`);
+    const b = spawnSync('npx', ['tsx', 'scripts/db-backup.ts', file], { env: { ...process.env, DATABASE_URL: src }, encoding: 'utf8' });
+    expect(b.status, b.stderr).toBe(0);
+    const r = spawnSync('npx', ['tsx', 'scripts/db-restore.ts', file], { env: { ...process.env, DATABASE_URL: dst }, encoding: 'utf8' });
+    expect(r.status, r.stderr).toBe(0);
+    expect(await counts(dst)).toEqual(before);
   }, 120_000);
 });

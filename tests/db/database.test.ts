@@ -13,7 +13,7 @@ import { type Database, openDatabase } from '@/db/client';
 import { DataDirLockedError } from '@/db/lock';
 import { captureChunks, captures, jobs, members, organizations, users, vehicles } from '@/db/schema';
 import { seedDemoIfEmpty } from '@/db/seed';
-import { startPgServer, type PgServer } from '../support/pg-server';
+import { createDatabase, startPgServer, type PgServer } from '../../scripts/pg-server.mjs';
 
 const TABLES = ['users', 'sessions', 'accounts', 'verifications', 'shops', 'members', 'invitations', 'vehicles', 'jobs', 'captures', 'capture_chunks', 'analyses', 'reports', 'engine_profiles', 'audit_events'];
 
@@ -75,8 +75,11 @@ function suite(name: string, open: () => Promise<Database>) {
 
 suite('embedded PGlite (in memory)', () => openDatabase({ dataDir: 'memory' }));
 
+// In the PostgreSQL pass of `npm test` the test server is given; otherwise one is started here.
+const given = process.env.CRANKPRINT_TEST_PG_URL;
 let server: PgServer | null = null;
 const pgAvailable = (() => {
+  if (given) return true;
   try {
     server = startPgServer();
   } catch (e) {
@@ -87,7 +90,7 @@ const pgAvailable = (() => {
 })();
 afterAll(() => server?.stop());
 
-if (pgAvailable) suite('PostgreSQL server (DATABASE_URL path)', () => openDatabase({ url: server!.url }));
+if (pgAvailable) suite('PostgreSQL server (DATABASE_URL path)', async () => openDatabase({ url: await createDatabase(given ?? server!.url) }));
 else describe.skip('PostgreSQL server (DATABASE_URL path) — skipped: no server programs', () => it('skipped', () => {}));
 
 describe('the data-directory lock (STACK.md: PGlite takes no lock of its own)', () => {

@@ -34,10 +34,12 @@ const job = (ro: string) => ({
   vehicle: { make: 'Test', model: 'Matrix', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } },
 });
 let seq = 0;
+// A real capture (tooth times) with one more tooth per call, so no two uploads are the same file.
+const TEETH = readFileSync('samples/i4-60-2-tooth-times.csv', 'utf8');
 const upload = (c: APIRequestContext, jobId: string) =>
   c.post(`/api/jobs/${jobId}/captures`, {
     headers: { 'content-type': 'text/csv', 'x-file-name': `matrix-${++seq}.csv` },
-    data: Buffer.from(`Time (s),Starter current [A]\n${Array.from({ length: 50 }, (_, i) => `${i / 1000},${(i * 7 + seq) % 97}`).join('\n')}\n`),
+    data: Buffer.from(`${TEETH}${(5.28 + seq / 1e5).toFixed(7)}\n`),
   });
 const settings = { engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] } };
 const profile = { label: `Matrix profile ${seq}`, engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } };
@@ -63,6 +65,7 @@ const ROWS: Row[] = [
   { file: 'reports/[reportId]/share', method: 'GET', call: (c, f) => c.get(`/api/reports/${f.reportId}/share`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'reports/[reportId]/share', method: 'POST', call: (c, f) => c.post(`/api/reports/${f.reportId}/share`, { data: {} }), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'share-links/[linkId]', method: 'DELETE', call: (c, f) => c.delete(`/api/share-links/${f.linkId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'health', method: 'GET', call: (c) => c.get('/api/health'), expect: { anon: 200, owner: 200, technician: 200, advisor: 200, other: 200 } },
   { file: 'public/decision', method: 'POST', call: (c) => c.post('/api/public/decision', { data: { token: 'A'.repeat(43), decision: 'approve', typedName: 'Guess' } }), expect: { anon: 404, owner: 404, technician: 404, advisor: 404, other: 404 } },
   { file: 'profiles', method: 'GET', call: (c) => c.get('/api/profiles'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
   { file: 'profiles', method: 'POST', call: (c) => c.post('/api/profiles', { data: profile }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },

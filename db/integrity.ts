@@ -1,0 +1,72 @@
+/**
+ * The stored captures checked against themselves: every chunk present, the bytes the stated size, and their
+ * SHA-256 the one recorded at upload; every saved analysis pointing at its capture's hash. After a crash or a
+ * restore, this is how a shop knows its files are whole.
+ */
+import { createHash } from 'node:crypto';
+import { asc, sql } from 'drizzle-orm';
+import type { Db } from './client';
+import { readChunks } from './chunks';
+import { analyses, captures } from './schema';
+
+export interface CaptureCheck {
+  id: string;
+  fileName: string;
+  sha256: string;
+  chunkCount: number;
+  chunksFound: number;
+  ok: boolean;
+  problem?: string;
+}
+
+export interface IntegrityReport {
+  captures: CaptureCheck[];
+  analyses: { id: string; captureId: string }[];
+  /** Analyses whose recorded file hash is not their capture's. */
+  mismatchedAnalyses: string[];
+  ok: boolean;
+}
+
+export async function checkIntegrity(db: Db): Promise<IntegrityReport> {
+  const rows = await db
+    .select({
+      id: captures.id,
+      fileName: captures.fileName,
+      sha256: captures.sha256,
+      sizeBytes: captures.sizeBytes,
+      chunkCount: captures.chunkCount,
+      chunksFound: sql<number>`(select count(*)::int from capture_chunks c where c.capture_id = ${captures.id})`,
+    })
+    .from(captures)
+    .orderBy(asc(captures.createdAt));
+  const checks: CaptureCheck[] = [];
+  for (const r of rows) {
+    const check: CaptureCheck = { id: r.id, fileName: r.fileName, sha256: r.sha256, chunkCount: r.chunkCount, chunksFound: r.chunksFound, ok: true };
+    if (r.chunksFound !== r.chunkCount) {
+      check.ok = false;
+      check.problem = `${r.chunksFound} of ${r.chunkCount} chunks are stored`;
+    } else {
+      try {
+        const bytes = await readChunks(db, r.id, r.sizeBytes);
+        const hash = createHash('sha256').update(bytes).digest('hex');
+        if (hash !== r.sha256) {
+          check.ok = false;
+          check.problem = 'the stored bytes do not match the SHA-256 recorded at upload';
+        }
+      } catch (e) {
+        check.ok = false;
+        check.problem = `the stored bytes cannot be read (${(e as Error).message})`;
+      }
+    }
+    checks.push(check);
+  }
+  const saved = await db.select({ id: analyses.id, captureId: analyses.captureId, fileSha256: analyses.fileSha256 }).from(analyses);
+  const byId = new Map(checks.map((c) => [c.id, c]));
+  const mismatchedAnalyses = saved.filter((a) => byId.get(a.captureId)?.sha256 !== a.fileSha256).map((a) => a.id);
+  return {
+    captures: checks,
+    analyses: saved.map(({ id, captureId }) => ({ id, captureId })),
+    mismatchedAnalyses,
+    ok: checks.every((c) => c.ok) && mismatchedAnalyses.length === 0,
+  };
+}

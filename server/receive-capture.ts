@@ -1,0 +1,104 @@
+/**
+ * Reads an uploaded capture from the request stream: refuses what is too large (413), compressed or not text
+ * (415), hashes it (SHA-256), compresses it into 1 MB chunk pieces, and imports every byte as the analysis
+ * will, so a file that cannot be read — or holds nothing to analyse for this engine — is refused (422) before
+ * anything is stored.
+ */
+import 'server-only';
+import { createHash } from 'node:crypto';
+import { CHUNK_BYTES, compressPiece } from '@/db/chunks';
+import type { EngineSpec } from '@/db/schema';
+import { engineSettings, settingsForEngine } from '@/db/validators/analysis';
+import { analyzeCapture, CaptureImporter, isCaptureError, MAX_CAPTURE_BYTES, refusalFor } from '@/signal';
+import type { CaptureError } from '@/signal';
+import { HttpError } from './http';
+
+const TEXT_TYPES = /^(text\/(csv|plain|tab-separated-values)|application\/(csv|vnd\.ms-excel|octet-stream))\b/i;
+
+export interface ReceivedCapture {
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  chunks: Uint8Array[];
+}
+
+/** A 422 carrying the engine's sentence and, when it has one, the line and column. */
+export class UnreadableCaptureError extends HttpError {
+  constructor(e: CaptureError) {
+    super(422, 'UNREADABLE_CAPTURE', e.message);
+    this.detail = { engine: e.toJSON() };
+  }
+}
+
+const tooLarge = () => new HttpError(413, 'TOO_LARGE', 'The file is larger than 256 MB; export a shorter window around the cranking.');
+const notText = (what: string) => new HttpError(415, 'NOT_TEXT', what);
+
+/** What the first bytes say the file is, when that is not text. */
+function binaryKind(head: Uint8Array): string | null {
+  if (head[0] === 0x1f && head[1] === 0x8b) return 'This is a compressed (gzip) file; unpack it and upload the CSV or TSV text inside.';
+  if (head[0] === 0x50 && head[1] === 0x4b && head[2] === 0x03 && head[3] === 0x04) return 'This is a zip archive; unpack it and upload the CSV or TSV text inside.';
+  if ((head[0] === 0xff && head[1] === 0xfe) || (head[0] === 0xfe && head[1] === 0xff)) return 'This file is UTF-16 text; export the capture as UTF-8 (or plain ASCII) CSV or TSV.';
+  if (head.subarray(0, 64 * 1024).includes(0)) return 'This is not a plain-text capture (it holds binary data); export it as CSV or TSV text.';
+  return null;
+}
+
+/** Checks the request's headers before a byte of the body is read. */
+export function checkUploadHeaders(headers: Headers): { length: number; contentType: string } {
+  const length = Number(headers.get('content-length') ?? 0);
+  if (length > MAX_CAPTURE_BYTES) throw tooLarge();
+  const encoding = (headers.get('content-encoding') ?? 'identity').trim().toLowerCase();
+  if (encoding !== 'identity' && encoding !== '') {
+    throw notText(`The upload was sent compressed (${encoding}); send the capture as plain CSV or TSV text.`);
+  }
+  const contentType = (headers.get('content-type') ?? 'application/octet-stream').split(';')[0].trim();
+  if (!TEXT_TYPES.test(contentType)) {
+    throw notText(`A capture is a text file (CSV or TSV); this one was sent as ${contentType}. Export the capture as text from the scope or logger.`);
+  }
+  return { length, contentType };
+}
+
+export async function receiveCapture(body: ReadableStream<Uint8Array>, length: number, contentType: string, engine: EngineSpec): Promise<ReceivedCapture> {
+  const hash = createHash('sha256');
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  let pending: Uint8Array[] = [];
+  let pendingBytes = 0;
+  let importer: CaptureImporter | null = null;
+  const flush = () => {
+    if (pendingBytes === 0) return;
+    const piece = Buffer.concat(pending, pendingBytes);
+    if (!importer) {
+      const kind = binaryKind(piece);
+      if (kind) throw notText(kind);
+      importer = new CaptureImporter(piece, Math.max(length, piece.length));
+    }
+    importer.push(piece);
+    hash.update(piece);
+    chunks.push(compressPiece(piece));
+    pending = [];
+    pendingBytes = 0;
+  };
+  const reader = body.getReader();
+  try {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      size += value.length;
+      if (size > MAX_CAPTURE_BYTES) throw tooLarge();
+      pending.push(value);
+      pendingBytes += value.length;
+      if (pendingBytes >= CHUNK_BYTES) flush();
+    }
+    flush();
+    if (size === 0 || !importer) throw new HttpError(400, 'EMPTY_FILE', 'The file is empty; export the capture again.');
+    const imported = (importer as CaptureImporter).finish();
+    const result = analyzeCapture(imported.columns, engineSettings(settingsForEngine(engine)), imported.warnings);
+    const refusal = refusalFor(imported, result);
+    if (refusal) throw refusal;
+  } catch (e) {
+    await reader.cancel().catch(() => {});
+    if (isCaptureError(e)) throw new UnreadableCaptureError(e);
+    throw e;
+  }
+  return { contentType, sizeBytes: size, sha256: hash.digest('hex'), chunks };
+}
