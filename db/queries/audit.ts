@@ -1,8 +1,8 @@
 /** Audit events: who did what to which record in which shop. */
 import 'server-only';
-import { desc, eq } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, or } from 'drizzle-orm';
 import { getDb } from '../client';
-import { auditEvents } from '../schema';
+import { auditEvents, members, users } from '../schema';
 
 export async function recordAudit(
   shopId: string | null,
@@ -15,7 +15,26 @@ export async function recordAudit(
   await db.insert(auditEvents).values({ shopId, actorId, action, subjectType: subject?.type, subjectId: subject?.id, detail });
 }
 
-export async function listAudit(shopId: string, limit = 50) {
+/**
+ * The shop's activity for its owner, newest first, with who did it: the shop's own events and the sign-ins of
+ * its current members (a sign-in belongs to no shop).
+ */
+export async function listShopActivity(shopId: string, limit = 100) {
   const db = await getDb();
-  return db.select().from(auditEvents).where(eq(auditEvents.shopId, shopId)).orderBy(desc(auditEvents.createdAt)).limit(limit);
+  const memberIds = db.select({ id: members.userId }).from(members).where(eq(members.organizationId, shopId));
+  return db
+    .select({
+      id: auditEvents.id,
+      action: auditEvents.action,
+      subjectType: auditEvents.subjectType,
+      subjectId: auditEvents.subjectId,
+      detail: auditEvents.detail,
+      createdAt: auditEvents.createdAt,
+      actorName: users.name,
+    })
+    .from(auditEvents)
+    .leftJoin(users, eq(auditEvents.actorId, users.id))
+    .where(or(eq(auditEvents.shopId, shopId), and(isNull(auditEvents.shopId), eq(auditEvents.action, 'auth.sign-in'), inArray(auditEvents.actorId, memberIds))))
+    .orderBy(desc(auditEvents.createdAt))
+    .limit(limit);
 }

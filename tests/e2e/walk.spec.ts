@@ -70,6 +70,14 @@ test('sign up, verify, create a shop, invite a technician who creates a job', as
   await tech.goto('/jobs');
   await expect(tech.getByRole('link', { name: 'RO-7001' })).toBeVisible();
   await shot(tech, 'jobs');
+
+  // The owner reads who did what in the shop: the invitation, the new member's sign-in, the job.
+  await owner.goto('/shop');
+  const activity = owner.getByTestId('activity');
+  await expect(activity).toContainText(`invited ${techEmail} as technician`);
+  await expect(activity).toContainText('New Technician signed in');
+  await expect(activity).toContainText('New Technician opened a job');
+  await shot(owner, 'shop-activity');
 });
 
 test('the new-job form names each wrong field in words, and nothing is saved', async ({ page }) => {

@@ -1,4 +1,6 @@
 import type { Metadata } from 'next';
+import { ActivityList } from '@/components/activity/activity-list';
+import { listShopActivity } from '@/db/queries/audit';
 import { pageMember } from '@/server/page-context';
 import { ShopMembers } from './_components/shop-members';
 
@@ -6,10 +8,21 @@ export const metadata: Metadata = { title: 'Shop' };
 
 export default async function ShopPage() {
   const m = await pageMember('/shop');
+  const isOwner = m.member.role === 'owner';
+  const activity = isOwner ? await listShopActivity(m.shop.id, 100) : [];
   return (
     <div className="flex max-w-4xl flex-col gap-4">
       <h1 className="text-2xl font-bold">{m.shop.name}</h1>
-      <ShopMembers isOwner={m.member.role === 'owner'} selfMemberId={m.member.id} />
+      <ShopMembers isOwner={isOwner} selfMemberId={m.member.id} />
+      {isOwner && (
+        <section aria-labelledby="shop-activity" className="rounded-2xl border border-line bg-surface p-5">
+          <h2 id="shop-activity" className="text-lg font-bold">
+            Activity in this shop
+          </h2>
+          <p className="text-sm text-muted">The last 100 sign-ins, uploads, saves, reports sent and changes to members, newest first.</p>
+          <ActivityList items={activity} />
+        </section>
+      )}
     </div>
   );
 }

@@ -1,7 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { listAudit } from '@/db/queries/audit';
+import { listShopActivity } from '@/db/queries/audit';
+import { ActivityList } from '@/components/activity/activity-list';
 import { latestAnalysesForJob, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
 import { listApprovalsForJob, listRevisions } from '@/db/queries/reports';
@@ -20,7 +21,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
   const m = await pageMember(`/jobs/${jobId}`);
   const job = await getJob(m.shop.id, jobId);
   if (!job) notFound();
-  const [captures, latest, audit] = await Promise.all([listCaptures(m.shop.id, job.id), latestAnalysesForJob(m.shop.id, job.id), listAudit(m.shop.id, 300)]);
+  const [captures, latest, audit] = await Promise.all([listCaptures(m.shop.id, job.id), latestAnalysesForJob(m.shop.id, job.id), listShopActivity(m.shop.id, 300)]);
   const captureIds = new Set(captures.map((c) => c.id));
   const activity = audit
     .filter((a) => a.subjectId === job.id || (a.detail as { jobId?: string } | null)?.jobId === job.id || (a.detail as { captureId?: string } | null)?.captureId && captureIds.has((a.detail as { captureId: string }).captureId))
@@ -114,17 +115,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
         <h2 id="activity" className="text-lg font-bold">
           Activity
         </h2>
-        {activity.length === 0 ? (
-          <p className="text-muted">Nothing recorded yet.</p>
-        ) : (
-          <ul className="mt-2 flex flex-col gap-1">
-            {activity.map((a) => (
-              <li key={a.id} className="figures text-sm">
-                {a.createdAt.toLocaleString()} — {a.action}
-              </li>
-            ))}
-          </ul>
-        )}
+        <ActivityList items={activity} />
       </section>
     </div>
   );

@@ -1,0 +1,42 @@
+/** An audit event in plain words: what happened, with the detail that matters to the shop. */
+
+interface Event {
+  action: string;
+  detail: unknown;
+}
+
+type Detail = Record<string, string | number | null | undefined>;
+
+const WORDS: Record<string, (d: Detail) => string> = {
+  'auth.sign-in': () => 'signed in',
+  'shop.create': () => 'created the shop',
+  'job.create': () => 'opened a job',
+  'job.update': (d) => (d.status ? `set a job to ${d.status}` : 'changed a job'),
+  'vehicle.create': () => 'added a vehicle',
+  'capture.upload': (d) => `uploaded ${d.fileName ?? 'a capture'}${typeof d.sizeBytes === 'number' ? ` (${(d.sizeBytes / 1048576).toFixed(1)} MB)` : ''}`,
+  'analysis.save': (d) => `saved an analysis${d.verdict ? ` (${d.verdict})` : ''}`,
+  'profile.create': () => 'added an engine profile',
+  'report.save': () => 'edited a report',
+  'report.sign': (d) => `signed a report${d.revision ? ` (revision ${d.revision})` : ''}`,
+  'report.send': (d) => `e-mailed a report${d.to ? ` to ${d.to}` : ''}`,
+  'report.share': () => 'made a customer link',
+  'report.unshare': () => 'revoked a customer link',
+  'report.approve': (d) => `customer approved${d.typedName ? ` (signed “${d.typedName}”)` : ''}`,
+  'report.decline': (d) => `customer declined${d.typedName ? ` (signed “${d.typedName}”)` : ''}`,
+  'invitation.create': (d) => `invited ${d.email ?? 'someone'}${d.role ? ` as ${d.role}` : ''}`,
+  'invitation.cancel': () => 'cancelled an invitation',
+  'member.role': (d) => `changed a member's role${d.from && d.to ? ` from ${d.from} to ${d.to}` : ''}`,
+  'member.remove': (d) => `removed a member${d.role ? ` (${d.role})` : ''}`,
+};
+
+export function describeEvent(e: Event): string {
+  const words = WORDS[e.action];
+  return words ? words((e.detail ?? {}) as Detail) : e.action;
+}
+
+/** Who did it: the member's name; the customer for a decision on a share link. */
+export function actorLabel(e: Event & { actorName?: string | null }): string {
+  if (e.actorName) return e.actorName;
+  if (e.action === 'report.approve' || e.action === 'report.decline') return 'The customer';
+  return 'A removed account';
+}

@@ -1,0 +1,192 @@
+/**
+ * npm run bench:load — a bounded load test on loopback against `next start` (build first), on the embedded
+ * database and, when PostgreSQL's server programs are installed, on a throwaway PostgreSQL server:
+ *   1. the jobs list and capture metadata, 50 connections for 30 s (autocannon);
+ *   2. 10 concurrent 10 MB uploads, three times.
+ * Prints p50/p95/p99 latency, requests per second and errors, then one line
+ * `load: pglite_p95_ms=X pg_p95_ms=X upload_p95_ms=X errors=N` (upload: the slower of the two databases).
+ * LOAD_SECONDS shortens the first part for a quick look. Timings are reported, never asserted.
+ */
+import { type ChildProcess, spawn } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import autocannon from 'autocannon';
+import { simulateCranking } from '../signal/sim/simulate';
+import { simToCsv } from '../signal/sim/to-csv';
+import { createDatabase, startPgServer } from './pg-server.mjs';
+
+const PORT = 3240;
+const BASE = `http://127.0.0.1:${PORT}`;
+const SECONDS = Number(process.env.LOAD_SECONDS || 30);
+const CONNECTIONS = 50;
+const UPLOADS = 10;
+const UPLOAD_ROUNDS = 3;
+
+interface Figures {
+  p50: number;
+  p95: number;
+  p99: number;
+  rps: number;
+  requests: number;
+  errors: number;
+}
+
+function percentile(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+
+function figures(latencies: number[], errors: number, seconds: number): Figures {
+  const s = [...latencies].sort((a, b) => a - b);
+  return { p50: percentile(s, 50), p95: percentile(s, 95), p99: percentile(s, 99), rps: latencies.length / seconds, requests: latencies.length, errors };
+}
+
+function startServer(env: Record<string, string>): ChildProcess {
+  return spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(PORT)], {
+    stdio: ['ignore', 'ignore', 'inherit'],
+    env: {
+      ...process.env,
+      ...env,
+      CRANKPRINT_DEMO: '1',
+      CRANKPRINT_RATE_LIMIT_SCALE: '100',
+      BETTER_AUTH_URL: BASE,
+      BETTER_AUTH_SECRET: 'load-only-secret-0123456789abcdef0123456789',
+      NEXT_TELEMETRY_DISABLED: '1',
+      NEXT_MANUAL_SIG_HANDLE: '1',
+      SMTP_URL: 'smtp://127.0.0.1:9',
+    },
+  });
+}
+
+async function waitReady(child: ChildProcess): Promise<void> {
+  const until = Date.now() + 120_000;
+  while (Date.now() < until) {
+    if (child.exitCode !== null) throw new Error(`the server exited with ${child.exitCode}`);
+    const ok = await fetch(`${BASE}/api/health`).then((r) => r.ok, () => false);
+    if (ok) return;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error('the server did not start within 120 s');
+}
+
+async function stopServer(child: ChildProcess): Promise<void> {
+  if (child.exitCode !== null) return;
+  const gone = new Promise((r) => child.once('exit', r));
+  child.kill('SIGTERM');
+  await gone;
+}
+
+async function signIn(): Promise<string> {
+  const res = await fetch(`${BASE}/api/auth/sign-in/email`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', origin: BASE },
+    body: JSON.stringify({ email: 'tech@demo.crankprint.test', password: 'crank-demo-2026' }),
+  });
+  if (res.status !== 200) throw new Error(`sign-in answered ${res.status}`);
+  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+}
+
+/** The jobs list and a capture's metadata, alternately, from 50 connections. */
+async function readLoad(cookie: string): Promise<Figures> {
+  const jobs = (await (await fetch(`${BASE}/api/jobs`, { headers: { cookie } })).json()).jobs as { id: string }[];
+  const captures = (await (await fetch(`${BASE}/api/jobs/${jobs[0].id}/captures`, { headers: { cookie } })).json()).captures as { id: string }[];
+  const latencies: number[] = [];
+  let bad = 0;
+  const result = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon(
+      {
+        url: BASE,
+        connections: CONNECTIONS,
+        duration: SECONDS,
+        headers: { cookie },
+        requests: [
+          { method: 'GET', path: '/api/jobs' },
+          { method: 'GET', path: `/api/captures/${captures[0].id}` },
+        ],
+      },
+      (err, res) => (err ? reject(err) : resolve(res)),
+    );
+    instance.on('response', (_client, status, _bytes, ms) => {
+      latencies.push(ms);
+      if (status !== 200) bad++;
+    });
+  });
+  return figures(latencies, bad + result.errors + result.timeouts, SECONDS);
+}
+
+/** Ten 10 MB captures at once, distinct files, three rounds. */
+async function uploadLoad(cookie: string, body: string): Promise<Figures> {
+  const jobs = (await (await fetch(`${BASE}/api/jobs`, { headers: { cookie } })).json()).jobs as { id: string }[];
+  const latencies: number[] = [];
+  let errors = 0;
+  let serial = 0;
+  const t0 = Date.now();
+  for (let round = 0; round < UPLOAD_ROUNDS; round++) {
+    await Promise.all(
+      Array.from({ length: UPLOADS }, async (_, k) => {
+        const file = `${body}6.3${String(++serial).padStart(6, '0')},1.5,0\n`;
+        const start = performance.now();
+        const res = await fetch(`${BASE}/api/jobs/${jobs[k % jobs.length].id}/captures`, {
+          method: 'POST',
+          headers: { cookie, origin: BASE, 'content-type': 'text/csv', 'x-file-name': `load-${serial}.csv` },
+          body: file,
+        }).catch(() => null);
+        latencies.push(performance.now() - start);
+        if (!res || res.status !== 200) errors++;
+        await res?.arrayBuffer();
+      }),
+    );
+  }
+  return figures(latencies, errors, (Date.now() - t0) / 1000);
+}
+
+const fmt = (f: Figures) =>
+  `p50 ${f.p50.toFixed(0)} ms  p95 ${f.p95.toFixed(0)} ms  p99 ${f.p99.toFixed(0)} ms  ${f.rps.toFixed(1)} req/s  ${f.requests} requests  ${f.errors} errors`;
+
+async function run(label: string, env: Record<string, string>, body: string) {
+  const server = startServer(env);
+  try {
+    await waitReady(server);
+    const cookie = await signIn();
+    const read = await readLoad(cookie);
+    console.log(`${label}: jobs list + capture metadata, ${CONNECTIONS} connections, ${SECONDS} s: ${fmt(read)}`);
+    const upload = await uploadLoad(cookie, body);
+    console.log(`${label}: ${UPLOADS} concurrent ${(body.length / 1048576).toFixed(1)} MB uploads × ${UPLOAD_ROUNDS}: ${fmt(upload)}`);
+    return { read, upload };
+  } finally {
+    await stopServer(server);
+  }
+}
+
+if (!existsSync('.next/BUILD_ID')) {
+  console.error('Build first: npm run build');
+  process.exit(2);
+}
+// A 10 MB capture: 4 cylinders, starter current and sync at 80 kHz for 6.1 s.
+const sim = simulateCranking({ engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] }, leakPerS: [0, 2, 0, 0], channels: ['current', 'sync'], sampleRateHz: 80_000, durationS: 6.1, seed: 31 });
+const body = simToCsv(sim, { channels: ['current', 'sync'], timeUnit: 's' });
+console.log(`load: ${CONNECTIONS} connections × ${SECONDS} s; uploads of ${(body.length / 1048576).toFixed(1)} MB; node ${process.version}`);
+
+const dir = mkdtempSync(join(tmpdir(), 'crankprint-load-'));
+const results: Record<string, Awaited<ReturnType<typeof run>>> = {};
+try {
+  results.pglite = await run('embedded (PGlite)', { CRANKPRINT_DATA_DIR: dir }, body);
+} finally {
+  rmSync(dir, { recursive: true, force: true });
+}
+const pg = startPgServer();
+if (pg) {
+  try {
+    results.pg = await run(`PostgreSQL (${pg.version.replace(/^postgres \(PostgreSQL\) /, '')})`, { DATABASE_URL: await createDatabase(pg.url, 'load') }, body);
+  } finally {
+    pg.stop();
+  }
+} else {
+  console.log('PostgreSQL server programs are not installed: its figures are left out (apt-get install postgresql-15).');
+}
+const errors = Object.values(results).reduce((n, r) => n + r.read.errors + r.upload.errors, 0);
+const uploadP95 = Math.max(...Object.values(results).map((r) => r.upload.p95));
+const n = (v: number | undefined) => (v === undefined ? 'na' : v.toFixed(0));
+console.log(`load: pglite_p95_ms=${n(results.pglite?.read.p95)} pg_p95_ms=${n(results.pg?.read.p95)} upload_p95_ms=${n(uploadP95)} errors=${errors}`);
+process.exit(errors === 0 ? 0 : 1);
