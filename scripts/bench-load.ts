@@ -7,13 +7,13 @@
  * `load: pglite_p95_ms=X pg_p95_ms=X upload_p95_ms=X errors=N` (upload: the slower of the two databases).
  * LOAD_SECONDS shortens the first part for a quick look. Timings are reported, never asserted.
  */
-import { type ChildProcess, spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import autocannon from 'autocannon';
 import { simulateCranking } from '../signal/sim/simulate';
 import { simToCsv } from '../signal/sim/to-csv';
+import { exited, signInCookie, startApp, waitReady } from './app-server';
 import { createDatabase, startPgServer } from './pg-server.mjs';
 
 const PORT = 3240;
@@ -40,51 +40,6 @@ function percentile(sorted: number[], p: number): number {
 function figures(latencies: number[], errors: number, seconds: number): Figures {
   const s = [...latencies].sort((a, b) => a - b);
   return { p50: percentile(s, 50), p95: percentile(s, 95), p99: percentile(s, 99), rps: latencies.length / seconds, requests: latencies.length, errors };
-}
-
-function startServer(env: Record<string, string>): ChildProcess {
-  return spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(PORT)], {
-    stdio: ['ignore', 'ignore', 'inherit'],
-    env: {
-      ...process.env,
-      ...env,
-      CRANKPRINT_DEMO: '1',
-      CRANKPRINT_RATE_LIMIT_SCALE: '100',
-      BETTER_AUTH_URL: BASE,
-      BETTER_AUTH_SECRET: 'load-only-secret-0123456789abcdef0123456789',
-      NEXT_TELEMETRY_DISABLED: '1',
-      NEXT_MANUAL_SIG_HANDLE: '1',
-      SMTP_URL: 'smtp://127.0.0.1:9',
-    },
-  });
-}
-
-async function waitReady(child: ChildProcess): Promise<void> {
-  const until = Date.now() + 120_000;
-  while (Date.now() < until) {
-    if (child.exitCode !== null) throw new Error(`the server exited with ${child.exitCode}`);
-    const ok = await fetch(`${BASE}/api/health`).then((r) => r.ok, () => false);
-    if (ok) return;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error('the server did not start within 120 s');
-}
-
-async function stopServer(child: ChildProcess): Promise<void> {
-  if (child.exitCode !== null) return;
-  const gone = new Promise((r) => child.once('exit', r));
-  child.kill('SIGTERM');
-  await gone;
-}
-
-async function signIn(): Promise<string> {
-  const res = await fetch(`${BASE}/api/auth/sign-in/email`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', origin: BASE },
-    body: JSON.stringify({ email: 'tech@demo.crankprint.test', password: 'crank-demo-2026' }),
-  });
-  if (res.status !== 200) throw new Error(`sign-in answered ${res.status}`);
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
 }
 
 /** The jobs list and a capture's metadata, alternately, from 50 connections. */
@@ -145,17 +100,18 @@ const fmt = (f: Figures) =>
   `p50 ${f.p50.toFixed(0)} ms  p95 ${f.p95.toFixed(0)} ms  p99 ${f.p99.toFixed(0)} ms  ${f.rps.toFixed(1)} req/s  ${f.requests} requests  ${f.errors} errors`;
 
 async function run(label: string, env: Record<string, string>, body: string) {
-  const server = startServer(env);
+  const server = startApp(PORT, { ...env, CRANKPRINT_RATE_LIMIT_SCALE: '100' });
   try {
     await waitReady(server);
-    const cookie = await signIn();
+    const cookie = await signInCookie(BASE, 'tech@demo.crankprint.test');
     const read = await readLoad(cookie);
     console.log(`${label}: jobs list + capture metadata, ${CONNECTIONS} connections, ${SECONDS} s: ${fmt(read)}`);
     const upload = await uploadLoad(cookie, body);
     console.log(`${label}: ${UPLOADS} concurrent ${(body.length / 1048576).toFixed(1)} MB uploads × ${UPLOAD_ROUNDS}: ${fmt(upload)}`);
     return { read, upload };
   } finally {
-    await stopServer(server);
+    server.child.kill('SIGTERM');
+    await exited(server.child);
   }
 }
 

@@ -4,67 +4,23 @@
  * checked by `npm run db:check`), every acknowledged analysis is there, and no capture is partly stored.
  * SIGTERM lets the request under way finish and closes the database (its lock file is gone).
  */
-import { type ChildProcess, spawn, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { expect, test } from '@playwright/test';
 import { simulateCranking } from '../../signal/sim/simulate';
 import { simToCsv } from '../../signal/sim/to-csv';
-import { DEMO, DEMO_PASSWORD } from './helpers';
+import { exited, signInCookie, startApp, waitReady } from '../../scripts/app-server';
+import { DEMO } from './helpers';
 
 const PORT = 3217;
 const BASE = `http://127.0.0.1:${PORT}`;
 const DATA = '.e2e/faults';
 const ROUNDS = 20;
 
-function startServer(): ChildProcess {
-  const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(PORT)], {
-    detached: true,
-    stdio: ['ignore', 'ignore', 'pipe'],
-    env: {
-      ...process.env,
-      CRANKPRINT_DATA_DIR: DATA,
-      CRANKPRINT_DEMO: '1',
-      CRANKPRINT_RATE_LIMIT_SCALE: '50',
-      BETTER_AUTH_URL: BASE,
-      BETTER_AUTH_SECRET: 'faults-only-secret-0123456789abcdef0123456789',
-      NEXT_TELEMETRY_DISABLED: '1',
-      NEXT_MANUAL_SIG_HANDLE: '1',
-      SMTP_URL: 'smtp://127.0.0.1:9',
-    },
-  });
-  child.stderr!.on('data', () => {});
-  return child;
-}
-
-async function waitReady(child: ChildProcess): Promise<void> {
-  const until = Date.now() + 90_000;
-  while (Date.now() < until) {
-    if (child.exitCode !== null) throw new Error(`the server exited with ${child.exitCode}`);
-    try {
-      // The session endpoint opens the database, so "ready" means the database opened.
-      const res = await fetch(`${BASE}/api/auth/get-session`);
-      if (res.ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 150));
-  }
-  throw new Error('the server did not start within 90 s');
-}
-
-const exited = (child: ChildProcess) => new Promise<number | string>((r) => (child.exitCode !== null ? r(child.exitCode) : child.once('exit', (code, signal) => r(code ?? signal ?? -1))));
-
-async function signIn(): Promise<string> {
-  const res = await fetch(`${BASE}/api/auth/sign-in/email`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', origin: BASE },
-    body: JSON.stringify({ email: DEMO.technician, password: DEMO_PASSWORD }),
-  });
-  expect(res.status).toBe(200);
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
-}
+const startServer = () => startApp(PORT, { CRANKPRINT_DATA_DIR: DATA, CRANKPRINT_RATE_LIMIT_SCALE: '50' }, { detached: true });
+const signIn = () => signInCookie(BASE, DEMO.technician);
 
 interface Check {
   ok: boolean;
@@ -144,8 +100,8 @@ test(`kill -9 during uploads and saves, ${ROUNDS} times: acknowledged captures i
     };
     const workers = [worker(0), worker(1), resaver()];
     await new Promise((r) => setTimeout(r, 300 + random() * 1500));
-    process.kill(-server.pid!, 'SIGKILL');
-    await exited(server);
+    process.kill(-server.child.pid!, 'SIGKILL');
+    await exited(server.child);
     stop = true;
     await Promise.all(workers);
 
@@ -173,7 +129,7 @@ test('a second process is refused the data directory; SIGTERM finishes the reque
   // The lock names the server's process.
   const r = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db-check.ts'], { encoding: 'utf8', env: { ...process.env, CRANKPRINT_DATA_DIR: DATA } });
   expect(r.status).toBe(2);
-  expect(r.stderr).toContain(`in use by process ${server.pid}`);
+  expect(r.stderr).toContain(`in use by process ${server.child.pid}`);
 
   const cookie = await signIn();
   const jobs = (await (await fetch(`${BASE}/api/jobs`, { headers: { cookie } })).json()).jobs as { id: string }[];
@@ -183,11 +139,11 @@ test('a second process is refused the data directory; SIGTERM finishes the reque
   const body = capture();
   const upload = fetch(`${BASE}/api/jobs/${jobs[0].id}/captures`, { method: 'POST', headers: { cookie, origin: BASE, 'content-type': 'text/csv', 'x-file-name': 'sigterm.csv' }, body });
   await new Promise((res) => setTimeout(res, 100));
-  server.kill('SIGTERM');
+  server.child.kill('SIGTERM');
   const res = await upload;
   expect(res.status).toBe(200);
   const { capture: c } = await res.json();
-  expect(await exited(server)).toBe(143);
+  expect(await exited(server.child)).toBe(143);
   expect(existsSync(join(DATA, 'pglite.lock'))).toBe(false);
   const check = dbCheck();
   expect(check.ok).toBe(true);
