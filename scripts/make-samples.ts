@@ -32,7 +32,7 @@ const specs: SampleSpec[] = [
   { file: 'i4-60-2-tooth-times.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 60-2 wheel', fault: 'one cylinder leaks (cylinder 2 by the simulator)', sim: { seed: 107, channels: [], leakPerS: [0, 4, 0, 0] }, toothTimes: true, teeth: '60-2', expect: 'one cylinder low; numbers assumed (crank only)' },
   { file: 'i4-36-1-hall-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 36-1 wheel', fault: 'cylinder 4 leaks', sim: { seed: 108, channels: ['hall', 'sync'], leakPerS: [0, 0, 0, 3], teeth: { count: 36, missing: 1 }, sampleRateHz: 10000 }, style: { channels: ['hall', 'sync'], timeUnit: 's' }, teeth: '36-1', expect: 'cylinder 4 low' },
   { file: 'i4-noisy-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 1 leaks; noisy clamp', sim: { seed: 109, channels: ['current', 'sync'], leakPerS: [3, 0, 0, 0], noise: 4 }, style: { channels: ['current', 'sync'] }, expect: 'cylinder 1 low' },
-  { file: 'no-cranking.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'the starter never engaged', sim: { seed: 110, channels: ['current'], starterOnS: 99, durationS: 4 }, style: { channels: ['current'] }, expect: 'uncertain, NO_CRANKING' },
+  { file: 'no-cranking.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'the starter never engaged', sim: { seed: 110, channels: ['current'], starterOnS: 99, durationS: 4 }, style: { channels: ['current'] }, expect: 'uncertain, NO_CRANKING; the upload refuses it (no compression events)' },
 ];
 
 mkdirSync('samples', { recursive: true });
