@@ -9,8 +9,7 @@ import { createHash } from 'node:crypto';
 import { CHUNK_BYTES, compressPiece } from '@/db/chunks';
 import type { EngineSpec } from '@/db/schema';
 import { engineSettings, settingsForEngine } from '@/db/validators/analysis';
-import { analyzeCapture, CaptureImporter, isCaptureError, MAX_CAPTURE_BYTES, refusalFor } from '@/signal';
-import type { CaptureError } from '@/signal';
+import { analyzeCapture, type CaptureError, CaptureImporter, isCaptureError, MAX_CAPTURE_BYTES, refusalFor } from '@/signal';
 import { HttpError } from './http';
 
 const TEXT_TYPES = /^(text\/(csv|plain|tab-separated-values)|application\/(csv|vnd\.ms-excel|octet-stream))\b/i;
