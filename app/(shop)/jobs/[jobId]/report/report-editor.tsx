@@ -77,9 +77,11 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
   const sign = useMutation({
     mutationFn: () => api(`/api/jobs/${jobId}/report/sign`, { method: 'POST', json: { reportId: latest!.id } }),
     onSuccess: async () => {
-      setMessage({ tone: 'ok', text: `Revision ${latest!.revision} is signed and frozen.` });
-      setPreviewAt(Date.now());
+      const revision = latest!.revision;
+      // The page shows the signed revision everywhere before it says so.
       await refresh();
+      setPreviewAt(Date.now());
+      setMessage({ tone: 'ok', text: `Revision ${revision} is signed and frozen.` });
     },
     onError: (e) => setMessage({ tone: 'error', text: errorText(e) }),
   });
