@@ -1,8 +1,8 @@
 /**
  * The one database client per process. Embedded PGlite in the data directory by default — opened lazily on
  * first use, kept on globalThis so every route bundle shares it, migrated once behind one promise, guarded by a
- * PID lock and closed on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a PostgreSQL server through node-postgres,
- * with the same migrations.
+ * PID lock and closed on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a
+ * PostgreSQL server through node-postgres, with the same migrations.
  */
 import { mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';

@@ -41,24 +41,8 @@ export async function checkIntegrity(db: Db): Promise<IntegrityReport> {
     .orderBy(asc(captures.createdAt));
   const checks: CaptureCheck[] = [];
   for (const r of rows) {
-    const check: CaptureCheck = { id: r.id, fileName: r.fileName, sha256: r.sha256, chunkCount: r.chunkCount, chunksFound: r.chunksFound, ok: true };
-    if (r.chunksFound !== r.chunkCount) {
-      check.ok = false;
-      check.problem = `${r.chunksFound} of ${r.chunkCount} chunks are stored`;
-    } else {
-      try {
-        const bytes = await readChunks(db, r.id, r.sizeBytes);
-        const hash = createHash('sha256').update(bytes).digest('hex');
-        if (hash !== r.sha256) {
-          check.ok = false;
-          check.problem = 'the stored bytes do not match the SHA-256 recorded at upload';
-        }
-      } catch (e) {
-        check.ok = false;
-        check.problem = `the stored bytes cannot be read (${(e as Error).message})`;
-      }
-    }
-    checks.push(check);
+    const problem = await captureProblem(db, r);
+    checks.push({ id: r.id, fileName: r.fileName, sha256: r.sha256, chunkCount: r.chunkCount, chunksFound: r.chunksFound, ok: !problem, problem });
   }
   const saved = await db.select({ id: analyses.id, captureId: analyses.captureId, fileSha256: analyses.fileSha256 }).from(analyses);
   const byId = new Map(checks.map((c) => [c.id, c]));
@@ -69,4 +53,16 @@ export async function checkIntegrity(db: Db): Promise<IntegrityReport> {
     mismatchedAnalyses,
     ok: checks.every((c) => c.ok) && mismatchedAnalyses.length === 0,
   };
+}
+
+/** What is wrong with one stored capture, or undefined when it is whole. */
+async function captureProblem(db: Db, r: { id: string; sha256: string; sizeBytes: number; chunkCount: number; chunksFound: number }): Promise<string | undefined> {
+  if (r.chunksFound !== r.chunkCount) return `${r.chunksFound} of ${r.chunkCount} chunks are stored`;
+  try {
+    const bytes = await readChunks(db, r.id, r.sizeBytes);
+    if (createHash('sha256').update(bytes).digest('hex') !== r.sha256) return 'the stored bytes do not match the SHA-256 recorded at upload';
+  } catch (e) {
+    return `the stored bytes cannot be read (${(e as Error).message})`;
+  }
+  return undefined;
 }

@@ -107,61 +107,28 @@ function describe(permission: Permission): string {
 }
 
 /**
- * Wraps a route handler: `permission` is checked against the member's role, `schema` parses query, body and
- * route params merged (with `rawBody`, query and params only: the handler streams the body itself). The
- * handler's return value is sent as JSON (a Response is passed through).
+ * What every wrapper does around its own checks: the request counts as work under way (so SIGTERM waits for
+ * it), is admitted, runs, and its return value is sent as JSON (a Response is passed through) or its error as
+ * the typed error body. With `rawBody` the handler streams the body itself and may stop part-way: on an error
+ * the rest is let go and the connection closed, so the client hears the answer.
  */
-export function withShop<S extends z.ZodType>(permission: Permission, schema: S, handler: Handler<z.infer<S>>, options: { rawBody?: boolean } = {}) {
-  return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
-    const done = beginWork();
-    try {
-      admit(req);
-      const session = await requireSession(req);
-      const m = await resolveMembership(session);
-      const role = m.role as RoleName;
-      if (!can(role, permission)) {
-        throw new HttpError(403, 'FORBIDDEN', `Your role (${role}) cannot ${describe(permission)}; ask your shop owner.`);
-      }
-      const params = (await context.params) ?? {};
-      const input = await parseInput(schema, req, params, options.rawBody);
-      const out = await handler({
-        ...session,
-        shop: { id: m.shopId, name: m.shopName },
-        member: { id: m.memberId, role },
-        input,
-        req,
-        params,
-      });
-      if (out instanceof Response) return out;
-      return NextResponse.json(out ?? { ok: true });
-    } catch (e) {
-      const res = handleError(e);
-      // A streamed body may be refused part-read: the connection cannot carry another request after it.
-      if (options.rawBody) res.headers.set('connection', 'close');
-      return res;
-    } finally {
-      done();
+async function respond(req: NextRequest, work: () => Promise<unknown>, rawBody = false): Promise<Response> {
+  const done = beginWork();
+  try {
+    admit(req);
+    const out = await work();
+    if (out instanceof Response) return out;
+    return NextResponse.json(out ?? { ok: true });
+  } catch (e) {
+    const res = handleError(e);
+    if (rawBody) {
+      await req.body?.cancel().catch(() => {});
+      res.headers.set('connection', 'close');
     }
-  };
-}
-
-/** For routes that need a signed-in user but no shop yet (creating a shop). */
-export function withSession<S extends z.ZodType>(schema: S, handler: (ctx: SessionContext & { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
-  return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
-    const done = beginWork();
-    try {
-      admit(req);
-      const session = await requireSession(req);
-      const input = await parseInput(schema, req, (await context.params) ?? {});
-      const out = await handler({ ...session, input, req });
-      if (out instanceof Response) return out;
-      return NextResponse.json(out ?? { ok: true });
-    } catch (e) {
-      return handleError(e);
-    } finally {
-      done();
-    }
-  };
+    return res;
+  } finally {
+    done();
+  }
 }
 
 /** Before any work: a request from another site is refused, and none is started while the server stops. */
@@ -177,25 +144,49 @@ function handleError(e: unknown): Response {
 }
 
 /**
+ * Wraps a route handler: `permission` is checked against the member's role, `schema` parses query, body and
+ * route params merged (with `rawBody`, query and params only: the handler streams the body itself).
+ */
+export function withShop<S extends z.ZodType>(permission: Permission, schema: S, handler: Handler<z.infer<S>>, options: { rawBody?: boolean } = {}) {
+  return (req: NextRequest, context: { params: Params }): Promise<Response> =>
+    respond(
+      req,
+      async () => {
+        const session = await requireSession(req);
+        const m = await resolveMembership(session);
+        const role = m.role as RoleName;
+        if (!can(role, permission)) {
+          throw new HttpError(403, 'FORBIDDEN', `Your role (${role}) cannot ${describe(permission)}; ask your shop owner.`);
+        }
+        const params = (await context.params) ?? {};
+        const input = await parseInput(schema, req, params, options.rawBody);
+        return handler({ ...session, shop: { id: m.shopId, name: m.shopName }, member: { id: m.memberId, role }, input, req, params });
+      },
+      options.rawBody,
+    );
+}
+
+/** For routes that need a signed-in user but no shop yet (creating a shop). */
+export function withSession<S extends z.ZodType>(schema: S, handler: (ctx: SessionContext & { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
+  return (req: NextRequest, context: { params: Params }): Promise<Response> =>
+    respond(req, async () => {
+      const session = await requireSession(req);
+      const input = await parseInput(schema, req, (await context.params) ?? {});
+      return handler({ ...session, input, req });
+    });
+}
+
+/**
  * For the customer's share-link routes, which have no session: a rate limit per client, then zod input.
  * The token in the input is the only scope; handlers answer 404 for any token that does not open a report.
  */
 export function withPublic<S extends z.ZodType>(schema: S, handler: (ctx: { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
-  return async (req: NextRequest, context: { params: Params }): Promise<Response> => {
-    const done = beginWork();
-    try {
-      admit(req);
+  return (req: NextRequest, context: { params: Params }): Promise<Response> =>
+    respond(req, async () => {
       if (!allow(`public:${clientKey(req.headers)}`, PUBLIC_LIMIT_PER_MIN)) {
         throw new HttpError(429, 'RATE_LIMITED', 'Too many requests; wait a minute and try again.');
       }
       const input = await parseInput(schema, req, (await context.params) ?? {});
-      const out = await handler({ input, req });
-      if (out instanceof Response) return out;
-      return NextResponse.json(out ?? { ok: true });
-    } catch (e) {
-      return handleError(e);
-    } finally {
-      done();
-    }
-  };
+      return handler({ input, req });
+    });
 }

@@ -16,6 +16,32 @@ function planFor(size: number): FFT {
   return p;
 }
 
+/** The Hann window's weight at sample `i` of `n`. */
+function hann(i: number, n: number): number {
+  return 0.5 - 0.5 * Math.cos((2 * Math.PI * i) / Math.max(1, n - 1));
+}
+
+/**
+ * Amplitude of the component repeating `perCycle` times per cycle in `x` (uniformly sampled, `samplesPerCycle`
+ * samples a cycle): one DFT coefficient at any frequency, mean removed and Hann-windowed as in
+ * {@link powerSpectrum}.
+ */
+export function orderAmplitude(x: Float64Array, samplesPerCycle: number, perCycle: number): number {
+  const n = x.length;
+  let mean = 0;
+  for (let j = 0; j < n; j++) mean += x[j];
+  mean /= n || 1;
+  let re = 0;
+  let im = 0;
+  const w = (2 * Math.PI * perCycle) / samplesPerCycle;
+  for (let j = 0; j < n; j++) {
+    const v = (x[j] - mean) * hann(j, n);
+    re += v * Math.cos(w * j);
+    im -= v * Math.sin(w * j);
+  }
+  return Math.hypot(re, im) / (n || 1);
+}
+
 /** Power spectrum |X_k|² of a real signal (mean removed, zero-padded to a power of two ≥ 4× length). */
 export function powerSpectrum(x: Float64Array, minSize = 0): { power: Float64Array; size: number } {
   let size = 1;
@@ -25,8 +51,7 @@ export function powerSpectrum(x: Float64Array, minSize = 0): { power: Float64Arr
   mean /= x.length || 1;
   const input = new Float64Array(size);
   for (let i = 0; i < x.length; i++) {
-    const hann = 0.5 - 0.5 * Math.cos((2 * Math.PI * i) / Math.max(1, x.length - 1));
-    input[i] = (x[i] - mean) * hann;
+    input[i] = (x[i] - mean) * hann(i, x.length);
   }
   const plan = planFor(size);
   const out = plan.createComplexArray() as number[];

@@ -79,14 +79,12 @@ export function runCurrentMethod(
       markAngles = pulses.map(() => 720);
       identity = 'sync';
       rpm = (120 * (pulses.length - 1)) / (pulses[pulses.length - 1] - pulses[0]);
+      // Sync gives the cycle without the cylinder count, so the current's repeat rate checks the engine set up.
+      const mismatch = eventCountWarning(slice, (rate * 120) / rpm, n, 'starter current between cylinder 1 sync pulses');
+      if (mismatch) warnings.push(mismatch);
     } else {
       warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
     }
-  }
-  if (identity === 'sync') {
-    // Sync gives the cycle without the cylinder count, so the current's repeat rate checks the engine set up.
-    const mismatch = eventCountWarning(slice, (rate * 120) / rpm, n, 'starter current between cylinder 1 sync pulses');
-    if (mismatch) warnings.push(mismatch);
   }
   if (identity === 'assumed') {
     const shortestS = Math.min(...iv) / (6 * rpm);

@@ -10,6 +10,7 @@
  * sync, tooth times, Hall with sync, engine speed; 3 seeds): the right count's component was never below 0.75
  * of the strongest other count's (288 captures); a wrong count's was below 0.5 in 1206 of 1344.
  */
+import { orderAmplitude } from '../dsp/event-rate';
 import { type QualityWarning, warning } from './warnings';
 
 const GRID_DEG = 4;
@@ -34,23 +35,6 @@ export function resampleByAngle(thetaDeg: Float64Array, signal: Float64Array): {
     x[k] = signal[j - 1] + Math.min(1, Math.max(0, f)) * (signal[j] - signal[j - 1]);
   }
   return { x, samplesPerCycle: 720 / GRID_DEG };
-}
-
-/** Amplitude of the component repeating `perCycle` times per cycle in `x` (uniform, `samplesPerCycle` a cycle), Hann-windowed. */
-export function orderAmplitude(x: Float64Array, samplesPerCycle: number, perCycle: number): number {
-  const n = x.length;
-  let mean = 0;
-  for (let j = 0; j < n; j++) mean += x[j];
-  mean /= n;
-  let re = 0;
-  let im = 0;
-  const w = (2 * Math.PI * perCycle) / samplesPerCycle;
-  for (let j = 0; j < n; j++) {
-    const v = (x[j] - mean) * (0.5 - 0.5 * Math.cos((2 * Math.PI * j) / (n - 1)));
-    re += v * Math.cos(w * j);
-    im -= v * Math.sin(w * j);
-  }
-  return Math.hypot(re, im) / n;
 }
 
 /** A FIRING_ORDER_MISMATCH warning when another cylinder count explains `x` far better than `cylinders`. */

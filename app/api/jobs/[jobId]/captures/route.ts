@@ -19,17 +19,9 @@ export const POST = withShop(
   { capture: ['upload'] },
   z.object({ jobId: z.string() }),
   async ({ input, shop, user, req }) => {
-    const { length, contentType, job } = await (async () => {
-      try {
-        const job = await getJob(shop.id, input.jobId);
-        if (!job) throw notFound('That job');
-        return { ...checkUploadHeaders(req.headers), job };
-      } catch (e) {
-        // Refused before the body is read: let go of it so the client hears the answer.
-        await req.body?.cancel().catch(() => {});
-        throw e;
-      }
-    })();
+    const { length, contentType } = checkUploadHeaders(req.headers);
+    const job = await getJob(shop.id, input.jobId);
+    if (!job) throw notFound('That job');
     if (!req.body) throw new HttpError(400, 'EMPTY_FILE', 'The upload was empty; choose the capture file again.');
     const rawName = req.headers.get('x-file-name');
     const fileName = (rawName ? decodeURIComponent(rawName) : 'capture.csv').replace(/[\\/\0]/g, '_').slice(0, 200) || 'capture.csv';
