@@ -120,7 +120,8 @@ export function getDatabase(): Promise<Database> {
           .then(() => drain(10_000))
           .then(() => d.close())
           .catch(() => {})
-          .finally(() => process.exit(signal === 'SIGINT' ? 130 : 143));
+          // The last handlers have returned, but their responses may still be on their way out.
+          .finally(() => setTimeout(() => process.exit(signal === 'SIGINT' ? 130 : 143), 500));
       };
       process.once('SIGINT', shutdown);
       process.once('SIGTERM', shutdown);
