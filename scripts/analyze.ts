@@ -8,7 +8,7 @@ import {
   isCaptureError,
   MAX_CAPTURE_BYTES,
   parseFiringOrder,
-  parseToothPattern,
+  parseWheel,
 } from '../signal';
 
 function usage(): never {
@@ -57,7 +57,7 @@ function main() {
   if (!(lowLimit > 0 && lowLimit < 100)) fail('--low-limit must be a percentage between 0 and 100.');
   const spreadLimit = Number(values['spread-limit']);
   if (!(spreadLimit > 0 && spreadLimit < 100)) fail('--spread-limit must be a percentage between 0 and 100.');
-  const teeth = values.teeth ? parseToothPattern(values.teeth) : undefined;
+  const teeth = values.teeth ? parseWheel(values.teeth) : undefined;
   if (values.teeth && !teeth) fail(`--teeth must look like 60-2 or 36-1, not "${values.teeth}".`);
   const sampleRate = values['sample-rate'] ? Number(values['sample-rate']) : undefined;
   if (sampleRate !== undefined && !(sampleRate > 0)) fail('--sample-rate must be a positive number of samples per second.');
@@ -92,7 +92,10 @@ function main() {
     }
     const lines = [
       `Method ${result.method}, cranking ${result.crankingRpm} rpm, cylinder identity ${result.identity}, verdict ${result.verdict}`,
-      ...result.cylinders.map((c) => `  cylinder ${String(c.cylinder).padStart(2)}  ${c.relativePercent.toFixed(1).padStart(5)} %  ${c.status.padEnd(9)} ${c.events} events`),
+      ...(result.wheel ? [`Wheel: ${result.wheel.description} (${result.wheel.notation}, ${result.wheel.learned ? 'learned from the capture' : 'as set'})`] : []),
+      ...(result.identityNote ? [result.identityNote] : []),
+      ...result.cylinders.map((c) => `  cylinder ${String(c.cylinder).padStart(2)}  ${c.relativePercent === null ? '    —' : c.relativePercent.toFixed(1).padStart(5)} %  ${c.status.padEnd(9)} ${c.events} events`),
+      ...(result.crossCheck ? [`Cross-check (${result.crossCheck.method}): ${result.crossCheck.cylinders.map((c) => c.relativePercent ?? '—').join(' ')} — ${result.crossCheck.agree ? 'agrees' : 'disagrees'}`] : []),
       `Spread ${result.spreadPercent} points. ${result.pattern.hint}`,
       ...result.warnings.map((w) => `  ! ${w.code}: ${w.message}`),
     ];

@@ -12,6 +12,9 @@ import { runFit } from './steps/run-fit';
 import { type QualityWarning, THIN_EVIDENCE, warning } from './steps/warnings';
 import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderStatus, Method, MethodResult } from './types';
 import { ENGINE_VERSION } from './version';
+import { quantileProbe } from './dsp/stats';
+import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
+import { wheelNotation } from './teeth/wheel';
 
 const MIN_RPM = 100;
 const MAX_RPM = 400;
@@ -31,44 +34,69 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   const choice = settings.method ?? 'auto';
   const hasCurrent = !!(columns.current && columns.time);
   const hasCrank = !!(columns.toothTimes || (columns.crank && columns.time) || (columns.rpm && columns.time));
+  const hasBattery = !!(columns.battery && columns.time);
 
+  let crankOutcome: MethodOutcome | undefined;
   const runMethod = (method: Method): MethodOutcome => {
     if (method === 'current') {
       if (!hasCurrent) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The starter-current method needs a current channel (A) and a time column; map them or choose the crank-speed method.')] };
-      return runCurrentMethod(columns.time!, columns.current!, columns.sync, setup, rotation, settings.window);
+      const { current, notice } = orientCurrent(columns.current!);
+      const outcome = runCurrentMethod(columns.time!, current, columns.sync, setup, rotation, settings.window);
+      return notice ? withWarning(outcome, notice) : outcome;
+    }
+    if (method === 'battery') {
+      if (!hasBattery) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The battery-voltage method needs a battery-voltage channel (V) and a time column; map them or choose another method.')] };
+      return runBatteryMethod(columns.time!, columns.battery!, columns.sync, setup, rotation, settings.window);
     }
     if (!hasCrank) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The crank-speed method needs crank tooth times, a crank sensor channel or an engine-speed channel; map one or choose the starter-current method.')] };
     if (!columns.toothTimes && !columns.crank) return runSpeedChannelMethod(columns.time!, columns.rpm!, setup, rotation, settings.window);
-    return runCrankSpeedMethod(
-      { toothTimes: columns.toothTimes, time: columns.time, crank: columns.crank, sync: columns.sync, sensor: settings.sensor, teeth: settings.teeth },
+    crankOutcome ??= runCrankSpeedMethod(
+      {
+        toothTimes: columns.toothTimes,
+        time: columns.time,
+        crank: columns.crank,
+        sync: columns.sync,
+        marks: columns.marks,
+        sensor: settings.sensor,
+        teeth: settings.teeth,
+        markOffsetDeg: settings.markOffsetDeg,
+      },
       setup,
       rotation,
       settings.window,
     );
+    return crankOutcome;
   };
 
-  const primary: Method = choice === 'auto' ? (hasCrank ? 'crank-speed' : 'current') : choice;
-  const outcome = runMethod(primary);
+  // Crank speed first; on a wheel too coarse to separate cylinders, an electrical channel leads.
+  let primary: Method = choice === 'auto' ? (hasCrank ? 'crank-speed' : hasCurrent ? 'current' : hasBattery ? 'battery' : 'current') : choice;
+  if (choice === 'auto' && primary === 'crank-speed' && (hasCurrent || hasBattery)) {
+    const crank = runMethod('crank-speed');
+    if (crank.ok && crank.run.wheel?.tooCoarse) primary = hasCurrent ? 'current' : 'battery';
+  }
+  const outcome = primary === 'battery' && isEdgeSampled(columns) ? batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit) : runMethod(primary);
   const result = toMethodResult(primary, outcome, settings, lowLimit, spreadLimit, importWarnings);
 
   let crossCheck: AnalysisResult['crossCheck'];
-  if (choice === 'auto' && hasCurrent && hasCrank) {
-    const other = toMethodResult('current', runMethod('current'), settings, lowLimit, spreadLimit, importWarnings);
-    if (other.fitQuality > 0) {
+  const otherMethod: Method | null = choice !== 'auto' ? null : primary !== 'crank-speed' ? (hasCrank ? 'crank-speed' : null) : hasCurrent ? 'current' : hasBattery ? 'battery' : null;
+  if (otherMethod) {
+    const otherOutcome = otherMethod === 'battery' && isEdgeSampled(columns) ? batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit) : runMethod(otherMethod);
+    const other = toMethodResult(otherMethod, otherOutcome, settings, lowLimit, spreadLimit, importWarnings);
+    if (other.fitQuality > 0 && result.cylinders.every((c) => c.relativePercent !== null) && other.cylinders.every((c) => c.relativePercent !== null)) {
       let maxDifference = 0;
       for (let c = 0; c < result.cylinders.length; c++) {
-        maxDifference = Math.max(maxDifference, Math.abs(result.cylinders[c].relativePercent - other.cylinders[c].relativePercent));
+        maxDifference = Math.max(maxDifference, Math.abs(result.cylinders[c].relativePercent! - other.cylinders[c].relativePercent!));
       }
       const sameLow = result.cylinders.every((c, i) => (c.status === 'low') === (other.cylinders[i].status === 'low'));
       const agree = sameLow && maxDifference <= 8;
       crossCheck = {
-        method: 'current',
+        method: otherMethod,
         cylinders: other.cylinders.map((c) => ({ cylinder: c.cylinder, relativePercent: c.relativePercent, status: c.status })),
         agree,
         maxDifference: Math.round(maxDifference * 10) / 10,
       };
       if (!agree) {
-        result.warnings.push(warning('METHODS_DISAGREE', `The starter-current and crank-speed methods differ by up to ${crossCheck.maxDifference} points; check both probes and the firing order before trusting either.`));
+        result.warnings.push(warning('METHODS_DISAGREE', `The ${METHOD_WORDS[primary]} and ${METHOD_WORDS[otherMethod]} methods differ by up to ${crossCheck.maxDifference} points; check both probes and the firing order before trusting either.`));
       }
     }
   }
@@ -88,7 +116,7 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
       lowLimitPercent: lowLimit,
       spreadLimitPercent: spreadLimit,
       rotation,
-      teeth: settings.teeth ? `${settings.teeth.count}-${settings.teeth.missing}` : undefined,
+      teeth: settings.teeth ? wheelNotation(settings.teeth) : undefined,
     },
     crossCheck,
   };
@@ -116,7 +144,7 @@ function toMethodResult(
         cylinder: i + 1, relativePercent: 0, status: 'uncertain' as const, events: 0, rejected: 0, spreadPercent: 0, plainPercent: 0, raw: 0, perCycle: [],
       })),
       events: [],
-      rawUnit: method === 'current' ? 'A' : 'rpm',
+      rawUnit: RAW_UNIT[method],
       spreadPercent: 0,
       fitQuality: 0,
       warnings,
@@ -125,37 +153,48 @@ function toMethodResult(
   const run: MethodRun = outcome.run;
   warnings.push(...run.warnings);
   const half = Math.min(...firingIntervals(setup)) / 2;
-  const isCurrent = method === 'current';
+  const isCurrent = method !== 'crank-speed';
   let fit = run.fit;
-  let summary = summarize(run.motion, fit, n, half, isCurrent, lowLimit);
-  if (summary.rejectedKeys.size > 0) {
-    const refit = runFit(run.motion, setup, run.identity === 'sync', Math.trunc(settings.rotation ?? 0), summary.rejectedKeys);
+  const skip = run.excluded ?? new Set<string>();
+  let summary = run.figures ?? summarize(run.motion, fit, n, half, isCurrent, lowLimit, skip);
+  if (summary.rejectedKeys.size > 0 && !run.figures) {
+    const refit = runFit(run.motion, setup, run.identity !== 'assumed', Math.trunc(settings.rotation ?? 0), new Set([...summary.rejectedKeys, ...skip]));
     if (refit) {
       fit = refit;
-      const again = summarize(run.motion, fit, n, half, isCurrent, lowLimit);
+      const again = summarize(run.motion, fit, n, half, isCurrent, lowLimit, skip);
       // Keep the first pass's rejected set: the refit leaves those events out.
       summary = { ...again, rejectedKeys: summary.rejectedKeys };
     }
-    warnings.push(warning('EVENTS_REJECTED', `${summary.rejectedKeys.size} compression event(s) looked malformed (a spike or dropout) and were left out.`));
+    if (!warnings.some((w) => w.code === 'NO_COMPRESSION')) warnings.push(warning('EVENTS_REJECTED', `${summary.rejectedKeys.size} compression event(s) looked malformed (a spike or dropout) and were left out.`));
   }
 
+  // With no compression there is nothing to compare: the follow-on complaints about events would only confuse.
+  if (warnings.some((w) => w.code === 'NO_COMPRESSION')) {
+    const noise = new Set(['EVENTS_REJECTED', 'FIRING_ORDER_MISMATCH']);
+    for (let i = warnings.length - 1; i >= 0; i--) if (noise.has(warnings[i].code)) warnings.splice(i, 1);
+  }
+  const quiet = warnings.some((w) => w.code === 'NO_COMPRESSION');
   const rpm = Math.round(run.rpm * 10) / 10;
   if (rpm < MIN_RPM) warnings.push(warning('CRANKING_TOO_SLOW', `Cranking averaged ${rpm.toFixed(0)} rpm, below the ${MIN_RPM} rpm needed; charge or replace the battery and check the starter, then record again.`));
   if (rpm > MAX_RPM) warnings.push(warning('CRANKING_TOO_FAST', `The crank turned at ${rpm.toFixed(0)} rpm, faster than cranking (${MAX_RPM} rpm); the engine may have started. Disable fuel as the service information directs and record again.`));
   const cycles = Math.min(...summary.cylinders.map((c) => c.events));
-  if (cycles < MIN_CYCLES) warnings.push(warning('TOO_FEW_CYCLES', `Only ${cycles} complete engine cycle(s) per cylinder were usable; crank for 5–10 s so at least ${MIN_CYCLES} are recorded.`));
-  if (fit.r2 < MIN_FIT && !warnings.some((w) => w.code === 'FIRING_ORDER_MISMATCH')) warnings.push(warning('FIRING_ORDER_MISMATCH', `The compression events do not follow ${n} cylinders firing ${setup.firingOrder.join('-')}; check the cylinder count, firing order and intervals against the service information.`));
+  if (cycles < MIN_CYCLES && !quiet) warnings.push(warning('TOO_FEW_CYCLES', `Only ${cycles} complete engine cycle(s) per cylinder were usable; crank for 5–10 s so at least ${MIN_CYCLES} are recorded.`));
+  if (fit.r2 < MIN_FIT && !quiet && !warnings.some((w) => w.code === 'FIRING_ORDER_MISMATCH')) warnings.push(warning('FIRING_ORDER_MISMATCH', `The compression events do not follow ${n} cylinders firing ${setup.firingOrder.join('-')}; check the cylinder count, firing order and intervals against the service information.`));
   if (run.identity === 'assumed' && !warnings.some((w) => w.code === 'SYNC_NOT_FOUND')) {
     warnings.push(warning('NO_SYNC', `Without a cylinder 1 sync channel, the numbers assume the first event is cylinder ${setup.firingOrder[0]}; rotate the assignment if you know better, or record again with sync on cylinder 1.`));
   }
-  const thin = warnings.some((w) => THIN_EVIDENCE.has(w.code));
+  if (run.rawScale) for (const c of summary.cylinders) c.raw = Math.round(c.raw * run.rawScale * 100) / 100;
+  const coarse = method === 'crank-speed' && !!run.wheel?.tooCoarse;
+  const thin = coarse || warnings.some((w) => THIN_EVIDENCE.has(w.code));
+  const noCompression = warnings.some((w) => w.code === 'NO_COMPRESSION');
   const inconsistent: number[] = [];
   for (const c of summary.cylinders) {
-    if (thin || c.events < MIN_CYCLES) c.status = 'uncertain';
+    if (noCompression) c.relativePercent = null;
+    if (thin || c.events < MIN_CYCLES || c.relativePercent === null) c.status = 'uncertain';
     else if (c.relativePercent < lowLimit) c.status = 'low';
     if (c.spreadPercent > spreadLimit) inconsistent.push(c.cylinder);
   }
-  if (inconsistent.length) {
+  if (inconsistent.length && !quiet) {
     warnings.push(warning('INCONSISTENT_CYCLES', `Cylinder${inconsistent.length > 1 ? 's' : ''} ${inconsistent.join(', ')} varied by more than ${spreadLimit} points from cycle to cycle; look at the trace for misfiring probes or an unsteady crank.`));
   }
   if (summary.spreadPercent > spreadLimit && !thin) {
@@ -165,14 +204,35 @@ function toMethodResult(
     method,
     crankingRpm: rpm,
     identity: run.identity,
+    identityNote: run.identityNote,
+    wheel: run.wheel,
+    speedSwing: run.speedSwing,
     window: { startS: round3(run.window.startS), endS: round3(run.window.endS) },
     cylinders: summary.cylinders,
     events: summary.events.map((e) => ({ ...e, timeS: round3(e.timeS) })),
-    rawUnit: isCurrent ? 'A' : 'rpm',
-    spreadPercent: summary.spreadPercent,
+    rawUnit: RAW_UNIT[method],
+    spreadPercent: noCompression ? 0 : summary.spreadPercent,
     fitQuality: Math.round(fit.r2 * 1000) / 1000,
     warnings,
   };
+}
+
+const RAW_UNIT = { current: 'A', 'crank-speed': 'rpm', battery: 'V' } as const;
+const METHOD_WORDS: Record<Method, string> = { current: 'starter-current', 'crank-speed': 'crank-speed', battery: 'battery-voltage' };
+
+/** A clamp put on backwards reads the cranking current negative: read its magnitude, and say so. */
+function orientCurrent(current: Float64Array): { current: Float64Array; notice?: QualityWarning } {
+  const lo = quantileProbe(current, 0.02, 50_000);
+  const hi = quantileProbe(current, 0.98, 50_000);
+  if (!(lo < -20 && -lo > 2 * Math.max(0, hi))) return { current };
+  return {
+    current: current.map((v) => -v),
+    notice: warning('CLAMP_REVERSED', 'The current reads negative while cranking: the clamp is on backwards. The capture was read as its magnitude; turn the clamp so its arrow points along the current next time.'),
+  };
+}
+
+function withWarning(outcome: MethodOutcome, w: QualityWarning): MethodOutcome {
+  return outcome.ok ? { ok: true, run: { ...outcome.run, warnings: [w, ...outcome.run.warnings] } } : { ok: false, warnings: [w, ...outcome.warnings] };
 }
 
 function round3(v: number): number {

@@ -13,7 +13,8 @@ export { ENGINE_VERSION } from './version';
 export { ENGINE_PROFILES } from './engine/profiles';
 export { parseFiringOrder, checkFiringOrder, areNeighbours } from './engine/firing';
 export type { EngineSetup, BankLayout, Numbering } from './engine/firing';
-export { parseToothPattern } from './teeth/tooth-angles';
+export { describeWheel, parseWheel, wheelNotation } from './teeth/wheel';
+export type { ToothWheel } from './teeth/wheel';
 export type * from './types';
 export type { QualityWarning, WarningCode } from './steps/warnings';
 export { refusalFor, SURE_MAPPING } from './steps/screen';
@@ -27,3 +28,4 @@ export function analyzeBytes(
   const capture = importCapture(bytes, options);
   return { capture, result: analyzeCapture(capture.columns, settings, capture.warnings) };
 }
+export { percentText } from './format';

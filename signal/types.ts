@@ -1,7 +1,8 @@
 /** The engine's inputs and outputs. */
 import type { EngineSetup } from './engine/firing';
 import type { QualityWarning } from './steps/warnings';
-import type { ToothPattern } from './teeth/tooth-angles';
+import type { CylinderMarks } from './import/edge-log';
+import type { ToothWheel } from './teeth/wheel';
 
 /** Decoded channels of one capture; every array is aligned with `time` except `toothTimes`. */
 export interface CaptureColumns {
@@ -15,20 +16,29 @@ export interface CaptureColumns {
   sync?: Float64Array;
   /** Engine speed, rpm. */
   rpm?: Float64Array;
-  /** Crank-tooth edge times, s (a capture of its own). */
+  /** Battery voltage, V (dips as the starter draws current). */
+  battery?: Float64Array;
+  /** Crank-tooth edge times, s (a capture of its own, or the crank channel of an edge log). */
   toothTimes?: Float64Array;
+  /** Cylinder-1 mark candidates from an edge log (cam window, injector or coil bit mask), best first. */
+  marks?: CylinderMarks[];
 }
 
 export type MethodChoice = 'auto' | 'current' | 'crank-speed';
-export type Method = 'current' | 'crank-speed';
+/** `battery` is the electrical method on battery voltage (it dips as the starter current rises). */
+export type Method = 'current' | 'crank-speed' | 'battery';
 export type CylinderStatus = 'ok' | 'low' | 'uncertain';
+/** Where cylinder numbers come from: a sync channel, a cam channel, an injector or coil output, or assumed. */
+export type IdentitySource = 'sync' | 'cam' | 'injector' | 'coil' | 'assumed';
 
 export interface AnalysisSettings {
   engine: EngineSetup;
   /** @default 'auto' */
   method?: MethodChoice;
-  /** Tooth pattern; detected from the gaps when absent. */
-  teeth?: ToothPattern;
+  /** Tooth wheel (a one-gap pattern or any wheel); learned from the capture when absent. */
+  teeth?: ToothWheel;
+  /** Crank degrees from a cylinder-1 mark (cam, injector or coil) to cylinder 1's compression TDC. @default 0 for cam, 360 for injector and coil */
+  markOffsetDeg?: number;
   /** @default 90 */
   lowLimitPercent?: number;
   /** @default 10 */
@@ -43,8 +53,8 @@ export interface AnalysisSettings {
 
 export interface CylinderResult {
   cylinder: number;
-  /** Estimated compression pressure in percent of the healthy cylinders' median, 0…100. */
-  relativePercent: number;
+  /** Estimated compression pressure in percent of the healthy cylinders' median; null when the capture shows no compression to compare. */
+  relativePercent: number | null;
   status: CylinderStatus;
   /** Complete compression events used. */
   events: number;
@@ -78,14 +88,32 @@ export interface PatternHint {
   nextTests: string[];
 }
 
+/** The crank wheel as read from the capture, and what was repaired. */
+export interface WheelInfo {
+  /** In our notation, e.g. `36:15/2,14/1,3/1`. */
+  notation: string;
+  /** In words, e.g. "36 positions, 32 teeth, gaps of 2, 1 and 1". */
+  description: string;
+  learned: boolean;
+  glitchesDropped: number;
+  teethInserted: number;
+  /** Too few positions per firing interval for the crank-speed method to separate cylinders. */
+  tooCoarse: boolean;
+}
+
 export interface MethodResult {
   method: Method;
   crankingRpm: number;
-  identity: 'sync' | 'assumed';
+  identity: IdentitySource;
+  /** Where the cylinder numbers come from, in plain words. */
+  identityNote?: string;
+  wheel?: WheelInfo;
+  /** Median max/min crank speed within one compression event (crank-speed method); near 1 means no compression. */
+  speedSwing?: number;
   window: { startS: number; endS: number };
   cylinders: CylinderResult[];
   events: EventMark[];
-  rawUnit: 'A' | 'rpm';
+  rawUnit: 'A' | 'rpm' | 'V';
   /** Strongest − weakest relative compression, percentage points. */
   spreadPercent: number;
   /** Share of the crank's acceleration the torque model explains, 0…1. */
@@ -104,5 +132,5 @@ export interface AnalysisResult extends MethodResult {
     teeth?: string;
   };
   /** The other method's result when the capture holds both current and crank channels. */
-  crossCheck?: { method: Method; cylinders: { cylinder: number; relativePercent: number; status: CylinderStatus }[]; agree: boolean; maxDifference: number };
+  crossCheck?: { method: Method; cylinders: { cylinder: number; relativePercent: number | null; status: CylinderStatus }[]; agree: boolean; maxDifference: number };
 }

@@ -3,7 +3,7 @@
  * The per-cylinder chart: bars in percent with the low-limit line; status carried by a word and a fill pattern
  * as well as colour; one dot per cycle for consistency. Hovering a bar highlights that cylinder's events.
  */
-import type { CylinderResult } from '@/signal';
+import { type CylinderResult, percentText } from '@/signal';
 
 const W = 640;
 const H = 300;
@@ -48,7 +48,7 @@ export function CylinderBars({
       ))}
       {cylinders.map((c, i) => {
         const cx = PAD.l + slot * (i + 0.5);
-        const top = y(c.relativePercent);
+        const top = y(c.relativePercent ?? 0);
         const fill = c.status === 'low' ? 'url(#fill-low)' : c.status === 'uncertain' ? 'url(#fill-uncertain)' : 'rgb(var(--ok))';
         const dim = highlighted != null && highlighted !== c.cylinder;
         return (
@@ -61,14 +61,14 @@ export function CylinderBars({
             onBlur={() => onHover?.(null)}
             tabIndex={0}
             role="listitem"
-            aria-label={`Cylinder ${c.cylinder}: ${c.relativePercent} percent, ${c.status}`}
+            aria-label={`Cylinder ${c.cylinder}: ${c.relativePercent === null ? 'no figure' : `${c.relativePercent} percent`}, ${c.status}`}
           >
             <rect x={cx - barW / 2} y={top} width={barW} height={Math.max(0, y(0) - top)} fill={fill} stroke={c.status === 'ok' ? 'none' : `rgb(var(--${c.status}))`} strokeWidth="2" rx="3" />
             {c.perCycle.map((v, k) => (
               <circle key={k} cx={cx + barW / 2 + 7} cy={y(v)} r="3" fill="rgb(var(--ink))" opacity="0.7" />
             ))}
             <text x={cx} y={top - 6} textAnchor="middle" className="figures" fontSize="14" fontWeight="700" fill="rgb(var(--ink))">
-              {c.relativePercent.toFixed(0)}
+              {percentText(c.relativePercent, 0)}
             </text>
             <text x={cx} y={H - PAD.b + 20} textAnchor="middle" fontSize="15" fontWeight="700" fill="rgb(var(--ink))">
               Cyl {c.cylinder}

@@ -12,6 +12,8 @@ const ROLE_LABEL: Record<ChannelRole, string> = {
   crank: 'Crank sensor (V)',
   sync: 'Cylinder 1 sync (V)',
   rpm: 'Engine speed (rpm)',
+  battery: 'Battery voltage (V)',
+  level: 'On/off channel (sorted out on reading)',
   toothTimes: 'Tooth edge times (s)',
   ignore: 'Not used',
 };

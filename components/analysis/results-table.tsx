@@ -1,8 +1,8 @@
 /** The figures beneath the chart: raw figure (A or rpm), the plain index, events used and rejected, spread. */
-import type { CylinderResult } from '@/signal';
+import { type AnalysisResult, type CylinderResult, percentText } from '@/signal';
 import { STATUS_TEXT } from './status-style';
 
-export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult[]; rawUnit: 'A' | 'rpm' }) {
+export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult[]; rawUnit: AnalysisResult['rawUnit'] }) {
   return (
     <div className="overflow-x-auto rounded-xl border border-line">
       <table className="w-full text-right">
@@ -12,7 +12,7 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
             <th scope="col" className="px-3 py-2 text-left">Cylinder</th>
             <th scope="col" className="px-3 py-2">Relative compression</th>
             <th scope="col" className="px-3 py-2 text-left">Status</th>
-            <th scope="col" className="px-3 py-2">{rawUnit === 'A' ? 'Current rise' : 'Speed dip'}</th>
+            <th scope="col" className="px-3 py-2">{rawUnit === 'A' ? 'Current rise' : rawUnit === 'V' ? 'Voltage swing' : 'Speed dip'}</th>
             <th scope="col" className="px-3 py-2">Plain index</th>
             <th scope="col" className="px-3 py-2">Cycle spread</th>
             <th scope="col" className="px-3 py-2">Events used</th>
@@ -25,7 +25,7 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
               <th scope="row" className="px-3 py-2 text-left font-sans">
                 {c.cylinder}
               </th>
-              <td className="px-3 py-2">{c.relativePercent.toFixed(1)} %</td>
+              <td className="px-3 py-2">{percentText(c.relativePercent)} %</td>
               <td className={`px-3 py-2 text-left font-sans font-bold ${STATUS_TEXT[c.status]}`}>{c.status}</td>
               <td className="px-3 py-2">
                 {c.raw.toFixed(1)} {rawUnit}

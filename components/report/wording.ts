@@ -1,5 +1,5 @@
 /** Interpretation wording drawn from a result's verdict and pattern: a starting point the technician edits. */
-import type { AnalysisResult } from '@/signal';
+import { type AnalysisResult, percentText } from '@/signal';
 
 export function interpretationFor(r: AnalysisResult): string {
   const method = r.method === 'current' ? 'starter-current' : 'crank-speed';
@@ -11,7 +11,7 @@ export function interpretationFor(r: AnalysisResult): string {
   if (low.length === 0) {
     return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found every cylinder within the ${r.settings.lowLimitPercent} % low limit (spread ${r.spreadPercent} points). ${r.pattern.hint} ${identity}`;
   }
-  const list = low.map((c) => `cylinder ${c.cylinder} at ${c.relativePercent.toFixed(0)} %`).join(', ');
+  const list = low.map((c) => `cylinder ${c.cylinder} at ${percentText(c.relativePercent, 0)} %`).join(', ');
   return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found ${list} of the healthy cylinders, below the ${r.settings.lowLimitPercent} % low limit. ${r.pattern.hint} ${identity} A relative test does not give pressure in psi or kPa; confirm with a gauge compression test before any teardown.`;
 }
 

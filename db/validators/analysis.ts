@@ -1,9 +1,9 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
-import { type AnalysisSettings, parseToothPattern } from '../../signal';
+import { type AnalysisSettings, parseWheel } from '../../signal';
 import type { EngineSpec } from '../schema/shop';
 
-export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'toothTimes', 'ignore'] as const;
+export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'ignore'] as const;
 
 export const analysisSettingsSchema = z
   .object({
@@ -49,7 +49,7 @@ export function engineSettings(s: AnalysisSettingsValues): AnalysisSettings {
   return {
     engine: s.engine,
     method: s.method,
-    teeth: s.teeth ? (parseToothPattern(s.teeth) ?? undefined) : undefined,
+    teeth: s.teeth ? (parseWheel(s.teeth) ?? undefined) : undefined,
     lowLimitPercent: s.lowLimitPercent,
     spreadLimitPercent: s.spreadLimitPercent,
     window: s.window,

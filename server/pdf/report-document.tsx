@@ -4,7 +4,7 @@
  * engine version and SHA-256, page numbers. Built from plain data so it renders without a database.
  */
 import { Document, G, Line, Page, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
-import type { AnalysisResult } from '@/signal';
+import { type AnalysisResult, percentText } from '@/signal';
 
 export interface PdfTrace {
   t: number[];
@@ -89,7 +89,7 @@ function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?:
       ))}
       {r.cylinders.map((c, i) => {
         const x = padL + slot * i + (slot - bw) / 2;
-        const top = y(c.relativePercent);
+        const top = y(c.relativePercent ?? 0);
         const h = Math.max(0, y(0) - top);
         const color = STATUS_COLOR[c.status];
         const hatch: number[] = [];
@@ -106,7 +106,7 @@ function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?:
             {c.status === 'uncertain' &&
               Array.from({ length: Math.floor(h / 5) }, (_, k) => <Rect key={k} x={x + bw / 2 - 1} y={top + 3 + k * 5} width={2} height={2} fill={color} />)}
             <Text x={x + bw / 2} y={top - 2.5} style={{ fontSize: 7, fontFamily: 'AtkinsonMono' }} fill={C.ink} textAnchor="middle">
-              {c.relativePercent.toFixed(0)}
+              {percentText(c.relativePercent, 0)}
             </Text>
             <Text x={x + bw / 2} y={height - padB + 11} style={{ fontSize: 7.5, fontWeight: 700 }} fill={C.ink} textAnchor="middle">
               {`Cyl ${c.cylinder}`}
@@ -187,7 +187,7 @@ function Figures({ r }: { r: AnalysisResult }) {
       {r.cylinders.map((c) => (
         <View key={c.cylinder} style={s.tr}>
           <Text style={[s.td, { width: 50 }]}>{c.cylinder}</Text>
-          <Text style={[s.td, s.mono, { width: 95 }]}>{`${c.relativePercent.toFixed(1)} %`}</Text>
+          <Text style={[s.td, s.mono, { width: 95 }]}>{`${percentText(c.relativePercent)} %`}</Text>
           <Text style={[s.td, { width: 60, color: STATUS_COLOR[c.status], fontWeight: 700 }]}>{c.status}</Text>
           <Text style={[s.td, s.mono, { width: 75 }]}>{`${c.raw.toFixed(1)} ${r.rawUnit}`}</Text>
           <Text style={[s.td, s.mono, { width: 70 }]}>{`${c.plainPercent.toFixed(1)} %`}</Text>
@@ -290,7 +290,7 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
                 <View key={a.label} style={{ width: 255 }}>
                   <ChartSvg r={a.result} width={250} height={130} />
                   <Text style={s.small}>{a.label}</Text>
-                  <Text style={s.mono}>{a.result.cylinders.map((c) => `${c.cylinder}:${c.relativePercent.toFixed(0)}%`).join('  ')}</Text>
+                  <Text style={s.mono}>{a.result.cylinders.map((c) => `${c.cylinder}:${percentText(c.relativePercent, 0)}%`).join('  ')}</Text>
                 </View>
               ))}
             </View>

@@ -7,6 +7,7 @@ import { type QualityWarning, warning } from '../steps/warnings';
 import type { CaptureColumns } from '../types';
 import { checkTime, checkValues, fillMissing } from './check-columns';
 import { parseNumberField } from './header';
+import { chooseEdgeChannels } from './edge-log';
 import { type ChannelMapping, type ChannelRole, mapChannels, mappingConfidence } from './map-channels';
 import { NumberParser } from './parse-numbers';
 import { SNIFF_BYTES, type SniffResult, sniffCapture } from './sniff';
@@ -36,6 +37,8 @@ export interface ImportedCapture {
   sniff: SniffResult;
   rows: number;
   warnings: QualityWarning[];
+  /** How the file was read, in plain words (an edge log's crank and mark channels, a units row). */
+  notes: string[];
 }
 
 /** Streaming importer: push the file's bytes from the start in chunks, then finish. */
@@ -97,6 +100,7 @@ export class CaptureImporter {
     const parsed = this.parser.finish();
     const s = this.sniff;
     const warnings: QualityWarning[] = [];
+    const notes: string[] = [];
     const firstLine = s.firstDataLine + 1;
     if (parsed.rows === 0) throw new CaptureError('NO_NUMERIC_DATA', 'The file holds a header but no rows of numbers; export the capture again.');
     if (parsed.firstBadField && parsed.badFields > Math.max(2, parsed.rows * 0.01)) {
@@ -115,14 +119,22 @@ export class CaptureImporter {
       warnings.push(warning('MISSING_VALUES', `${parsed.raggedRows} row(s) have the wrong number of fields (first at line ${parsed.firstRaggedLine}); their missing fields are treated as missing.`));
     }
 
-    const roles = this.mapping.roles;
+    const roles = [...this.mapping.roles];
     const columns: CaptureColumns = {};
     const channels: ChannelInfo[] = [];
+    const edgeLog = this.mapping.edgeLog || roles.includes('level');
+    const levels: { index: number; name: string; values: Float64Array }[] = [];
+    let overRange = 0;
     for (let c = 0; c < roles.length; c++) {
       const role = roles[c];
       channels.push({ index: c, role, name: s.columns[c].name, unit: s.columns[c].unit, confidence: this.given ? 1 : this.mapping.confidence[c] });
       if (role === 'ignore') continue;
       const v = parsed.columns[c];
+      if (role !== 'time' && role !== 'toothTimes') overRange += markOverRange(v);
+      if (role === 'level' || (edgeLog && (role === 'crank' || role === 'sync'))) {
+        levels.push({ index: c, name: s.columns[c].name, values: v });
+        continue;
+      }
       if (role === 'time' || role === 'toothTimes') {
         if (role === 'time' && this.mapping.timeIsIndex) {
           const rate = this.options.sampleRateHz;
@@ -134,13 +146,36 @@ export class CaptureImporter {
           const k = this.mapping.timeScale;
           for (let i = 0; i < v.length; i++) v[i] *= k;
         }
-        warnings.push(...checkTime(v, firstLine));
+        // An edge log's rows come at level changes: its time steps are uneven by nature.
+        warnings.push(...checkTime(v, firstLine).filter((w) => !(edgeLog && w.code === 'TIME_GAPS')));
         if (parsed.missingValues > 0) fillMissing(v);
       } else {
-        const missing = parsed.missingValues > 0 ? fillMissing(v) : 0;
+        const missing = parsed.missingValues > 0 || overRange > 0 ? fillMissing(v) : 0;
         warnings.push(...checkValues(`${s.columns[c].name}`, v, role === 'current' || role === 'rpm', missing));
       }
-      columns[role] = v;
+      columns[role as Exclude<ChannelRole, 'ignore' | 'level'>] = v;
+    }
+    if (overRange > 0) {
+      warnings.push(warning('OVER_RANGE', `${overRange} sample(s) hold the scope's over-range value (the signal left the set range); they are treated as missing. Set a larger range and record again if the trace looks cut.`));
+    }
+    if (edgeLog && columns.time) {
+      const forcedCrank = this.given ? roles.indexOf('crank') : -1;
+      const forcedMark = this.given ? roles.indexOf('sync') : -1;
+      const chosen = chooseEdgeChannels(columns.time, levels, forcedCrank >= 0 ? forcedCrank : undefined, forcedMark >= 0 ? forcedMark : undefined);
+      delete columns.crank;
+      delete columns.sync;
+      if (chosen) {
+        columns.toothTimes = chosen.toothTimes;
+        if (chosen.marks.length) columns.marks = chosen.marks;
+        for (const ch of channels) {
+          if (ch.index === chosen.crankIndex) ch.role = 'crank';
+          else if (chosen.markIndices.includes(ch.index)) ch.role = 'sync';
+          else if (ch.role === 'level') ch.role = 'ignore';
+        }
+        notes.push(`Read as an edge log: ${chosen.toothTimes.length} ${chosen.crankEdge} edges of "${s.columns[chosen.crankIndex].name}" are the crank teeth${chosen.marks.length ? `; "${chosen.marks[0].channel}" may mark cylinder 1` : ''}.`);
+      } else {
+        for (const ch of channels) if (ch.role === 'level') ch.role = 'ignore';
+      }
     }
     if (roles.length === 1 && roles[0] !== 'toothTimes') {
       throw new CaptureError('ONE_COLUMN', 'The file has a single column that is not a list of tooth times; export the time column together with the channels.', { column: 1 });
@@ -148,7 +183,7 @@ export class CaptureImporter {
     if (columns.toothTimes && roles.length === 1 && warnings.some((w) => w.code === 'TIME_NOT_MONOTONIC')) {
       throw new CaptureError('ONE_COLUMN', 'The single column is not a rising list of tooth times; export the time column together with the channels.', { column: 1 });
     }
-    return { columns, channels, confidence: this.given ? 1 : mappingConfidence(this.mapping), sniff: s, rows: parsed.rows, warnings: dedupe(warnings) };
+    return { columns, channels, confidence: this.given ? 1 : mappingConfidence(this.mapping), sniff: s, rows: parsed.rows, warnings: dedupe(warnings), notes };
   }
 }
 
@@ -161,6 +196,19 @@ export function importCapture(bytes: Uint8Array, options: ImportOptions = {}, on
     onProgress?.(Math.min(1, (o + step) / bytes.length));
   }
   return importer.finish();
+}
+
+/** Scopes write 9.9E37 (or ±Infinity) when the signal leaves the range: make those samples missing. */
+function markOverRange(v: Float64Array): number {
+  let n = 0;
+  for (let i = 0; i < v.length; i++) {
+    const x = v[i];
+    if (x >= 1e30 || x <= -1e30) {
+      v[i] = NaN;
+      n++;
+    }
+  }
+  return n;
 }
 
 function dedupe(w: QualityWarning[]): QualityWarning[] {

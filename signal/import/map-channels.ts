@@ -1,8 +1,10 @@
 /** Maps a capture's columns to channels from their names, units and values, each with a confidence 0…1. */
+import { isLevelLike, looksLikeEdgeLog } from './edge-log';
 import type { HeaderCell } from './header';
 import { timeScale } from './header';
 
-export type ChannelRole = 'time' | 'current' | 'crank' | 'sync' | 'rpm' | 'toothTimes' | 'ignore';
+/** `battery` is battery voltage; `level` is a 0/1 or bit-mask column of an edge log, sorted out on import. */
+export type ChannelRole = 'time' | 'current' | 'crank' | 'sync' | 'rpm' | 'battery' | 'level' | 'toothTimes' | 'ignore';
 
 export interface ChannelMapping {
   /** Role per column, in column order. */
@@ -13,10 +15,13 @@ export interface ChannelMapping {
   timeScale: number;
   /** The time column counts samples and needs a sample rate. */
   timeIsIndex: boolean;
+  /** Rows are level changes (an edge log), not samples at a steady rate. */
+  edgeLog: boolean;
 }
 
 const RULES: { role: ChannelRole; name: RegExp; units: RegExp }[] = [
   { role: 'time', name: /^(t|time|zeit|temps|sec|seconds|timestamp)\b/i, units: /^(s|ms|us|µs|μs|ns|sec|msec)$/i },
+  { role: 'battery', name: /batt|vbat|battery|supply.?volt|bordnetz/i, units: /^$/ },
   { role: 'rpm', name: /rpm|engine.?speed|crank.?speed|speed/i, units: /^(rpm|1\/min|min-1|u\/min)$/i },
   { role: 'current', name: /current|amp|starter|clamp|strom|\bi\b/i, units: /^(a|amps?|ampere)$/i },
   { role: 'sync', name: /sync|cyl(inder)?.?1|trigger|ign|coil|inj|cam|cmp/i, units: /^$/ },
@@ -38,14 +43,18 @@ export function mapChannels(cells: HeaderCell[], values: Float64Array[]): Channe
   if (n === 1) {
     const mono = isIncreasing(values[0]);
     assign(0, 'toothTimes', mono ? (/tooth|edge|time/i.test(cells[0].name) ? 0.95 : 0.75) : 0.2);
-    return { roles, confidence, timeScale: timeScale(cells[0].unit) ?? 1, timeIsIndex: false };
+    return { roles, confidence, timeScale: timeScale(cells[0].unit) ?? 1, timeIsIndex: false, edgeLog: false };
   }
+  const edge = edgeLogMapping(cells, values);
+  if (edge) return edge;
 
   // Names and units first.
   for (let i = 0; i < n; i++) {
     const { name, unit } = cells[i];
     for (const r of RULES) {
       if (taken.has(r.role)) continue;
+      // A battery-cable clamp reads amps: that is current, not battery voltage.
+      if (r.role === 'battery' && unit !== null && !/^(v|mv)$/i.test(unit.trim())) continue;
       const byName = r.name.test(name);
       const byUnit = unit !== null && r.units.source !== '^$' && r.units.test(unit.trim());
       if (byName && byUnit) assign(i, r.role, 0.95);
@@ -75,7 +84,22 @@ export function mapChannels(cells: HeaderCell[], values: Float64Array[]): Channe
   const unit = ti >= 0 ? cells[ti].unit : null;
   const scale = timeScale(unit);
   const timeIsIndex = ti >= 0 && scale === null && (/index|sample|^n$|^#$/i.test(cells[ti].name) || isIntegerRamp(values[ti]));
-  return { roles, confidence, timeScale: scale ?? 1, timeIsIndex };
+  return { roles, confidence, timeScale: scale ?? 1, timeIsIndex, edgeLog: false };
+}
+
+/**
+ * An edge log: a time column by name, irregular steps and 0/1 columns. Whole-number columns are levels (sorted
+ * into crank and marks on import), a battery column by name is kept, the rest is ignored.
+ */
+function edgeLogMapping(cells: HeaderCell[], values: Float64Array[]): ChannelMapping | null {
+  const ti = cells.findIndex((c) => RULES[0].name.test(c.name));
+  if (ti < 0) return null;
+  const others = values.filter((_, i) => i !== ti);
+  if (!looksLikeEdgeLog(values[ti], others)) return null;
+  const roles: ChannelRole[] = cells.map((c, i) =>
+    i === ti ? 'time' : RULES[1].name.test(c.name) ? 'battery' : isLevelLike(values[i]) ? 'level' : 'ignore',
+  );
+  return { roles, confidence: roles.map(() => 0.9), timeScale: timeScale(cells[ti].unit) ?? 1, timeIsIndex: false, edgeLog: true };
 }
 
 /** The lowest confidence among mapped columns: below 0.7 the user should confirm the mapping. */

@@ -3,7 +3,7 @@
  * waveform), the missing-tooth gap for the angle, speed per tooth, and the torque-balance fit. An engine-speed
  * channel (rpm) is integrated for the angle instead.
  */
-import { type EngineSetup } from '../engine/firing';
+import { type EngineSetup, firingIntervals } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { median } from '../dsp/stats';
 import { windowFromSpeed } from '../steps/cranking-window';
@@ -13,7 +13,11 @@ import { eventCountWarning, resampleByAngle } from '../steps/event-count';
 import { findSyncPulses } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../steps/warnings';
 import { guessSensorKind, type SensorKind, toothTimesFromWaveform } from '../teeth/from-waveform';
-import { detectPattern, type ToothPattern, toothAngles } from '../teeth/tooth-angles';
+import { dropGlitches, learnWheel, wheelAngles } from '../teeth/learn-wheel';
+import { describeWheel, type ToothWheel, wheelNotation } from '../teeth/wheel';
+import type { CylinderMarks, MarkSource } from '../import/edge-log';
+import { compressionEvidence, MIN_COMPRESSION_SWING } from '../steps/compression-evidence';
+import type { IdentitySource, WheelInfo } from '../types';
 import type { CrankingWindow } from '../steps/cranking-window';
 import type { MethodOutcome } from './current';
 
@@ -22,9 +26,15 @@ export interface CrankInput {
   time?: Float64Array;
   crank?: Float64Array;
   sync?: Float64Array;
+  /** Cylinder-1 mark candidates from an edge log, best first. */
+  marks?: CylinderMarks[];
   sensor?: 'auto' | SensorKind;
-  teeth?: ToothPattern;
+  teeth?: ToothWheel;
+  markOffsetDeg?: number;
 }
+
+/** A wheel with fewer positions than this per firing interval cannot separate cylinders by crank speed. */
+const MIN_POSITIONS_PER_EVENT = 4;
 
 export function runCrankSpeedMethod(
   input: CrankInput,
@@ -47,13 +57,37 @@ export function runCrankSpeedMethod(
   if (!times || times.length < 20) {
     return fail('NO_CRANKING', 'No crank teeth were found: the crank did not turn, or the crank sensor channel is not connected. Check the probe and record while cranking.');
   }
-  const pattern = input.teeth ?? detectPattern(times);
-  if (!pattern) {
-    return fail('NO_TOOTH_GAP', 'No missing-tooth gap was found in the crank signal, so crank angle is unknown; set the tooth pattern (for example 60-2) or check the sensor signal.');
+  const clean = dropGlitches(times);
+  const learned = !input.teeth;
+  const wheel = input.teeth ?? learnWheel(clean.times);
+  if (!wheel) {
+    return fail('NO_TOOTH_GAP', 'No gap or extra tooth repeats in the crank signal, so crank angle is unknown; set the wheel (for example 60-2, or 36:15/2,14/1,3/1 for several gaps) or check the sensor signal.');
   }
-  const angles = toothAngles(times, pattern);
+  const angles = wheelAngles(clean.times, wheel);
   if (!angles || angles.revolutions < 2) {
-    return fail('NO_TOOTH_GAP', `The ${pattern.count}-${pattern.missing} gap was not found at least twice; check the tooth pattern setting and record longer.`);
+    return fail('NO_TOOTH_GAP', `The ${describeWheel(wheel)} wheel was not found at least twice in a row; check the wheel setting and record longer.`);
+  }
+  const iv = firingIntervals(setup);
+  const pitch = 360 / wheel.positions;
+  const wheelInfo: WheelInfo = {
+    notation: wheelNotation(wheel),
+    description: describeWheel(wheel),
+    learned,
+    glitchesDropped: clean.dropped + angles.dropped,
+    teethInserted: angles.inserted,
+    tooCoarse: Math.min(...iv) / pitch < MIN_POSITIONS_PER_EVENT,
+  };
+  const repaired = wheelInfo.glitchesDropped + wheelInfo.teethInserted;
+  if (repaired > 0 || angles.unmatched > 0) {
+    const parts = [
+      wheelInfo.glitchesDropped ? `${wheelInfo.glitchesDropped} glitch edge(s) dropped` : '',
+      wheelInfo.teethInserted ? `${wheelInfo.teethInserted} missing tooth edge(s) inserted` : '',
+      angles.unmatched ? `${angles.unmatched} revolution(s) that did not match the wheel left out` : '',
+    ].filter(Boolean);
+    warnings.push(warning('TEETH_REPAIRED', `The crank signal was repaired: ${parts.join(', ')}. Check the sensor wiring and probe ground if this happens often.`));
+  }
+  if (angles.unmatched > angles.revolutions) {
+    return fail('NO_TOOTH_GAP', `Most revolutions (${angles.unmatched}) did not match the ${describeWheel(wheel)} wheel; check the wheel setting and the sensor signal.`);
   }
   // Speed per tooth interval, for the window and the sample-rate check.
   const m0 = motionFromTeeth(angles.times, angles.angleDeg, -Infinity, Infinity);
@@ -61,33 +95,104 @@ export function runCrankSpeedMethod(
   if (!window) return fail('NO_CRANKING', 'The crank never turned steadily; record 5–10 s of cranking.');
   if (sampleRate > 0) {
     const fastest = Math.max(...sampleSpeeds(m0.s));
-    const toothPeriodS = (2 * Math.PI) / pattern.count / fastest;
-    if (toothPeriodS * sampleRate < 4) {
-      warnings.push(warning('SAMPLE_RATE_TOO_LOW', `At ${Math.round(sampleRate)} samples/s each ${pattern.count}-${pattern.missing} tooth gets fewer than 4 samples; record at ${Math.ceil((8 / toothPeriodS) / 1000)} kS/s or more.`));
+    const periodS = (2 * Math.PI) / wheel.positions / fastest;
+    if (periodS * sampleRate < 4) {
+      warnings.push(warning('SAMPLE_RATE_TOO_LOW', `At ${Math.round(sampleRate)} samples/s each tooth of the ${wheelInfo.notation} wheel gets fewer than 4 samples; record at ${Math.ceil((8 / periodS) / 1000)} kS/s or more.`));
     }
   }
   const motion = motionFromTeeth(angles.times, angles.angleDeg, window.startS, window.endS);
-  // With sync, put the first sync pulse at 0° (mod 720) on the motion's scale.
-  let identity: 'sync' | 'assumed' = 'assumed';
+  // Cylinder 1: a sync channel's pulse near TDC, or a cam/injector/coil mark a known angle before it.
+  let identity: IdentitySource = 'assumed';
+  let identityNote: string | undefined;
   if (input.sync && input.time) {
     const rpm0 = (median(m0.s) * 60) / (2 * Math.PI);
     const pulses = findSyncPulses(input.time, input.sync, (0.6 * 120) / Math.max(30, rpm0)).filter(
       (s) => s >= window.startS && s <= window.endS,
     );
     if (pulses.length >= 2) {
-      const theta0 = angleAtTime(motion.t, motion.thetaDeg, pulses[0]);
-      for (let r = 0; r < motion.thetaDeg.length; r++) motion.thetaDeg[r] -= theta0;
+      shiftAngles(motion, angleAtTime(angles.times, angles.angleDeg, pulses[0]));
       identity = 'sync';
     } else {
       warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
     }
+  } else if (input.marks?.length) {
+    const mark = firstCycleMark(input.marks, angles.times, angles.angleDeg, window);
+    if (mark) {
+      const offset = input.markOffsetDeg ?? DEFAULT_MARK_OFFSET_DEG[mark.marks.source];
+      shiftAngles(motion, mark.firstAngle + offset);
+      identity = mark.marks.source;
+      identityNote = `Cylinder 1 from "${mark.marks.channel}" (${MARK_WORDS[mark.marks.source]}), taking cylinder 1's compression TDC ${offset}° after its mark; set the mark offset from the service information if it differs.`;
+      const order = mark.marks.order;
+      if (order && order.length === setup.cylinders && !sameCycle(order, setup.firingOrder)) {
+        warnings.push(warning('MARK_ORDER', `"${mark.marks.channel}" names the cylinders in the order ${order.join('-')}, but the firing order set up is ${setup.firingOrder.join('-')}; only cylinder 1 is taken from it. Check the firing order against the service information.`));
+      }
+    } else {
+      warnings.push(warning('SYNC_NOT_FOUND', `"${input.marks[0].channel}" does not mark one point every engine cycle (720°), so it cannot name cylinder 1; cylinder numbers below are assumed.`));
+    }
   }
   const mismatch = countCheck(motion, setup, 'crank speed');
   if (mismatch) warnings.push(mismatch);
-  const fit = runFit(motion, setup, identity === 'sync', rotation);
+  const synced = identity !== 'assumed';
+  let fit = runFit(motion, setup, synced, rotation);
   if (!fit) return fail('TOO_FEW_CYCLES', 'The crank signal holds too little cranking to fit; crank for 5–10 s.');
+  const half = Math.min(...iv) / 2;
+  const evidence = compressionEvidence(motion, fit, half);
+  if (evidence.swing < MIN_COMPRESSION_SWING) {
+    warnings.push(warning('NO_COMPRESSION', `No compression signature: the crank speed varies only ${((evidence.swing - 1) * 100).toFixed(0)} % within each event (an engine with compression swings 2× or more; below ${Math.round((MIN_COMPRESSION_SWING - 1) * 100)} % nothing can be compared). Spark plugs out, a decompression device or the wrong channel give this; refit the plugs and record again.`));
+  } else if (evidence.fired.size > 0) {
+    warnings.push(warning('ENGINE_FIRED', `The engine fired during the test: ${evidence.fired.size} event(s) sped the crank up sharply after top dead centre and were left out. Disable fuel and ignition as the service information directs and record again.`));
+    fit = runFit(motion, setup, synced, rotation, evidence.fired) ?? fit;
+  }
+  if (wheelInfo.tooCoarse) {
+    warnings.push(warning('WHEEL_TOO_COARSE', `The ${wheelInfo.description} wheel gives fewer than ${MIN_POSITIONS_PER_EVENT} teeth per compression event, too coarse for crank speed to separate cylinders; the electrical channel is used when there is one.`));
+  }
   const rpm = meanRpm(motion);
-  return { ok: true, run: { motion, fit, window, rpm, identity, warnings } };
+  return {
+    ok: true,
+    run: { motion, fit, window, rpm, identity, identityNote, warnings, wheel: wheelInfo, speedSwing: Math.round(evidence.swing * 100) / 100, excluded: evidence.fired, toothAngles: angles },
+  };
+}
+
+const DEFAULT_MARK_OFFSET_DEG: Record<MarkSource, number> = { cam: 0, injector: 360, coil: 0 };
+const MARK_WORDS: Record<MarkSource, string> = { cam: 'a cam channel', injector: 'the cylinder 1 injector output', coil: 'the cylinder 1 coil output' };
+
+function shiftAngles(motion: CrankMotion, theta0: number): void {
+  for (let r = 0; r < motion.thetaDeg.length; r++) motion.thetaDeg[r] -= theta0;
+}
+
+/** The first candidate whose marks inside the window fall 720° apart (±25°, at least 2 of them). */
+function firstCycleMark(
+  candidates: CylinderMarks[],
+  times: Float64Array,
+  angleDeg: Float64Array,
+  window: CrankingWindow,
+): { marks: CylinderMarks; firstAngle: number } | null {
+  for (const marks of candidates) {
+    const inside = Array.from(marks.times).filter((t) => t >= Math.max(window.startS, times[0]) && t <= Math.min(window.endS, times[times.length - 1]));
+    if (inside.length < 2) continue;
+    const all = inside.map((t) => angleAtTime(times, angleDeg, t));
+    // A cam with several windows: the edge after the widest space between edges comes once a cycle.
+    const th = all.length > 2 && all[all.length - 1] - all[0] < 720 * (all.length - 1) * 0.8 ? afterWidestSpace(all) : all;
+    let good = 0;
+    for (let k = 1; k < th.length; k++) if (Math.abs(th[k] - th[k - 1] - 720) < 25) good++;
+    if (th.length >= 2 && good >= 0.8 * (th.length - 1)) return { marks, firstAngle: th[0] };
+  }
+  return null;
+}
+
+/** The angles that follow a space at least 90 % as wide as the widest one. */
+function afterWidestSpace(th: number[]): number[] {
+  let widest = 0;
+  for (let k = 1; k < th.length; k++) widest = Math.max(widest, th[k] - th[k - 1]);
+  const out: number[] = [];
+  for (let k = 1; k < th.length; k++) if (th[k] - th[k - 1] >= 0.9 * widest) out.push(th[k]);
+  return out;
+}
+
+/** Two orders are the same cycle when one is a rotation of the other. */
+function sameCycle(a: number[], b: number[]): boolean {
+  const i = b.indexOf(a[0]);
+  return i >= 0 && a.every((c, k) => b[(i + k) % b.length] === c);
 }
 
 /** The engine-speed-channel variant: rpm sampled over time. */

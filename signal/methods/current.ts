@@ -16,6 +16,8 @@ import { runFit } from '../steps/run-fit';
 import { eventCountWarning } from '../steps/event-count';
 import { findSyncPulses } from '../steps/sync-pulses';
 import type { TorqueFit } from '../steps/torque-fit';
+import type { Summary } from '../steps/summarize';
+import type { IdentitySource, WheelInfo } from '../types';
 import { type QualityWarning, warning } from '../steps/warnings';
 
 export interface MethodRun {
@@ -23,8 +25,19 @@ export interface MethodRun {
   fit: TorqueFit;
   window: CrankingWindow;
   rpm: number;
-  identity: 'sync' | 'assumed';
+  identity: IdentitySource;
+  identityNote?: string;
   warnings: QualityWarning[];
+  wheel?: WheelInfo;
+  speedSwing?: number;
+  /** Events left out of the figures from the start (combustion), as the fit's exclude keys. */
+  excluded?: Set<string>;
+  /** The crank's tooth angles, for an electrical channel sampled at each edge. */
+  toothAngles?: { times: Float64Array; angleDeg: Float64Array };
+  /** Figures made by the method itself (an electrical channel read along the crank's events). */
+  figures?: Summary;
+  /** Multiplies the raw figure into its unit (battery volts from equivalent amps). @default 1 */
+  rawScale?: number;
 }
 
 export type MethodOutcome = { ok: true; run: MethodRun } | { ok: false; warnings: QualityWarning[] };

@@ -29,7 +29,7 @@ export function describePattern(setup: EngineSetup, cylinders: CylinderResult[],
       nextTests: [],
     };
   }
-  const dead = cylinders.filter((c) => c.status === 'low' && c.relativePercent < 25).map((c) => c.cylinder);
+  const dead = cylinders.filter((c) => c.status === 'low' && (c.relativePercent ?? 100) < 25).map((c) => c.cylinder);
   if (low.length === 1) {
     const zero = dead.length === 1;
     return {

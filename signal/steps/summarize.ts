@@ -55,14 +55,12 @@ export function summarize(
   halfIntervalDeg: number,
   isCurrent: boolean,
   lowLimitPercent: number,
+  /** Events to show but leave out of the figures (combustion), as the fit's exclude keys. */
+  skip: ReadonlySet<string> = new Set(),
 ): Summary {
   const n = cylinderCount;
   const est = Array.from(fit.pressure);
-  // Reference: the median of the cylinders at or above the low limit of the strongest.
-  const finite = est.filter(Number.isFinite);
-  const strongest = Math.max(...finite);
-  const healthy = finite.filter((v) => v >= (lowLimitPercent / 100) * strongest);
-  const ref = median(healthy.length ? healthy : finite);
+  const ref = healthyReference(est, lowLimitPercent);
 
   const perEvent: number[][] = Array.from({ length: n }, () => []);
   const plain: number[][] = Array.from({ length: n }, () => []);
@@ -75,7 +73,7 @@ export function summarize(
     const c = ev.cylinder - 1;
     const value = fit.perEvent[e];
     const timeS = timeAtAngle(m, ev.tdcDeg);
-    if (!ev.complete || !Number.isFinite(value)) {
+    if (!ev.complete || !Number.isFinite(value) || skip.has(eventKey(ev))) {
       events.push({ timeS, cylinder: ev.cylinder, used: false });
       continue;
     }
@@ -117,6 +115,14 @@ export function summarize(
   const valid = ratios.filter(Number.isFinite);
   const spreadPercent = valid.length ? round1(Math.max(...valid) - Math.min(...valid)) : 0;
   return { cylinders, events, spreadPercent, rejectedKeys };
+}
+
+/** The reference: the median of the figures at or above the low limit of the strongest. */
+export function healthyReference(figures: number[], lowLimitPercent: number): number {
+  const finite = figures.filter(Number.isFinite);
+  const strongest = Math.max(...finite);
+  const healthy = finite.filter((v) => v >= (lowLimitPercent / 100) * strongest);
+  return median(healthy.length ? healthy : finite);
 }
 
 export function round1(v: number): number {

@@ -18,7 +18,14 @@ export type WarningCode =
   | 'TIME_NOT_MONOTONIC'
   | 'TIME_GAPS'
   | 'MISSING_VALUES'
-  | 'NO_USABLE_CHANNEL';
+  | 'NO_USABLE_CHANNEL'
+  | 'OVER_RANGE'
+  | 'NO_COMPRESSION'
+  | 'ENGINE_FIRED'
+  | 'CLAMP_REVERSED'
+  | 'WHEEL_TOO_COARSE'
+  | 'TEETH_REPAIRED'
+  | 'MARK_ORDER';
 
 export interface QualityWarning {
   code: WarningCode;
@@ -41,4 +48,5 @@ export const THIN_EVIDENCE: ReadonlySet<WarningCode> = new Set<WarningCode>([
   'NO_TOOTH_GAP',
   'NO_USABLE_CHANNEL',
   'TIME_NOT_MONOTONIC',
+  'NO_COMPRESSION',
 ]);

@@ -45,7 +45,7 @@ describe.skipIf(!hasPoppler)('report PDF', () => {
       expect(text, section).toContain(section);
     }
     const r = data.analyses[0].result;
-    for (const c of r.cylinders) expect(text).toContain(`${c.relativePercent.toFixed(1)} %`);
+    for (const c of r.cylinders) expect(text).toContain(`${c.relativePercent!.toFixed(1)} %`);
     expect(text).toContain(`${r.crankingRpm} rpm`);
     expect(text).toContain(r.engineVersion);
     expect(text).toContain('a'.repeat(64));

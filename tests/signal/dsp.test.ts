@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { decimateMinMax } from '@/signal/dsp/decimate';
 import { compressionEventRateHz, estimateRate } from '@/signal/dsp/event-rate';
 import { choleskySolve } from '@/signal/dsp/solve';
-import { toothPeriodS } from '@/signal/teeth/tooth-angles';
+import { toothPeriodS } from '@/signal/teeth/wheel';
 
 describe('fft.js against a naive DFT (the definition X_k = Σ x_n e^(−2πikn/N))', () => {
   it.each([16, 64, 256])('size %i', (size) => {

@@ -8,6 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeCapture } from '@/signal/analyze';
 import type { EngineSetup } from '@/signal/engine/firing';
+import { simpleWheel } from '@/signal/teeth/wheel';
 import { simulateCranking, type SimChannel } from '@/signal/sim/simulate';
 import type { CaptureColumns } from '@/signal/types';
 
@@ -62,9 +63,9 @@ function columnsFor(c: Case, seed: number): { columns: CaptureColumns; truth: Fl
 describe('recovery against the simulator', () => {
   it.each(cases.map((c) => [c.name, c] as const))('%s', (_n, c) => {
     const { columns, truth } = columnsFor(c, 11);
-    const result = analyzeCapture(columns, { engine: c.engine, teeth: c.teeth });
+    const result = analyzeCapture(columns, { engine: c.engine, teeth: c.teeth && simpleWheel(c.teeth.count, c.teeth.missing) });
     expect(result.verdict).not.toBe('uncertain');
-    const got = result.cylinders.map((x) => x.relativePercent);
+    const got = result.cylinders.map((x) => x.relativePercent ?? NaN);
     const want = Array.from(truth, (t) => Math.min(100, t));
     const synced = c.method.includes('sync');
     expect(result.identity).toBe(synced ? 'sync' : 'assumed');

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyzeBytes } from '@/signal';
 import { CaptureError } from '@/signal/errors';
-import { parseToothPattern } from '@/signal/teeth/tooth-angles';
+import { parseWheel } from '@/signal/teeth/wheel';
 import type { EngineSetup } from '@/signal/engine/firing';
 
 interface Entry {
@@ -19,7 +19,7 @@ const bytes = (f: string) => new Uint8Array(readFileSync(`samples/${f}`));
 
 describe('curated samples', () => {
   it.each(manifest.filter((m) => m.truthPercent).map((m) => [m.file, m] as const))('%s', (_f, m) => {
-    const { result } = analyzeBytes(bytes(m.file), { engine: m.engine!, teeth: m.teeth ? parseToothPattern(m.teeth)! : undefined });
+    const { result } = analyzeBytes(bytes(m.file), { engine: m.engine!, teeth: m.teeth ? parseWheel(m.teeth)! : undefined });
     const lowTruth = m.truthPercent!.filter((v) => v < 90).length;
     const low = result.cylinders.filter((c) => c.status === 'low');
     expect(result.verdict).not.toBe('uncertain');

@@ -1,7 +1,7 @@
 /** A small per-cylinder sparkline of a saved result: bar heights with the status shown by fill pattern. */
 interface Mini {
   cylinder: number;
-  relativePercent: number;
+  relativePercent: number | null;
   status: 'ok' | 'low' | 'uncertain';
 }
 
@@ -13,7 +13,7 @@ export function MiniBars({ cylinders, label }: { cylinders: Mini[]; label: strin
   return (
     <div role="img" aria-label={label} className="flex items-end" style={{ height: h, gap }}>
       {cylinders.map((c) => (
-        <span key={c.cylinder} className={`${cls[c.status]} inline-block rounded-sm`} style={{ width: w, height: Math.max(3, (h * c.relativePercent) / 100) }} />
+        <span key={c.cylinder} className={`${cls[c.status]} inline-block rounded-sm`} style={{ width: w, height: Math.max(3, (h * (c.relativePercent ?? 0)) / 100) }} />
       ))}
     </div>
   );

@@ -1,0 +1,306 @@
+/**
+ * Learns a tooth wheel from crank edge times and gives every edge its crank angle. Each tooth period is
+ * measured in local pitches (the period over the median of its seven neighbours), so a gap of k missing teeth
+ * reads about k + 1 and an extra tooth splits one pitch into a short pair. The pattern's repeat is one
+ * revolution; each position's size is the median over all revolutions. Glitch edges (far too soon after the
+ * last) are dropped first; a revolution with one edge too few or too many is repaired and counted.
+ */
+import { type ToothWheel, teethOf } from './wheel';
+
+export interface WheelAngles {
+  wheel: ToothWheel;
+  /** Edge times, s, of the revolutions that matched the wheel. */
+  times: Float64Array;
+  /** Crank angle of each edge, degrees, unwrapped; 0 at position 0 of the first matched revolution. */
+  angleDeg: Float64Array;
+  revolutions: number;
+  /** Edges dropped as glitches (too soon, or one too many in a revolution). */
+  dropped: number;
+  /** Edges inserted where one was missing. */
+  inserted: number;
+  /** Revolutions whose edges could not be matched to the wheel (left out). */
+  unmatched: number;
+}
+
+/** Edges closer than this share of the local tooth period to the previous one are glitches. */
+const GLITCH_SHARE = 0.2;
+
+/** Drops edges that come far too soon after the previous one (contact bounce, ignition noise). */
+export function dropGlitches(times: Float64Array): { times: Float64Array; dropped: number } {
+  const n = times.length;
+  if (n < 4) return { times, dropped: 0 };
+  const out: number[] = [times[0]];
+  let dropped = 0;
+  const d = new Float64Array(n - 1);
+  for (let k = 0; k + 1 < n; k++) d[k] = times[k + 1] - times[k];
+  for (let k = 1; k < n; k++) {
+    const local = localMedian(d, k - 1, 4);
+    if (times[k] - out[out.length - 1] < GLITCH_SHARE * local || !(times[k] > out[out.length - 1])) {
+      dropped++;
+      continue;
+    }
+    out.push(times[k]);
+  }
+  return { times: Float64Array.from(out), dropped };
+}
+
+/**
+ * Each period in local pitches. On a fine wheel the local pitch is the geometric mean of the two periods next
+ * to it (a compression dip spans many teeth, so neighbours are alike); on a coarse wheel, whose neighbours swing
+ * with compression from one tooth to the next, it is the median of the six periods around it.
+ */
+export function pitchUnits(times: Float64Array, coarse = false): Float64Array {
+  const n = times.length - 1;
+  const d = new Float64Array(Math.max(0, n));
+  for (let k = 0; k < n; k++) d[k] = times[k + 1] - times[k];
+  const u = new Float64Array(Math.max(0, n));
+  for (let k = 0; k < n; k++) {
+    u[k] = coarse || k === 0 || k + 1 >= n ? d[k] / localMedian(d, k, 3, true) : d[k] / Math.sqrt(d[k - 1] * d[k + 1]);
+  }
+  return u;
+}
+
+/** Fewer teeth than this per revolution make a coarse wheel. */
+const COARSE_TEETH = 16;
+
+function localMedian(d: Float64Array, k: number, half: number, excludeSelf = false): number {
+  const vals: number[] = [];
+  for (let j = Math.max(0, k - half); j <= Math.min(d.length - 1, k + half); j++) if (!(excludeSelf && j === k)) vals.push(d[j]);
+  vals.sort((a, b) => a - b);
+  return vals.length ? vals[vals.length >> 1] : d[k];
+}
+
+/** Period class: 0 a plain pitch, k ≥ 1 a gap of k missing teeth, −1 the short first half of an extra tooth. */
+function classify(u: Float64Array, k: number): number {
+  const x = u[k];
+  if (x >= 1.5) return Math.min(3, Math.round(x) - 1);
+  if (x < 0.7 && k + 1 < u.length && u[k] + u[k + 1] > 0.8 && u[k] + u[k + 1] < 1.25) return -1;
+  return 0;
+}
+
+/**
+ * Learns the wheel: the repeat of the period classes is one revolution; each position's size is the median over
+ * revolutions. Null when no gap or extra tooth repeats (a wheel with no reference mark cannot give an angle).
+ */
+export function learnWheel(times: Float64Array): ToothWheel | null {
+  const fine = learnWith(pitchUnits(times, false));
+  if (fine && teethOf(fine) >= COARSE_TEETH) return fine;
+  return learnWith(pitchUnits(times, true)) ?? fine;
+}
+
+function learnWith(u: Float64Array): ToothWheel | null {
+  const n = u.length;
+  if (n < 12) return null;
+  const cls = new Int8Array(n);
+  let marks = 0;
+  for (let k = 0; k < n; k++) {
+    cls[k] = classify(u, k);
+    if (cls[k] !== 0) marks++;
+  }
+  if (marks < 2) return null;
+  // The revolution: the smallest lag at which the marks repeat in at least 80 % of places.
+  // The first and last periods are often the starter engaging or letting go: leave them out of the search.
+  let lag = 0;
+  for (let L = 2; L <= Math.min(200, Math.floor(n / 2)); L++) {
+    let same = 0;
+    let seen = 0;
+    for (let k = 2; k + L < n - 2; k++) {
+      if (cls[k] === 0 && cls[k + L] === 0) continue;
+      seen++;
+      if (cls[k] === cls[k + L]) same++;
+    }
+    if (seen >= 2 && same / seen >= 0.75) {
+      lag = L;
+      break;
+    }
+  }
+  if (!lag) return null;
+  // Each position's size over all revolutions, from the first mark on.
+  const first = 2 + cls.subarray(2).findIndex((c) => c !== 0);
+  const size = new Float64Array(lag);
+  for (let j = 0; j < lag; j++) {
+    const vals: number[] = [];
+    for (let k = first + j; k < n; k += lag) vals.push(u[k]);
+    vals.sort((a, b) => a - b);
+    size[j] = vals[vals.length >> 1];
+  }
+  const medianCls = (j: number) => classify(size, j);
+  let extraAt = -1;
+  // An extra tooth is the reference only on a wheel without gaps (a short pair on a gapped wheel is compression).
+  const gapped = Array.from(size).some((_, j) => medianCls(j) > 0);
+  for (let j = 0; j < lag; j++) if (!gapped && medianCls(j) === -1 && extraAt < 0) extraAt = j;
+  // With an extra tooth the revolution holds lag periods but one pitch fewer positions.
+  const gapsAfter: number[] = [];
+  const start = extraAt >= 0 ? (extraAt + 2) % lag : startAfterLargestGap(size);
+  for (let i = 0; i < lag; i++) {
+    const j = (start + i) % lag;
+    if (extraAt >= 0 && j === extraAt) continue;
+    const c = medianCls(j);
+    gapsAfter.push(c > 0 ? c : 0);
+  }
+  const positions = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
+  if (extraAt < 0 && !gapsAfter.some((g) => g > 0)) return null;
+  return { positions, gapsAfter, extraTooth: extraAt >= 0 };
+}
+
+/** Position 0 is the tooth after the largest gap (the first of equal ones followed by the longest run). */
+function startAfterLargestGap(size: Float64Array): number {
+  const L = size.length;
+  const cls = Array.from({ length: L }, (_, j) => classify(size, j));
+  const biggest = Math.max(...cls);
+  let best = 0;
+  let bestRun = -1;
+  for (let j = 0; j < L; j++) {
+    if (cls[j] !== biggest) continue;
+    let run = 1;
+    while (run < L && cls[(j + run) % L] <= 0) run++;
+    if (run > bestRun) {
+      bestRun = run;
+      best = j;
+    }
+  }
+  return (best + 1) % L;
+}
+
+/**
+ * Gives each edge its crank angle on a known wheel. Revolutions are found from the wheel's reference (its
+ * largest gap, told apart from equal gaps by the run of teeth after it, or its extra tooth); between two
+ * references there must be one revolution's teeth. One edge too few is inserted in the longest period, one too
+ * many is dropped where two periods add up to one pitch; anything else leaves that revolution out.
+ */
+export function wheelAngles(rawTimes: Float64Array, wheel: ToothWheel): WheelAngles | null {
+  let times = rawTimes;
+  let dropped = 0;
+  const teeth = teethOf(wheel);
+  const coarse = teeth < COARSE_TEETH;
+  const pitch = 360 / wheel.positions;
+  const refs: number[] = [];
+  if (wheel.extraTooth) {
+    // Remove the extra edges; the edge after each one is position 0.
+    // The short period lies between the extra edge and a regular one: drop the edge whose removal leaves a
+    // period closest to its neighbours'.
+    const u = pitchUnits(times, true);
+    const kept: number[] = [];
+    const zero = new Set<number>();
+    const drop = new Set<number>();
+    for (let k = 1; k + 2 < times.length; k++) {
+      if (classify(u, k) !== -1) continue;
+      const ref = (times[k] - times[k - 1] + times[k + 2] - times[k + 1]) / 2;
+      const dropEnd = Math.abs(times[k + 2] - times[k] - ref);
+      const dropStart = Math.abs(times[k + 1] - times[k - 1] - ref);
+      drop.add(dropEnd <= dropStart ? k + 1 : k);
+    }
+    for (let k = 0; k < times.length; k++) {
+      if (drop.has(k)) {
+        zero.add(kept.length);
+        continue;
+      }
+      kept.push(times[k]);
+    }
+    times = Float64Array.from(kept);
+    refs.push(...[...zero].sort((a, b) => a - b));
+  } else {
+    const u = pitchUnits(times, coarse);
+    const biggest = Math.max(...wheel.gapsAfter);
+    const runAfter = runAfterReference(wheel);
+    const big: number[] = [];
+    for (let k = 0; k < u.length; k++) if (classify(u, k) > 0) big.push(k);
+    for (let b = 0; b < big.length; b++) {
+      const k = big[b];
+      if (Math.min(3, Math.round(u[k]) - 1) !== biggest) continue;
+      const next = big[b + 1];
+      const sameSizeGaps = wheel.gapsAfter.filter((g) => g === biggest).length;
+      if (sameSizeGaps > 1 && next !== undefined && next - k !== runAfter) continue;
+      refs.push(k + 1);
+    }
+  }
+  if (refs.length < 2) return null;
+  const outT: number[] = [];
+  const outA: number[] = [];
+  let inserted = 0;
+  let unmatched = 0;
+  // Cumulative pitches to each present tooth from position 0.
+  const toothPos = new Float64Array(teeth + 1);
+  for (let j = 0; j < teeth; j++) toothPos[j + 1] = toothPos[j] + 1 + wheel.gapsAfter[j];
+  const firstRef = refs[0];
+  const emit = (span: number[], rev: number) => {
+    for (let j = 0; j < span.length; j++) {
+      outT.push(span[j]);
+      outA.push(rev * 360 + toothPos[j] * pitch);
+    }
+  };
+  for (let r = 0; r + 1 < refs.length; r++) {
+    const a = refs[r];
+    const b = refs[r + 1];
+    const span = Array.from(times.subarray(a, b));
+    const revsHere = Math.max(1, Math.round(span.length / teeth));
+    const rev = Math.round((a - firstRef) / teeth);
+    if (revsHere !== 1) {
+      unmatched += revsHere;
+      continue;
+    }
+    if (span.length === teeth - 1) {
+      insertMissing(span, wheel);
+      inserted++;
+    } else if (span.length === teeth + 1) {
+      dropExtra(span, wheel);
+      dropped++;
+    }
+    if (span.length !== teeth) {
+      unmatched++;
+      continue;
+    }
+    emit(span, rev);
+  }
+  // The partial revolution after the last reference.
+  const tail = Array.from(times.subarray(refs[refs.length - 1], Math.min(times.length, refs[refs.length - 1] + teeth)));
+  emit(tail, Math.round((refs[refs.length - 1] - firstRef) / teeth));
+  const revolutions = Math.max(0, refs.length - 1 - unmatched);
+  return { wheel, times: Float64Array.from(outT), angleDeg: Float64Array.from(outA), revolutions, dropped, inserted, unmatched };
+}
+
+/** Teeth from the reference gap to the next gap of any size. */
+function runAfterReference(wheel: ToothWheel): number {
+  const g = wheel.gapsAfter;
+  const biggest = Math.max(...g);
+  // Position 0 follows the reference gap: the last entry of gapsAfter is the reference.
+  if (g[g.length - 1] !== biggest) return -1;
+  let run = 0;
+  for (let j = 0; j < g.length; j++) {
+    run++;
+    if (g[j] > 0) break;
+  }
+  return run;
+}
+
+/** One edge missing: put it in the period that is longest against the wheel's expectation. */
+function insertMissing(span: number[], wheel: ToothWheel): void {
+  let worst = -1;
+  let worstRatio = 0;
+  const dur = span[span.length - 1] - span[0];
+  const pitchS = dur / (wheel.positions - 1 - wheel.gapsAfter[wheel.gapsAfter.length - 1]);
+  for (let k = 0; k + 1 < span.length; k++) {
+    const expected = (1 + wheel.gapsAfter[k]) * pitchS;
+    const ratio = (span[k + 1] - span[k]) / expected;
+    if (ratio > worstRatio) {
+      worstRatio = ratio;
+      worst = k;
+    }
+  }
+  if (worst >= 0) span.splice(worst + 1, 0, (span[worst] + span[worst + 1]) / 2);
+}
+
+/** One edge too many: drop the one whose two periods are the shortest pair. */
+function dropExtra(span: number[], wheel: ToothWheel): void {
+  void wheel;
+  let best = -1;
+  let bestSum = Infinity;
+  for (let k = 1; k + 1 < span.length; k++) {
+    const sum = span[k + 1] - span[k - 1];
+    if (sum < bestSum) {
+      bestSum = sum;
+      best = k;
+    }
+  }
+  if (best > 0) span.splice(best, 1);
+}
