@@ -141,7 +141,7 @@ function toMethodResult(
       identity: 'assumed',
       window: { startS: 0, endS: 0 },
       cylinders: Array.from({ length: n }, (_, i) => ({
-        cylinder: i + 1, relativePercent: 0, status: 'uncertain' as const, events: 0, rejected: 0, spreadPercent: 0, plainPercent: 0, raw: 0, perCycle: [],
+        cylinder: i + 1, relativePercent: null, status: 'uncertain' as const, events: 0, rejected: 0, spreadPercent: 0, plainPercent: 0, raw: 0, perCycle: [],
       })),
       events: [],
       rawUnit: RAW_UNIT[method],

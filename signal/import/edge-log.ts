@@ -23,9 +23,16 @@ export interface LevelColumn {
   values: Float64Array;
 }
 
-/** The preview looks like an edge log: irregular time steps and at least one 0/1 column. */
+/**
+ * The preview looks like an edge log: at least one 0/1 column, and either the rows change some 0/1 or
+ * whole-number column nearly every time (a row per level change) or the time steps are uneven.
+ */
 export function looksLikeEdgeLog(time: Float64Array | undefined, others: Float64Array[]): boolean {
-  if (!time || time.length < 5) return false;
+  if (!time || time.length < 5 || !others.some(isBinary)) return false;
+  const levels = others.filter(isLevelLike);
+  let changed = 0;
+  for (let i = 2; i < time.length; i++) if (levels.some((v) => v[i] !== v[i - 1])) changed++;
+  if (changed >= 0.7 * (time.length - 2)) return true;
   let lo = Infinity;
   let hi = 0;
   for (let i = 2; i < time.length; i++) {
@@ -34,7 +41,7 @@ export function looksLikeEdgeLog(time: Float64Array | undefined, others: Float64
     lo = Math.min(lo, d);
     hi = Math.max(hi, d);
   }
-  return hi > 1.8 * lo && others.some(isBinary);
+  return hi > 1.8 * lo;
 }
 
 export function isBinary(v: Float64Array): boolean {

@@ -6,7 +6,7 @@ import { CaptureError } from '../errors';
 import { type QualityWarning, warning } from '../steps/warnings';
 import type { CaptureColumns } from '../types';
 import { checkTime, checkValues, fillMissing } from './check-columns';
-import { parseNumberField } from './header';
+import { parseNumberField, timeScale } from './header';
 import { chooseEdgeChannels } from './edge-log';
 import { type ChannelMapping, type ChannelRole, mapChannels, mappingConfidence } from './map-channels';
 import { NumberParser } from './parse-numbers';
@@ -136,8 +136,12 @@ export class CaptureImporter {
         continue;
       }
       if (role === 'time' || role === 'toothTimes') {
+        const unit = s.columns[c].unit;
+        if (role === 'time' && unit && timeScale(unit) === null && !this.mapping.timeIsIndex && !this.given) {
+          throw new CaptureError('BAD_MAPPING', `Column ${c + 1} ("${s.columns[c].name}") is in "${unit}", which is not a unit of time; export time in s, ms or µs, or name the columns and sample rate in the workspace.`, { column: c + 1 });
+        }
         if (role === 'time' && this.mapping.timeIsIndex) {
-          const rate = this.options.sampleRateHz;
+          const rate = this.options.sampleRateHz ?? s.sampleRateHz ?? undefined;
           if (!rate || !(rate > 0)) {
             throw new CaptureError('BAD_MAPPING', `Column ${c + 1} ("${s.columns[c].name}") counts samples rather than time; enter the sample rate the capture was recorded at.`, { column: c + 1 });
           }
@@ -154,6 +158,14 @@ export class CaptureImporter {
         warnings.push(...checkValues(`${s.columns[c].name}`, v, role === 'current' || role === 'rpm', missing));
       }
       columns[role as Exclude<ChannelRole, 'ignore' | 'level'>] = v;
+    }
+    if (s.unitsRow) notes.push('Units were read from the row under the column names.');
+    if (!columns.time && !columns.toothTimes && roles.length > 0) {
+      const rate = this.options.sampleRateHz ?? s.sampleRateHz;
+      if (rate) {
+        columns.time = Float64Array.from({ length: parsed.rows }, (_, i) => i / rate);
+        notes.push(`No time column: time was built from the ${rate} samples/s stated ${this.options.sampleRateHz ? 'in the settings' : 'above the header'}.`);
+      }
     }
     if (overRange > 0) {
       warnings.push(warning('OVER_RANGE', `${overRange} sample(s) hold the scope's over-range value (the signal left the set range); they are treated as missing. Set a larger range and record again if the trace looks cut.`));

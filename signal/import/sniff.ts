@@ -24,6 +24,10 @@ export interface SniffResult {
   preview: string[][];
   /** Byte offset of the first data line in the file. */
   dataOffset: number;
+  /** The units came from a row of their own under the names. */
+  unitsRow: boolean;
+  /** Sample rate stated in the lines before the header, Hz. */
+  sampleRateHz: number | null;
 }
 
 const CANDIDATES = [',', ';', '\t', '|'];
@@ -73,6 +77,7 @@ export function sniffCapture(head: Uint8Array): SniffResult {
   }
 
   let headerLine = -1;
+  let unitsRow = false;
   let columns: HeaderCell[] = Array.from({ length: width }, (_, i) => ({ name: `Column ${i + 1}`, unit: null }));
   if (firstDataLine > 0) {
     const parsed = Papa.parse<string[]>(clean[firstDataLine - 1], { delimiter });
@@ -80,6 +85,13 @@ export function sniffCapture(head: Uint8Array): SniffResult {
     if (cells.length === width && !fieldsAllNumeric(clean[firstDataLine - 1], delimiter)) {
       headerLine = firstDataLine - 1;
       columns = cells.map(parseHeaderCell);
+      // A units row under the names: `Time,Current,Sync` then `(ms),(A),(V)`.
+      const above = firstDataLine >= 2 ? (Papa.parse<string[]>(clean[firstDataLine - 2], { delimiter }).data[0] ?? []) : [];
+      if (cells.every(isUnitCell) && above.length === width && !fieldsAllNumeric(clean[firstDataLine - 2], delimiter)) {
+        headerLine = firstDataLine - 2;
+        columns = above.map((name, i) => ({ name: parseHeaderCell(name).name, unit: unitOf(cells[i]) }));
+        unitsRow = true;
+      }
     }
   }
   const preamble = clean.slice(0, headerLine >= 0 ? headerLine : firstDataLine).filter((l) => l.trim().length > 0);
@@ -89,7 +101,37 @@ export function sniffCapture(head: Uint8Array): SniffResult {
   let dataOffset = bomBytes;
   const encoder = new TextEncoder();
   for (let i = 0; i < firstDataLine; i++) dataOffset += encoder.encode(lines[i]).length + 1;
-  return { delimiter, decimalComma, headerLine, firstDataLine, preamble, columns, preview, dataOffset };
+  return { delimiter, decimalComma, headerLine, firstDataLine, preamble, columns, preview, dataOffset, unitsRow, sampleRateHz: rateFromPreamble(preamble) };
+}
+
+/** A cell of a units row: empty, a unit in brackets, or a bare unit of a few characters. */
+function isUnitCell(raw: string): boolean {
+  const t = raw.trim().replace(/^"|"$/g, '').trim();
+  return t === '' || /^[[(][^\])]{0,12}[\])]$/.test(t) || /^(s|ms|us|µs|μs|a|ma|v|mv|rpm|hz|%|°c|°f|kpa|bar)$/i.test(t);
+}
+
+function unitOf(raw: string): string | null {
+  const t = raw.trim().replace(/^"|"$/g, '').trim().replace(/^[[(]\s*|\s*[\])]$/g, '');
+  return t === '' ? null : t;
+}
+
+/** A sample rate or interval stated before the header ("Sample rate: 10 kHz", "Sample interval = 0.0001 s"). */
+export function rateFromPreamble(lines: string[]): number | null {
+  for (const line of lines) {
+    const rate = /sampl\w*\s*(rate|frequency)\W{0,3}([\d.]+(?:e[+-]?\d+)?)\s*(k|M)?\s*(hz|s\/s|sa\/s|sps)/i.exec(line);
+    if (rate) {
+      const v = Number(rate[2]) * (rate[3] === 'k' ? 1e3 : rate[3] === 'M' ? 1e6 : 1);
+      if (v > 0) return v;
+    }
+    const step = /(sample\s*interval|time\s*step|x\s*increment|\bdt\b)\W{0,3}([\d.]+(?:e[+-]?\d+)?)\s*(ms|us|µs|μs|ns|s)?\b/i.exec(line);
+    if (step) {
+      const unit = (step[3] ?? 's').toLowerCase();
+      const scale = unit === 'ms' ? 1e-3 : unit === 'ns' ? 1e-9 : unit === 's' ? 1 : 1e-6;
+      const dt = Number(step[2]) * scale;
+      if (dt > 0) return 1 / dt;
+    }
+  }
+  return null;
 }
 
 function fieldsAllNumeric(line: string, delimiter: string): boolean {

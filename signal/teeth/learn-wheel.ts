@@ -99,8 +99,10 @@ function learnWith(u: Float64Array): ToothWheel | null {
   }
   if (marks < 2) return null;
   // The revolution: the smallest lag at which the marks repeat in at least 80 % of places.
-  // The first and last periods are often the starter engaging or letting go: leave them out of the search.
-  let lag = 0;
+  // The revolution: the lag at which the marks repeat best (the smallest within 90 % of the best agreement, so a
+  // multiple of the revolution does not win). The first and last periods are often the starter engaging or
+  // letting go: left out of the search.
+  const scores: number[] = [];
   for (let L = 2; L <= Math.min(200, Math.floor(n / 2)); L++) {
     let same = 0;
     let seen = 0;
@@ -109,11 +111,12 @@ function learnWith(u: Float64Array): ToothWheel | null {
       seen++;
       if (cls[k] === cls[k + L]) same++;
     }
-    if (seen >= 2 && same / seen >= 0.75) {
-      lag = L;
-      break;
-    }
+    // Long lags see fewer pairs: weigh the agreement by the share of the capture the pairs cover.
+    scores[L] = seen >= 2 ? ((same / seen) * (n - L)) / n : 0;
   }
+  const best = Math.max(0, ...scores.filter(Number.isFinite));
+  let lag = 0;
+  if (best >= 0.45) for (let L = 2; L < scores.length && !lag; L++) if (scores[L] >= 0.9 * best) lag = L;
   if (!lag) return null;
   // Each position's size over all revolutions, from the first mark on.
   const first = 2 + cls.subarray(2).findIndex((c) => c !== 0);

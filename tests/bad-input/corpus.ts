@@ -21,6 +21,19 @@ function utf16(s: string, be = false): Uint8Array {
   return out;
 }
 
+/** A 36-2 wheel turning steadily (no compression) as a level log, with a glitch pair in every revolution. */
+function toothLogWithGlitches(): string {
+  const out: string[] = [];
+  const pitchS = 60 / 200 / 36;
+  for (let p = 0; p < 36 * 12; p++) {
+    if (p % 36 >= 34) continue;
+    const t = 0.2 + p * pitchS;
+    out.push(`${t.toFixed(7)},1`, `${(t + pitchS / 2).toFixed(7)},0`);
+    if (p % 36 === 10) out.push(`${(t + pitchS / 2 + 1e-6).toFixed(7)},1`, `${(t + pitchS / 2 + 2e-6).toFixed(7)},0`);
+  }
+  return out.join('\n') + '\n';
+}
+
 export function badCorpus(): BadCase[] {
   const cases: [string, Uint8Array | string][] = [
     ['empty', ''],
@@ -74,6 +87,11 @@ export function badCorpus(): BadCase[] {
     ['minus signs everywhere', `${H}${rows(500, (i) => `-${i}-,--5`)}`],
     ['semicolons and tabs mixed', rows(500, (i) => (i % 2 ? `${i};1` : `${i}\t1`))],
     ['very long numbers', `${H}${rows(300, (i) => `0.${'1'.repeat(60)}${i},${'9'.repeat(40)}`)}`],
+    // Edge logs, VR waveforms, tooth logs and units rows (engine 1.2): a sentence or `uncertain`, never a figure.
+    ['edge log with the crank stuck', `Time[s], Channel 0, Channel 1\n0,1,0\n${rows(300, (i) => `${(0.5 + i * 0.0173 + (i % 7) * 0.0021).toFixed(6)},1,${i % 2}`)}`],
+    ['VR waveform of pure noise', `Time (s),Crank sensor [V]\n${rows(20000, (i) => `${(i / 20000).toFixed(6)},${((((i * 7919) % 1009) / 1009 - 0.5) * 0.6).toFixed(3)}`)}`],
+    ['tooth log with glitches on every revolution', `Time[s], Primary\n0,0\n${toothLogWithGlitches()}`],
+    ['units row with unknown units', `Time,Current\n(ticks),(furlongs)\n${rows(3000, (i) => `${i},${100 + (i % 50)}`)}`],
     ['header repeated in the middle', `${H}${rows(200, (i) => `${i / 1000},1`)}${H}${rows(200, (i) => `${i / 1000},1`)}`],
   ];
   return cases.map(([name, b]) => ({ name, bytes: typeof b === 'string' ? enc(b) : b }));
