@@ -4,3 +4,17 @@
 export function percentText(v: number | null, digits = 1): string {
   return v === null ? '—' : v.toFixed(digits);
 }
+
+/** The method in words. */
+export const METHOD_NAMES = { current: 'starter current', 'crank-speed': 'crank speed', battery: 'battery voltage' } as const;
+
+/** Where the cylinder numbers come from, in a short phrase. */
+export function identityWords(identity: 'sync' | 'cam' | 'injector' | 'coil' | 'assumed'): string {
+  return {
+    sync: 'from the cylinder 1 sync signal',
+    cam: 'from the cam channel',
+    injector: 'from the cylinder 1 injector output',
+    coil: 'from the cylinder 1 coil output',
+    assumed: 'assumed from the firing order (no sync)',
+  }[identity];
+}

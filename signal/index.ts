@@ -28,4 +28,4 @@ export function analyzeBytes(
   const capture = importCapture(bytes, options);
   return { capture, result: analyzeCapture(capture.columns, settings, capture.warnings) };
 }
-export { percentText } from './format';
+export { identityWords, METHOD_NAMES, percentText } from './format';

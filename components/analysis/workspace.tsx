@@ -11,7 +11,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
 import { type AnalysisSettingsValues, analysisSettingsSchema, engineSettings } from '@/db/validators/analysis';
-import type { AnalysisResult, ChannelRole } from '@/signal';
+import { type AnalysisResult, type ChannelRole, identityWords, METHOD_NAMES } from '@/signal';
 import { SURE_MAPPING } from '@/signal/steps/screen';
 import type { WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
@@ -218,9 +218,18 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
                     Relative compression
                   </h2>
                   <p className="figures text-sm">
-                    {result.method === 'current' ? 'starter current' : 'crank speed'} · {result.crankingRpm} rpm · spread {result.spreadPercent} points · cylinder numbers {result.identity === 'sync' ? 'from sync' : 'assumed'}
+                    {METHOD_NAMES[result.method]} · {result.crankingRpm} rpm · spread {result.spreadPercent} points · cylinder numbers {identityWords(result.identity)}
                   </p>
                 </div>
+                {result.wheel && (
+                  <p className="figures text-sm text-muted" data-testid="wheel-read">
+                    Crank wheel: {result.wheel.description} ({result.wheel.learned ? 'learned from the capture' : 'as set'}, written {result.wheel.notation})
+                    {result.wheel.glitchesDropped + result.wheel.teethInserted > 0
+                      ? ` · repaired: ${result.wheel.glitchesDropped} glitch edge(s) dropped, ${result.wheel.teethInserted} missing tooth edge(s) inserted`
+                      : ' · no edges repaired'}
+                  </p>
+                )}
+                {result.identityNote && <p className="text-sm text-muted">{result.identityNote}</p>}
                 <CylinderBars cylinders={result.cylinders} lowLimit={settings.lowLimitPercent} onHover={setHighlighted} highlighted={highlighted} />
                 <Findings result={result} />
                 <div className="mt-4">

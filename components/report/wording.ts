@@ -1,10 +1,10 @@
 /** Interpretation wording drawn from a result's verdict and pattern: a starting point the technician edits. */
-import { type AnalysisResult, percentText } from '@/signal';
+import { type AnalysisResult, identityWords, METHOD_NAMES, percentText } from '@/signal';
 
 export function interpretationFor(r: AnalysisResult): string {
-  const method = r.method === 'current' ? 'starter-current' : 'crank-speed';
+  const method = METHOD_NAMES[r.method];
   const low = r.cylinders.filter((c) => c.status === 'low');
-  const identity = r.identity === 'sync' ? 'Cylinder numbers come from the cylinder 1 sync signal.' : 'Cylinder numbers were assumed from the firing order (no sync signal); confirm them before acting on a cylinder number.';
+  const identity = r.identity === 'assumed' ? 'Cylinder numbers were assumed from the firing order (no sync signal); confirm them before acting on a cylinder number.' : `Cylinder numbers come ${identityWords(r.identity)}.`;
   if (r.verdict === 'uncertain') {
     return `A relative compression test by the ${method} method could not rank the cylinders: ${r.warnings.map((w) => w.message).join(' ')} The test should be repeated before conclusions are drawn.`;
   }

@@ -1,6 +1,6 @@
 /** Pure formatting for the report PDF: condition rows ("not recorded", never invented) and the trace excerpt. */
 import type { Conditions } from '@/db/validators/report';
-import { type AnalysisResult, decimateMinMax, importCapture, indexAtTime } from '@/signal';
+import { type AnalysisResult, decimateMinMax, identityWords, importCapture, indexAtTime } from '@/signal';
 import type { PdfTrace } from './report-document';
 
 export const NR = 'not recorded';
@@ -14,7 +14,7 @@ export function conditionRows(c: Conditions, r?: AnalysisResult): [string, strin
     ['Mean cranking speed', r ? `${r.crankingRpm} rpm (measured)` : NR],
     ['Throttle position', c.throttle === 'wide-open' ? 'wide open' : c.throttle === 'closed' ? 'closed' : NR],
     ['Fuel disabled by', c.fuelDisabledBy ?? NR],
-    ['Sync source', c.syncSource ?? (r ? (r.identity === 'sync' ? 'sync channel in the capture' : 'none (numbers assumed)') : NR)],
+    ['Sync source', c.syncSource ?? (r ? (r.identity === 'assumed' ? 'none (numbers assumed)' : `capture: ${identityWords(r.identity)}`) : NR)],
     ['Firing order and numbering', r ? `${r.settings.firingOrder.join('-')}${c.numbering ? `, ${c.numbering}` : ''}` : (c.numbering ?? NR)],
   ];
 }

@@ -4,7 +4,7 @@
  * engine version and SHA-256, page numbers. Built from plain data so it renders without a database.
  */
 import { Document, G, Line, Page, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
-import { type AnalysisResult, percentText } from '@/signal';
+import { type AnalysisResult, identityWords, percentText } from '@/signal';
 
 export interface PdfTrace {
   t: number[];
@@ -254,7 +254,7 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
               <View style={{ flex: 1, gap: 3 }}>
                 <Text style={[s.verdict, { color: STATUS_COLOR[r.verdict] }]}>{`Verdict: ${VERDICT[r.verdict]}`}</Text>
                 <Text>{`Method: ${r.method === 'current' ? 'starter current' : 'crank speed'}; mean cranking ${r.crankingRpm} rpm; spread ${r.spreadPercent} points.`}</Text>
-                <Text>{`Cylinder numbers: ${r.identity === 'sync' ? 'from the cylinder 1 sync signal' : 'assumed from the firing order (no sync)'}; firing order ${r.settings.firingOrder.join('-')}.`}</Text>
+                <Text>{`Cylinder numbers: ${identityWords(r.identity)}; firing order ${r.settings.firingOrder.join('-')}.`}</Text>
                 <Text>{`Limits applied: low below ${r.settings.lowLimitPercent} %, spread above ${r.settings.spreadLimitPercent} points.`}</Text>
                 <Text>{r.pattern.hint}</Text>
                 <Text style={s.small}>{main.label}</Text>
