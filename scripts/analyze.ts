@@ -11,8 +11,24 @@ import {
   parseWheel,
 } from '../signal';
 
+const HELP = `Usage: npm run --silent analyze -- FILE --cylinders N --firing-order 1-3-4-2 [options]
+
+  --method auto|current|crank-speed|battery   method (auto: crank speed when there are teeth)
+  --teeth WHEEL          crank wheel, learned from the capture when left out: 60-2, or runs of
+                         teeth and gaps from position 0 such as 36:15/2,14/1,3/1, or 12:12+1
+                         for 12 teeth and one extra tooth
+  --mark-offset DEG      crank degrees from a cam/injector/coil mark to cylinder 1's TDC
+                         (default 0 for a cam, 360 for an injector output)
+  --low-limit 90         low limit, % of the healthy cylinders
+  --spread-limit 10      spread limit, percentage points
+  --intervals 90-150-…   firing intervals for uneven fire, degrees
+  --sample-rate HZ       samples per second, for a sample-index column
+  --rotation N           step the assumed cylinder assignment
+  --json                 one JSON object on stdout
+  --help                 this text`;
+
 function usage(): never {
-  return fail('Usage: npm run --silent analyze -- FILE --cylinders N --firing-order 1-3-4-2 [--method auto|current|crank-speed] [--teeth 60-2] [--low-limit 90] [--json]');
+  return fail(HELP.split('\n')[0]);
 }
 
 let json = process.argv.includes('--json');
@@ -38,13 +54,19 @@ function main() {
         intervals: { type: 'string' },
         'sample-rate': { type: 'string' },
         rotation: { type: 'string', default: '0' },
+        'mark-offset': { type: 'string' },
         json: { type: 'boolean', default: false },
+        help: { type: 'boolean', default: false },
       },
     });
   } catch (e) {
     fail(`${(e as Error).message}.`);
   }
   const { values, positionals } = parsed;
+  if (values.help) {
+    process.stdout.write(`${HELP}\n`);
+    return;
+  }
   json = !!values.json;
   const file = positionals[0];
   if (!file || positionals.length > 1) usage();
@@ -52,13 +74,15 @@ function main() {
   if (!values.cylinders || !Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) fail('Give --cylinders as a whole number from 1 to 16.');
   if (!values['firing-order']) fail('Give --firing-order, for example 1-3-4-2.');
   const method = values.method;
-  if (method !== 'auto' && method !== 'current' && method !== 'crank-speed') fail('--method must be auto, current or crank-speed.');
+  if (method !== 'auto' && method !== 'current' && method !== 'crank-speed' && method !== 'battery') fail('--method must be auto, current, crank-speed or battery.');
   const lowLimit = Number(values['low-limit']);
   if (!(lowLimit > 0 && lowLimit < 100)) fail('--low-limit must be a percentage between 0 and 100.');
   const spreadLimit = Number(values['spread-limit']);
   if (!(spreadLimit > 0 && spreadLimit < 100)) fail('--spread-limit must be a percentage between 0 and 100.');
   const teeth = values.teeth ? parseWheel(values.teeth) : undefined;
-  if (values.teeth && !teeth) fail(`--teeth must look like 60-2 or 36-1, not "${values.teeth}".`);
+  if (values.teeth && !teeth) fail(`--teeth must look like 60-2, 36:15/2,14/1,3/1 or 12:12+1, not "${values.teeth}".`);
+  const markOffset = values['mark-offset'] === undefined ? undefined : Number(values['mark-offset']);
+  if (markOffset !== undefined && !Number.isFinite(markOffset)) fail('--mark-offset must be a number of crank degrees.');
   const sampleRate = values['sample-rate'] ? Number(values['sample-rate']) : undefined;
   if (sampleRate !== undefined && !(sampleRate > 0)) fail('--sample-rate must be a positive number of samples per second.');
 
@@ -81,6 +105,7 @@ function main() {
       },
       method,
       teeth: teeth ?? undefined,
+      markOffsetDeg: markOffset,
       lowLimitPercent: lowLimit,
       spreadLimitPercent: spreadLimit,
       rotation: Number(values.rotation) || 0,
