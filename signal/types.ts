@@ -24,7 +24,7 @@ export interface CaptureColumns {
   marks?: CylinderMarks[];
 }
 
-export type MethodChoice = 'auto' | 'current' | 'crank-speed';
+export type MethodChoice = 'auto' | 'current' | 'crank-speed' | 'battery';
 /** `battery` is the electrical method on battery voltage (it dips as the starter current rises). */
 export type Method = 'current' | 'crank-speed' | 'battery';
 export type CylinderStatus = 'ok' | 'low' | 'uncertain';
