@@ -121,8 +121,16 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
       const hl = live.current.highlighted;
       ctx.font = `bold ${12 * devicePixelRatio}px ui-monospace, monospace`;
       ctx.textAlign = 'center';
-      for (const e of live.current.events) {
-        const x = u.valToPos(e.timeS, 'x', true);
+      // Labels stay readable at every zoom: when events sit closer than a label is wide, only cylinder 1's are
+      // labelled (the lines stay), and no label is drawn over the one before it.
+      const xs = live.current.events.map((e) => u.valToPos(e.timeS, 'x', true));
+      let closest = Infinity;
+      for (let k = 1; k < xs.length; k++) if (xs[k] >= left && xs[k - 1] <= left + width) closest = Math.min(closest, xs[k] - xs[k - 1]);
+      const labelW = ctx.measureText('16').width + 8 * devicePixelRatio;
+      const crowded = closest < labelW;
+      let lastRight = -Infinity;
+      for (const [k, e] of live.current.events.entries()) {
+        const x = xs[k];
         if (x < left || x > left + width) continue;
         const on = hl == null || hl === e.cylinder;
         ctx.strokeStyle = rgb('event', e.used ? (on ? 0.85 : 0.2) : 0.25);
@@ -132,8 +140,12 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
         ctx.moveTo(x, top + 16 * devicePixelRatio);
         ctx.lineTo(x, top + height);
         ctx.stroke();
+        const text = String(e.cylinder);
+        const w = ctx.measureText(text).width;
+        if ((crowded && e.cylinder !== 1 && hl !== e.cylinder) || x - w / 2 < lastRight + 4 * devicePixelRatio) continue;
         ctx.fillStyle = rgb('event', on ? 1 : 0.35);
-        ctx.fillText(String(e.cylinder), x, top + 12 * devicePixelRatio);
+        ctx.fillText(text, x, top + 12 * devicePixelRatio);
+        lastRight = x + w / 2;
       }
       ctx.restore();
     };

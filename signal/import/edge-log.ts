@@ -3,7 +3,7 @@
  * one channel changed level. Each 0/1 channel becomes edge times; the channel with the most edges is the crank,
  * a channel with few edges (a cam window, an injector or coil bit mask) marks cylinder 1.
  */
-import { dropGlitches, learnWheel, wheelAngles } from '../teeth/learn-wheel';
+import { directionScore } from '../teeth/direction-score';
 
 export type MarkSource = 'cam' | 'injector' | 'coil';
 
@@ -68,19 +68,6 @@ export function levelEdges(time: Float64Array, v: Float64Array): { rising: Float
     else if (a && !b) falling.push(time[i]);
   }
   return { rising: Float64Array.from(rising), falling: Float64Array.from(falling) };
-}
-
-/**
- * How well an edge direction reads as a tooth wheel: revolutions matched to the wheel learned from it, less
- * those left out and the edges repaired. A tooth's other edge can wander with sensor gap and noise (an edge
- * inside a gap on every other revolution, say); the clean direction matches more revolutions.
- */
-export function directionScore(times: Float64Array): number {
-  const clean = dropGlitches(times);
-  const wheel = learnWheel(clean.times);
-  const angles = wheel && wheelAngles(clean.times, wheel);
-  if (!angles) return -Infinity;
-  return angles.revolutions - angles.unmatched - 0.5 * (angles.inserted + angles.dropped);
 }
 
 export interface EdgeChannels {

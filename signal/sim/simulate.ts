@@ -43,6 +43,10 @@ export interface SimOptions {
   teeth?: { count: number; missing: number };
   /** Crank degrees from cylinder 1's compression TDC to the first tooth after the gap. @default 84 */
   gapOffsetDeg?: number;
+  /** Variable-reluctance amplitude multiplier (0.1 gives a few tenths of a volt). @default 1 */
+  vrScale?: number;
+  /** The VR sensor's wires swapped (the wave upside down). @default false */
+  vrInverted?: boolean;
   /** Noise level multiplier (1 = a clean clamp and sensor, 4 = a noisy bay). @default 1 */
   noise?: number;
   channels?: SimChannel[];
@@ -216,8 +220,9 @@ export function simulateCranking(options: SimOptions): SimResult {
     const u = slotF - Math.floor(slotF);
     if (hall) hall[s] = (present && u < 0.5 ? 5 : 0.1) + noise * 0.03 * rnd.gauss();
     if (vr) {
-      const amp = 0.4 + (omega / omegaTarget) * 2.5;
-      vr[s] = (present ? amp * Math.sin(2 * Math.PI * (u + 0.5)) : 0) + noise * 0.02 * rnd.gauss();
+      // Across the gap a small wiggle stays (the flux still changes a little); a VR interface must ignore it.
+      const amp = (0.4 + (omega / omegaTarget) * 2.5) * (o.vrScale ?? 1) * (o.vrInverted ? -1 : 1);
+      vr[s] = (present ? amp : 0.15 * amp) * Math.sin(2 * Math.PI * (u + 0.5)) + noise * 0.02 * (o.vrScale ?? 1) * rnd.gauss();
     }
     if (sync) {
       const psi1 = psiOf(0, theta);

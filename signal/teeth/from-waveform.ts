@@ -1,9 +1,12 @@
 /**
  * Turns a sampled crank-sensor waveform into tooth edge times. Hall: a square wave, rising edges through a
- * hysteresis band. Variable reluctance: an AC wave whose amplitude follows speed, timed at the
- * positive-to-negative zero crossing after the wave has risen above an arming level.
+ * hysteresis band. Variable reluctance: an AC wave whose amplitude follows speed. As a VR interface circuit
+ * does, each tooth arms the detector when the wave rises past a fraction of the previous tooth's peak (so the
+ * small wiggles across a gap never count), and the tooth is timed at the zero crossing that follows; the
+ * detector disarms below zero by a hysteresis band. The wire's polarity is found by trying both.
  */
 import { quantileProbe } from '../dsp/stats';
+import { directionScore } from './direction-score';
 
 export type SensorKind = 'hall' | 'vr';
 
@@ -38,17 +41,60 @@ export function toothTimesFromWaveform(t: Float64Array, v: Float64Array, kind: S
       }
     }
   } else {
-    const amp = quantileProbe(v, 0.98, 50_000);
-    const arm = 0.12 * amp;
-    let armed = false;
-    for (let i = 1; i < v.length; i++) {
-      if (v[i] > arm) armed = true;
-      else if (armed && v[i - 1] >= 0 && v[i] < 0) {
-        const f = v[i - 1] / (v[i - 1] - v[i]);
+    out.push(...vrCrossings(t, v, vrPolarity(t, v)));
+  }
+  return Float64Array.from(out);
+}
+
+/** Share of the previous tooth's peak that arms the detector for the next tooth. */
+const ARM_SHARE = 0.3;
+
+/**
+ * Zero crossings (positive to negative, after `sign` flips the wave) of teeth that rose past ARM_SHARE of the
+ * previous tooth's peak; the floor is four times the noise (the median absolute deviation of the quietest
+ * tenth of the wave), so pure noise arms nothing.
+ */
+export function vrCrossings(t: Float64Array, raw: Float64Array, sign: 1 | -1): number[] {
+  const noise = noiseLevel(raw);
+  const floor = Math.max(4 * noise, 0.02);
+  const out: number[] = [];
+  let lastPeak = quantileProbe(raw.map((x) => sign * x), 0.98, 50_000);
+  let armed = false;
+  let peak = 0;
+  for (let i = 1; i < raw.length; i++) {
+    const x = sign * raw[i];
+    const prev = sign * raw[i - 1];
+    if (!armed) {
+      if (x > Math.max(floor, ARM_SHARE * lastPeak)) {
+        armed = true;
+        peak = x;
+      }
+    } else {
+      if (x > peak) peak = x;
+      if (prev >= 0 && x < 0) {
+        const f = prev / (prev - x);
         out.push(t[i - 1] + f * (t[i] - t[i - 1]));
         armed = false;
+        lastPeak = peak;
       }
     }
   }
-  return Float64Array.from(out);
+  return out;
+}
+
+/** The polarity whose crossings read as a tooth wheel best (1 as recorded, −1 for a wire swapped). */
+export function vrPolarity(t: Float64Array, v: Float64Array): 1 | -1 {
+  const a = directionScore(Float64Array.from(vrCrossings(t, v, 1)));
+  const b = directionScore(Float64Array.from(vrCrossings(t, v, -1)));
+  return b > a ? -1 : 1;
+}
+
+/** Noise: from the median absolute second difference over a sparse probe (a smooth wave's is near zero). */
+function noiseLevel(v: Float64Array): number {
+  const step = Math.max(1, Math.floor(v.length / 20_000));
+  const d: number[] = [];
+  for (let i = step; i + 1 < v.length; i += step) d.push(Math.abs(v[i + 1] - 2 * v[i] + v[i - 1]));
+  d.sort((a, b) => a - b);
+  // For white noise σ, the second difference has σ·√6 and its median absolute value 0.674·σ·√6.
+  return d.length ? d[d.length >> 1] / (0.674 * Math.sqrt(6)) : 0;
 }
