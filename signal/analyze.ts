@@ -10,7 +10,7 @@ import { describePattern } from './steps/pattern';
 import { summarize } from './steps/summarize';
 import { runFit } from './steps/run-fit';
 import { type QualityWarning, THIN_EVIDENCE, warning } from './steps/warnings';
-import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderStatus, Method, MethodResult } from './types';
+import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, CylinderStatus, Method, MethodResult } from './types';
 import { ENGINE_VERSION } from './version';
 import { quantileProbe } from './dsp/stats';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
@@ -194,6 +194,7 @@ function toMethodResult(
     else if (c.relativePercent < lowLimit) c.status = 'low';
     if (c.spreadPercent > spreadLimit) inconsistent.push(c.cylinder);
   }
+  if (method !== 'crank-speed') holdAfterLow(summary.cylinders, setup, lowLimit, warnings);
   if (inconsistent.length && !quiet) {
     warnings.push(warning('INCONSISTENT_CYCLES', `Cylinder${inconsistent.length > 1 ? 's' : ''} ${inconsistent.join(', ')} varied by more than ${spreadLimit} points from cycle to cycle; look at the trace for misfiring probes or an unsteady crank.`));
   }
@@ -215,6 +216,33 @@ function toMethodResult(
     fitQuality: Math.round(fit.r2 * 1000) / 1000,
     warnings,
   };
+}
+
+/** How far below the low limit a cylinder right after a low one may read and still be the starter's doing. */
+const AFTER_LOW_MARGIN = 20;
+
+/**
+ * The electrical methods read the starter's current. After a weak cylinder the crank dips hard into the next
+ * compression and the starter's one-way clutch overruns, which the affine starter model does not follow, so
+ * the next cylinder in firing order can read low without being low (measured on the simulator with an
+ * overrunning clutch). Such a cylinder is `uncertain` with a sentence, unless it reads far below the limit.
+ */
+function holdAfterLow(cylinders: CylinderResult[], setup: AnalysisSettings['engine'], lowLimit: number, warnings: QualityWarning[]): void {
+  const order = setup.firingOrder;
+  const byNumber = new Map(cylinders.map((c) => [c.cylinder, c]));
+  const lowBefore = new Set(cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder));
+  const held: number[] = [];
+  for (let p = 0; p < order.length; p++) {
+    const prev = byNumber.get(order[(p - 1 + order.length) % order.length])!;
+    const c = byNumber.get(order[p])!;
+    if (c.status !== 'low' || !lowBefore.has(prev.cylinder) || prev === c) continue;
+    if ((c.relativePercent ?? 0) < lowLimit - AFTER_LOW_MARGIN || (c.relativePercent ?? 0) <= (prev.relativePercent ?? 0)) continue;
+    c.status = 'uncertain';
+    held.push(c.cylinder);
+  }
+  if (held.length) {
+    warnings.push(warning('AFTER_LOW', `Cylinder${held.length > 1 ? 's' : ''} ${held.join(', ')} fire${held.length > 1 ? '' : 's'} right after a low cylinder and read${held.length > 1 ? '' : 's'} a little low; the starter's clutch overruns there and the current method can read low without cause. Confirm with crank speed (a crank sensor channel) or a gauge test.`));
+  }
 }
 
 const RAW_UNIT = { current: 'A', 'crank-speed': 'rpm', battery: 'V' } as const;

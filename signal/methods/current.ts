@@ -7,7 +7,7 @@ import { type EngineSetup, firingIntervals } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { estimateRate } from '../dsp/event-rate';
 import { blockMean, movingAverage } from '../dsp/smooth';
-import { quantile } from '../dsp/stats';
+import { median, quantile } from '../dsp/stats';
 import { windowFromCurrent, type CrankingWindow } from '../steps/cranking-window';
 import { type CrankMotion, motionFromCurrent } from '../steps/crank-motion';
 import { findPeaks } from '../steps/find-peaks';
@@ -85,8 +85,12 @@ export function runCurrentMethod(
   let markAngles: number[] = [];
   let identity: 'sync' | 'assumed' = 'assumed';
   if (sync) {
-    const cycleS = 120 / rpm;
-    const pulses = findSyncPulses(time, sync, 0.4 * cycleS).filter((s) => s >= window.startS && s <= window.endS);
+    // The sync pulses' own spacing gives the cycle when they are regular (the current's strongest component can
+    // sit at a fraction of the event rate when the starter's clutch overruns); else the event rate's.
+    const all = findSyncPulses(time, sync, 0.03).filter((s) => s >= window.startS && s <= window.endS);
+    const spacing = all.length >= 3 ? median(all.slice(1).map((s, k) => s - all[k])) : NaN;
+    const cycleS = spacing > 120 / 600 && spacing < 120 / 40 ? spacing : 120 / rpm;
+    const pulses = findSyncPulses(time, sync, 0.6 * cycleS).filter((s) => s >= window.startS && s <= window.endS);
     if (pulses.length >= 3) {
       marks = pulses;
       markAngles = pulses.map(() => 720);

@@ -7,7 +7,7 @@ import { type EngineSetup, tdcPhasesDeg } from '../engine/firing';
 import { volumeRatio, volumeRatioSlope } from '../engine/geometry';
 import { seededRandom } from './random';
 
-export type SimChannel = 'current' | 'hall' | 'vr' | 'sync' | 'rpm';
+export type SimChannel = 'current' | 'hall' | 'vr' | 'sync' | 'rpm' | 'battery';
 
 export interface SimOptions {
   engine: EngineSetup;
@@ -47,6 +47,12 @@ export interface SimOptions {
   vrScale?: number;
   /** The VR sensor's wires swapped (the wave upside down). @default false */
   vrInverted?: boolean;
+  /** Spark plugs out: no compression, only valve springs and friction. @default false */
+  plugsOut?: boolean;
+  /** Starter stall torque, less friction, over one cylinder's peak compression torque. @default 1.5 */
+  starterMargin?: number;
+  /** Crank and flywheel inertia, kg·m². @default tuned per engine for a real engine's swing */
+  crankInertia?: number;
   /** Noise level multiplier (1 = a clean clamp and sensor, 4 = a noisy bay). @default 1 */
   noise?: number;
   channels?: SimChannel[];
@@ -70,6 +76,8 @@ export interface SimResult {
   vr?: Float64Array;
   sync?: Float64Array;
   rpm?: Float64Array;
+  /** Battery voltage at its terminals, V. */
+  battery?: Float64Array;
   /** Times of the crank-tooth edges, s. */
   toothTimes: Float64Array;
   truth: SimTruth;
@@ -101,25 +109,37 @@ export function simulateCranking(options: SimOptions): SimResult {
   const rnd = seededRandom(o.seed ?? 1);
   const phases = tdcPhasesDeg(o.engine);
 
-  // Starter and drivetrain sized for the engine: friction grows with displacement, the starter is chosen
-  // so that the mean speed lands near targetRpm.
+  // Starter and drivetrain sized for the engine. Friction grows with displacement. The crank and flywheel
+  // turn on their own inertia; the starter's armature, reflected through the pinion and ring gear, adds a few
+  // hundredths of a kg·m² and drives the crank through a one-way clutch, so the crank can run ahead of it
+  // after each compression. The starter's stall torque clears a cylinder's peak compression torque, and its
+  // free speed is chosen so that it carries the mean load at the target speed.
   const totalL = vdM3 * n * 1000;
   const frictionNm = 8 + 9 * totalL;
   const viscousNmPerRad = 0.25 * totalL;
-  // Flywheel and crank plus the armature reflected through the pinion (J_arm·G²).
-  const inertia = 0.2 + 0.1 * totalL;
+  // Tuned so that healthy engines swing as real ones do within each compression event (max/min about 1.9–2.4
+  // for petrol engines, 2.4–2.8 for a diesel: captures-real/README.md): more cylinders overlap their events
+  // and need less inertia for the same swing.
+  const crankInertia = o.crankInertia ?? 0.25 * Math.pow(4 / n, 1.4) * ((vdM3 * 1000) / 0.5);
+  const armatureInertia = 0.03;
+  const valveSpringNm = 0.4 + 0.4 * totalL;
   const batteryV = o.batteryV ?? 12.5;
   const rBattery = 0.011;
-  const rStarter = 0.012;
-  const rTotal = rBattery + rStarter;
   const omegaTarget = ((o.targetRpm ?? 200) * 2 * Math.PI) / 60;
   // Mean compression load at the crank, N·m, from the net work of the closed part of the cycle.
   const vIvcRatio = volumeRatio(rc, rodRatio, ivc * RAD);
   const meanGasNm = (n * P0 * vcM3 * 0.35 * Math.pow(rc, poly)) / (4 * Math.PI);
   const loadNm = frictionNm + viscousNmPerRad * omegaTarget + meanGasNm * 0.2;
-  // Solve K from: load = K·(V − K·ω)/R  →  K²ω − K·V + load·R = 0 (take the larger root: a stiff starter).
-  const disc = batteryV * batteryV - 4 * omegaTarget * loadNm * rTotal;
-  const motorK = disc > 0 ? (batteryV + Math.sqrt(disc)) / (2 * omegaTarget) : batteryV / (2 * omegaTarget);
+  // One sealed cylinder's peak compression torque; the starter's stall torque clears it with margin.
+  let gasPeakNm = 0;
+  for (let psi = ivc; psi < 0; psi += 1) {
+    const g = P0 * (Math.pow(vIvcRatio / volumeRatio(rc, rodRatio, psi * RAD), poly) - 1) * vcM3 * -volumeRatioSlope(rc, rodRatio, psi * RAD);
+    gasPeakNm = Math.max(gasPeakNm, g);
+  }
+  const stallNm = Math.max((o.starterMargin ?? 1.5) * gasPeakNm + frictionNm, 2 * loadNm);
+  const omegaFree = omegaTarget / (1 - loadNm / stallNm);
+  const motorK = batteryV / omegaFree;
+  const rTotal = (motorK * batteryV) / stallNm;
   const gearRatio = 12;
   const commutatorSegments = 24;
 
@@ -133,6 +153,7 @@ export function simulateCranking(options: SimOptions): SimResult {
   const vr = channels.has('vr') ? new Float64Array(samples) : undefined;
   const sync = channels.has('sync') ? new Float64Array(samples) : undefined;
   const rpm = channels.has('rpm') ? new Float64Array(samples) : undefined;
+  const battery = channels.has('battery') ? new Float64Array(samples) : undefined;
   const tooth: number[] = [];
 
   const mass = new Float64Array(n).fill(1);
@@ -144,6 +165,8 @@ export function simulateCranking(options: SimOptions): SimResult {
   const pitch = 360 / teeth.count;
   let theta = -200 + rnd.next() * 360; // crank angle, degrees after cylinder 1's compression TDC
   let omega = 0;
+  let omegaArm = 0;
+  let locked = true;
   let t = 0;
   let lastToothSlot = Math.floor((theta - gapOffset) / pitch);
   let rpmSum = 0;
@@ -163,7 +186,7 @@ export function simulateCranking(options: SimOptions): SimResult {
       let gasNm = 0;
       for (let c = 0; c < n; c++) {
         const psi = psiOf(c, theta);
-        if (psi >= ivc && psi <= evo) {
+        if (!o.plugsOut && psi >= ivc && psi <= evo) {
           if (!closed[c]) {
             closed[c] = 1;
             mass[c] = 1;
@@ -184,13 +207,30 @@ export function simulateCranking(options: SimOptions): SimResult {
           }
         }
       }
-      currentNow = engaged ? Math.max(0, (batteryV - motorK * omega) / rTotal) : 0;
-      const starterNm = motorK * currentNow;
+      currentNow = engaged ? Math.max(0, (batteryV - motorK * omegaArm) / rTotal) : 0;
+      const motorNm = motorK * currentNow;
       const friction = omega > 1e-6 ? frictionNm + viscousNmPerRad * omega : 0;
-      let accel = (starterNm + gasNm - friction) / inertia;
-      if (omega <= 1e-6 && starterNm + gasNm <= frictionNm) accel = Math.max(0, accel);
+      const springNm = omega > 1e-6 ? -valveSpringNm * Math.sin(n * theta * RAD) : 0;
+      const load = gasNm + springNm - friction;
+      let accel: number;
+      if (locked && engaged) {
+        accel = (motorNm + load) / (crankInertia + armatureInertia);
+        // The clutch carries motor torque less what the armature itself needs; below zero it lets go.
+        if (motorNm - armatureInertia * accel < 0) locked = false;
+      }
+      if (!locked || !engaged) {
+        accel = load / crankInertia;
+        omegaArm = Math.max(0, omegaArm + ((engaged ? motorNm : 0) - 0.5) / armatureInertia * dt);
+      }
+      if (omega <= 1e-6 && motorNm + gasNm <= frictionNm) accel = Math.max(0, accel!);
       const thetaBefore = theta;
-      omega = Math.max(0, omega + accel * dt);
+      omega = Math.max(0, omega + accel! * dt);
+      if (locked && engaged) omegaArm = omega;
+      else if (engaged && omegaArm >= omega) {
+        // The armature catches the crank: the clutch locks and the two share their momentum.
+        omega = omegaArm = (crankInertia * omega + armatureInertia * omegaArm) / (crankInertia + armatureInertia);
+        locked = true;
+      }
       theta += (omega * dt) / RAD;
       // Crank-tooth edges crossed in this step.
       const slot = Math.floor((theta - gapOffset) / pitch);
@@ -228,6 +268,7 @@ export function simulateCranking(options: SimOptions): SimResult {
       const psi1 = psiOf(0, theta);
       sync[s] = (psi1 >= -14 && psi1 <= -10 ? 5 : 0) + noise * 0.03 * rnd.gauss();
     }
+    if (battery) battery[s] = batteryV - currentNow * rBattery + noise * 0.01 * rnd.gauss();
     if (rpm) rpm[s] = Math.round(((omega * 60) / (2 * Math.PI) + noise * 0.5 * rnd.gauss()) * 4) / 4;
   }
 
@@ -248,6 +289,7 @@ export function simulateCranking(options: SimOptions): SimResult {
     vr,
     sync,
     rpm,
+    battery,
     toothTimes: Float64Array.from(tooth),
     truth: { peakKpa, relativePercent, meanRpm: (meanOmega * 60) / (2 * Math.PI), cycles },
   };

@@ -25,7 +25,8 @@ export type WarningCode =
   | 'CLAMP_REVERSED'
   | 'WHEEL_TOO_COARSE'
   | 'TEETH_REPAIRED'
-  | 'MARK_ORDER';
+  | 'MARK_ORDER'
+  | 'AFTER_LOW';
 
 export interface QualityWarning {
   code: WarningCode;

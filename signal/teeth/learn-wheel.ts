@@ -91,10 +91,12 @@ export function learnWheel(times: Float64Array): ToothWheel | null {
 function learnWith(u: Float64Array): ToothWheel | null {
   const n = u.length;
   if (n < 12) return null;
+  // For the revolution's repeat, a gap is a gap whatever its size: compression can stretch one gap more on
+  // one revolution than the next (an engine with an odd number of events a revolution).
   const cls = new Int8Array(n);
   let marks = 0;
   for (let k = 0; k < n; k++) {
-    cls[k] = classify(u, k);
+    cls[k] = Math.sign(classify(u, k));
     if (cls[k] !== 0) marks++;
   }
   if (marks < 2) return null;
@@ -118,14 +120,22 @@ function learnWith(u: Float64Array): ToothWheel | null {
   let lag = 0;
   if (best >= 0.45) for (let L = 2; L < scores.length && !lag; L++) if (scores[L] >= 0.9 * best) lag = L;
   if (!lag) return null;
-  // Each position's size over all revolutions, from the first mark on.
+  // Each position's size over all revolutions, each revolution anchored on its own first mark (found within one
+  // period of where it is expected), so a lost or extra edge does not shift the revolutions after it. The
+  // geometric mean over revolutions (the two extremes dropped) makes a gap read long on one revolution and
+  // short on the next come out at its size.
   const first = 2 + cls.subarray(2).findIndex((c) => c !== 0);
+  const perSlot: number[][] = Array.from({ length: lag }, () => []);
+  for (let anchor = first; anchor + lag <= n; ) {
+    for (let j = 0; j < lag; j++) perSlot[j].push(Math.log(u[anchor + j]));
+    const expected = anchor + lag;
+    anchor = cls[expected] !== 0 ? expected : cls[expected - 1] !== 0 ? expected - 1 : cls[expected + 1] !== 0 ? expected + 1 : expected;
+  }
   const size = new Float64Array(lag);
   for (let j = 0; j < lag; j++) {
-    const vals: number[] = [];
-    for (let k = first + j; k < n; k += lag) vals.push(u[k]);
-    vals.sort((a, b) => a - b);
-    size[j] = vals[vals.length >> 1];
+    const vals = perSlot[j].sort((a, b) => a - b);
+    const kept = vals.length > 4 ? vals.slice(1, -1) : vals;
+    size[j] = kept.length ? Math.exp(kept.reduce((a, b) => a + b, 0) / kept.length) : 1;
   }
   const medianCls = (j: number) => classify(size, j);
   let extraAt = -1;
@@ -210,7 +220,9 @@ export function wheelAngles(rawTimes: Float64Array, wheel: ToothWheel): WheelAng
     for (let k = 0; k < u.length; k++) if (classify(u, k) > 0) big.push(k);
     for (let b = 0; b < big.length; b++) {
       const k = big[b];
-      if (Math.min(3, Math.round(u[k]) - 1) !== biggest) continue;
+      // The reference reads at least half a pitch longer than the next-largest gap could (compression can
+      // stretch a gap by most of a pitch on a wheel with one gap size).
+      if (u[k] < biggest + 0.5 || u[k] > biggest + 2.5) continue;
       const next = big[b + 1];
       const sameSizeGaps = wheel.gapsAfter.filter((g) => g === biggest).length;
       if (sameSizeGaps > 1 && next !== undefined && next - k !== runAfter) continue;
