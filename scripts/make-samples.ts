@@ -2,7 +2,8 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import type { EngineSetup } from '../signal/engine/firing';
 import { type SimChannel, type SimOptions, simulateCranking } from '../signal/sim/simulate';
-import { type CsvStyle, simToCsv, toothTimesToCsv } from '../signal/sim/to-csv';
+import { type CsvStyle, edgeLogToCsv, simToCsv, toothTimesToCsv } from '../signal/sim/to-csv';
+import { parseWheel } from '../signal/teeth/wheel';
 
 interface SampleSpec {
   file: string;
@@ -12,13 +13,24 @@ interface SampleSpec {
   sim: Omit<SimOptions, 'engine'>;
   style?: CsvStyle;
   toothTimes?: boolean;
+  /** Written as a logic analyser's edge log (crank, and cam when the simulation records one). */
+  edgeLog?: boolean;
   teeth?: string;
   expect: string;
+  /** Warning codes the analysis must give. */
+  codes?: string[];
+  /** The verdict when it is not the truth's own (plugs out: uncertain). */
+  verdict?: string;
+  identity?: string;
+  method?: string;
+  sensor?: 'vr';
 }
 
 const I4: EngineSetup = { cylinders: 4, firingOrder: [1, 3, 4, 2], layout: 'inline' };
 const I6: EngineSetup = { cylinders: 6, firingOrder: [1, 5, 3, 6, 2, 4], layout: 'inline' };
 const V6: EngineSetup = { cylinders: 6, firingOrder: [1, 6, 5, 4, 3, 2], intervalsDeg: [90, 150, 90, 150, 90, 150], layout: 'v', numbering: 'along-crank' };
+const V6even: EngineSetup = { cylinders: 6, firingOrder: [1, 2, 3, 4, 5, 6], layout: 'v', numbering: 'along-crank' };
+const I3: EngineSetup = { cylinders: 3, firingOrder: [1, 2, 3], layout: 'inline' };
 const V8: EngineSetup = { cylinders: 8, firingOrder: [1, 8, 4, 3, 6, 5, 7, 2], layout: 'v', numbering: 'along-crank' };
 const logger = ['Crankprint sample capture (simulated)', 'Probe: clamp on starter cable'];
 
@@ -32,6 +44,12 @@ const specs: SampleSpec[] = [
   { file: 'i4-60-2-tooth-times.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 60-2 wheel', fault: 'one cylinder leaks (cylinder 2 by the simulator)', sim: { seed: 107, channels: [], leakPerS: [0, 4, 0, 0] }, toothTimes: true, teeth: '60-2', expect: 'one cylinder low; numbers assumed (crank only)' },
   { file: 'i4-36-1-hall-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 36-1 wheel', fault: 'cylinder 4 leaks', sim: { seed: 108, channels: ['hall', 'sync'], leakPerS: [0, 0, 0, 3], teeth: { count: 36, missing: 1 }, sampleRateHz: 10000 }, style: { channels: ['hall', 'sync'], timeUnit: 's' }, teeth: '36-1', expect: 'cylinder 4 low' },
   { file: 'i4-noisy-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 1 leaks; noisy clamp', sim: { seed: 109, channels: ['current', 'sync'], leakPerS: [3, 0, 0, 0], noise: 4 }, style: { channels: ['current', 'sync'] }, expect: 'cylinder 1 low' },
+  { file: 'v6-edge-log-cam-36-gaps.csv', engine: V6even, engineLabel: 'V6 60°, 1-2-3-4-5-6, wheel 36:15/2,14/1,3/1', fault: 'cylinder 2 leaks', sim: { seed: 111, channels: [], leakPerS: [0, 3, 0, 0, 0, 0], wheel: parseWheel('36:15/2,14/1,3/1')!, camWindowDeg: [700, 40] }, edgeLog: true, expect: 'cylinder 2 low; wheel learned; cylinder 1 from the cam', identity: 'cam' },
+  { file: 'i3-edge-log-fires.csv', engine: I3, engineLabel: 'Inline 3, 1-2-3, wheel 36:22/2,10/2', fault: 'cylinder 2 fires every second cycle', sim: { seed: 112, channels: [], wheel: parseWheel('36:22/2,10/2')!, firesCylinder: 2, durationS: 7 }, edgeLog: true, expect: 'ENGINE_FIRED; those events left out', codes: ['ENGINE_FIRED'] },
+  { file: 'i4-vr-60-2.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 60-2 wheel', fault: 'cylinder 3 leaks', sim: { seed: 113, channels: ['vr', 'sync'], leakPerS: [0, 0, 3, 0], sampleRateHz: 20000, vrScale: 0.3 }, style: { channels: ['vr', 'sync'], timeUnit: 's' }, sensor: 'vr', expect: 'cylinder 3 low (VR waveform, a few tenths of a volt)' },
+  { file: 'i4-plugs-out-tooth-times.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 60-2 wheel', fault: 'spark plugs out', sim: { seed: 114, channels: [], plugsOut: true }, toothTimes: true, expect: 'uncertain, NO_COMPRESSION, no figures', codes: ['NO_COMPRESSION'], verdict: 'uncertain' },
+  { file: 'i4-reversed-clamp-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 4 leaks; clamp on backwards', sim: { seed: 115, channels: ['current', 'sync'], leakPerS: [0, 0, 0, 3] }, style: { channels: ['current', 'sync'], invertCurrent: true }, expect: 'cylinder 4 low; CLAMP_REVERSED notice', codes: ['CLAMP_REVERSED'] },
+  { file: 'i4-battery-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 1 leaks', sim: { seed: 116, channels: ['battery', 'sync'], leakPerS: [3, 0, 0, 0] }, style: { channels: ['battery', 'sync'] }, expect: 'cylinder 1 low by the battery-voltage method', method: 'battery' },
   { file: 'no-cranking.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'the starter never engaged', sim: { seed: 110, channels: ['current'], starterOnS: 99, durationS: 4 }, style: { channels: ['current'] }, expect: 'uncertain, NO_CRANKING; the upload refuses it (no compression events)' },
 ];
 
@@ -40,10 +58,15 @@ const manifest: unknown[] = [];
 const rows: string[] = [];
 for (const s of specs) {
   const sim = simulateCranking({ engine: s.engine, ...s.sim, sampleRateHz: s.sim.sampleRateHz ?? 5000 });
-  const text = s.toothTimes ? toothTimesToCsv(sim) : simToCsv(sim, s.style);
+  const text = s.edgeLog
+    ? edgeLogToCsv(sim, ['Crankprint sample (simulated logic-analyser export)'])
+    : s.toothTimes
+      ? toothTimesToCsv(sim)
+      : simToCsv(sim, s.style);
   writeFileSync(`samples/${s.file}`, text);
   const truth = Array.from(sim.truth.relativePercent, (v) => Math.round(Math.min(100, v) * 10) / 10);
-  const channels = s.toothTimes ? ['tooth times'] : (s.style?.channels ?? ['current']) as (SimChannel | string)[];
+  const channels = s.edgeLog ? (s.sim.camWindowDeg ? ['crank edges', 'cam edges'] : ['crank edges']) : s.toothTimes ? ['tooth times'] : (s.style?.channels ?? ['current']) as (SimChannel | string)[];
+  const truthShown = s.sim.starterOnS === 99 || s.sim.plugsOut ? null : truth;
   manifest.push({
     file: s.file,
     engine: s.engine,
@@ -51,10 +74,15 @@ for (const s of specs) {
     channels,
     fault: s.fault,
     expect: s.expect,
-    truthPercent: s.sim.starterOnS === 99 ? null : truth,
-    synced: channels.includes('sync'),
+    truthPercent: truthShown,
+    synced: channels.includes('sync') || !!s.sim.camWindowDeg,
+    codes: s.codes,
+    verdict: s.verdict,
+    identity: s.identity,
+    method: s.method,
+    sensor: s.sensor,
   });
-  rows.push(`| \`${s.file}\` | ${s.engineLabel} | ${s.fault} | ${channels.join(', ')} | ${s.expect} | ${s.sim.starterOnS === 99 ? '—' : truth.map((v) => v.toFixed(0)).join(' / ')} |`);
+  rows.push(`| \`${s.file}\` | ${s.engineLabel} | ${s.fault} | ${channels.join(', ')} | ${s.expect} | ${truthShown ? truth.map((v) => v.toFixed(0)).join(' / ') : '—'} |`);
 }
 writeFileSync(
   'samples/malformed.csv',
@@ -68,7 +96,8 @@ writeFileSync(
   `# Sample captures
 
 Simulated with \`npm run samples\` (signal/sim: slider-crank volume, polytropic gas with per-cylinder leakage, a DC
-starter on a battery, crank inertia and friction). The last column is the simulator's truth: each cylinder's
+starter on a battery driving through a one-way clutch, valve springs, crank inertia and friction; healthy
+engines swing about 2× within each compression event, as real ones do). The last column is the simulator's truth: each cylinder's
 peak compression pressure in percent of the sealed cylinders' median, cylinder 1 first. The captures are
 invented for the demo and the tests; no vehicle was measured.
 

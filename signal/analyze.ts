@@ -102,7 +102,8 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   }
 
   const statuses = result.cylinders.map((c) => c.status);
-  const verdict: CylinderStatus = statuses.includes('uncertain') ? 'uncertain' : statuses.includes('low') ? 'low' : 'ok';
+  // A cylinder read low stands even when another is uncertain; otherwise any doubt makes the verdict uncertain.
+  const verdict: CylinderStatus = statuses.includes('low') ? 'low' : statuses.includes('uncertain') ? 'uncertain' : 'ok';
   const pattern = describePattern(setup, result.cylinders, verdict === 'uncertain');
   return {
     engineVersion: ENGINE_VERSION,

@@ -5,6 +5,7 @@
  */
 import { type EngineSetup, tdcPhasesDeg } from '../engine/firing';
 import { volumeRatio, volumeRatioSlope } from '../engine/geometry';
+import { simpleWheel, type ToothWheel } from '../teeth/wheel';
 import { seededRandom } from './random';
 
 export type SimChannel = 'current' | 'hall' | 'vr' | 'sync' | 'rpm' | 'battery';
@@ -41,6 +42,12 @@ export interface SimOptions {
   targetRpm?: number;
   /** Tooth wheel: total positions and missing teeth. @default { count: 60, missing: 2 } */
   teeth?: { count: number; missing: number };
+  /** Any wheel (several gaps, an extra tooth); overrides `teeth`. */
+  wheel?: ToothWheel;
+  /** A cam window, crank degrees after cylinder 1's compression TDC (0–720): its edges are recorded. */
+  camWindowDeg?: [number, number];
+  /** A cylinder (1-based) that fires on every second cycle: its pressure after TDC is raised fourfold. */
+  firesCylinder?: number;
   /** Crank degrees from cylinder 1's compression TDC to the first tooth after the gap. @default 84 */
   gapOffsetDeg?: number;
   /** Variable-reluctance amplitude multiplier (0.1 gives a few tenths of a volt). @default 1 */
@@ -78,6 +85,8 @@ export interface SimResult {
   rpm?: Float64Array;
   /** Battery voltage at its terminals, V. */
   battery?: Float64Array;
+  /** Cam window edges, s (with `camWindowDeg`). */
+  camEdges?: { rising: number[]; falling: number[] };
   /** Times of the crank-tooth edges, s. */
   toothTimes: Float64Array;
   truth: SimTruth;
@@ -103,7 +112,14 @@ export function simulateCranking(options: SimOptions): SimResult {
   const vdM3 = ((o.displacementL ?? 0.5 * n) / n) / 1000;
   const vcM3 = vdM3 / (rc - 1);
   const noise = o.noise ?? 1;
-  const teeth = o.teeth ?? { count: 60, missing: 2 };
+  const wheel = o.wheel ?? simpleWheel((o.teeth ?? { count: 60, missing: 2 }).count, (o.teeth ?? { count: 60, missing: 2 }).missing);
+  const teeth = { count: wheel.positions };
+  // Which positions carry a tooth (position 0 first), from the wheel's runs and gaps.
+  const presentAt = new Uint8Array(wheel.positions);
+  for (let j = 0, pos = 0; j < wheel.gapsAfter.length; j++) {
+    presentAt[pos] = 1;
+    pos += 1 + wheel.gapsAfter[j];
+  }
   const gapOffset = o.gapOffsetDeg ?? 84;
   const channels = new Set<SimChannel>(o.channels ?? ['current']);
   const rnd = seededRandom(o.seed ?? 1);
@@ -169,6 +185,8 @@ export function simulateCranking(options: SimOptions): SimResult {
   let locked = true;
   let t = 0;
   let lastToothSlot = Math.floor((theta - gapOffset) / pitch);
+  const cam = { rising: [] as number[], falling: [] as number[] };
+  const cycleCount = new Int32Array(n);
   let rpmSum = 0;
   let rpmCount = 0;
   const steadyFrom = onS + 0.8;
@@ -191,10 +209,12 @@ export function simulateCranking(options: SimOptions): SimResult {
             closed[c] = 1;
             mass[c] = 1;
             cyclePeak[c] = 0;
+            cycleCount[c]++;
           }
           const vRatio = volumeRatio(rc, rodRatio, psi * RAD);
           const p = P0 * Math.pow((mass[c] * vIvcRatio) / vRatio, poly);
-          const gauge = p - P0;
+          const fired = o.firesCylinder === c + 1 && psi > 2 && cycleCount[c] % 2 === 1;
+          const gauge = (p - P0) * (fired ? 4 : 1);
           if (gauge > cyclePeak[c]) cyclePeak[c] = gauge;
           gasNm += gauge * vcM3 * volumeRatioSlope(rc, rodRatio, psi * RAD);
           const l = leak[c] ?? 0;
@@ -236,12 +256,22 @@ export function simulateCranking(options: SimOptions): SimResult {
       const slot = Math.floor((theta - gapOffset) / pitch);
       for (let q = lastToothSlot + 1; q <= slot; q++) {
         const pos = ((q % teeth.count) + teeth.count) % teeth.count;
-        if (pos >= teeth.count - teeth.missing) continue;
-        const edge = gapOffset + q * pitch;
-        const frac = (edge - thetaBefore) / Math.max(1e-12, theta - thetaBefore);
-        tooth.push(t + frac * dt + rnd.gauss() * 3e-6 * noise);
+        const edges = presentAt[pos] ? [gapOffset + q * pitch] : [];
+        // The extra tooth sits 40 % of a pitch after the last position.
+        if (wheel.extraTooth && pos === teeth.count - 1) edges.push(gapOffset + (q + 0.4) * pitch);
+        for (const edge of edges) {
+          const frac = (edge - thetaBefore) / Math.max(1e-12, theta - thetaBefore);
+          tooth.push(t + Math.min(1, frac) * dt + rnd.gauss() * 3e-6 * noise);
+        }
       }
       lastToothSlot = slot;
+      if (o.camWindowDeg) {
+        const before = ((thetaBefore % 720) + 720) % 720;
+        const after = ((theta % 720) + 720) % 720;
+        const crossed = (a: number) => (before <= after ? before < a && a <= after : before < a || a <= after);
+        if (crossed(o.camWindowDeg[0])) cam.rising.push(t);
+        if (crossed(o.camWindowDeg[1])) cam.falling.push(t);
+      }
       t += dt;
     }
     time[s] = s / fs;
@@ -253,10 +283,10 @@ export function simulateCranking(options: SimOptions): SimResult {
       const ripple = currentNow > 0 ? 5 * Math.sin((commutatorSegments * gearRatio * theta * RAD) % (2 * Math.PI)) : 0;
       current[s] = currentNow + noise * (1.2 * rnd.gauss() + ripple);
     }
-    const wheel = theta - gapOffset;
-    const slotF = wheel / pitch;
+    const wheelDeg = theta - gapOffset;
+    const slotF = wheelDeg / pitch;
     const pos = ((Math.floor(slotF) % teeth.count) + teeth.count) % teeth.count;
-    const present = pos < teeth.count - teeth.missing;
+    const present = presentAt[pos] === 1;
     const u = slotF - Math.floor(slotF);
     if (hall) hall[s] = (present && u < 0.5 ? 5 : 0.1) + noise * 0.03 * rnd.gauss();
     if (vr) {
@@ -290,6 +320,7 @@ export function simulateCranking(options: SimOptions): SimResult {
     sync,
     rpm,
     battery,
+    camEdges: o.camWindowDeg ? cam : undefined,
     toothTimes: Float64Array.from(tooth),
     truth: { peakKpa, relativePercent, meanRpm: (meanOmega * 60) / (2 * Math.PI), cycles },
   };

@@ -83,12 +83,12 @@ function classify(u: Float64Array, k: number): number {
  * revolutions. Null when no gap or extra tooth repeats (a wheel with no reference mark cannot give an angle).
  */
 export function learnWheel(times: Float64Array): ToothWheel | null {
-  const fine = learnWith(pitchUnits(times, false));
+  const fine = learnWith(pitchUnits(times, false), times);
   if (fine && teethOf(fine) >= COARSE_TEETH) return fine;
   return learnWith(pitchUnits(times, true)) ?? fine;
 }
 
-function learnWith(u: Float64Array): ToothWheel | null {
+function learnWith(u: Float64Array, times?: Float64Array): ToothWheel | null {
   const n = u.length;
   if (n < 12) return null;
   // For the revolution's repeat, a gap is a gap whatever its size: compression can stretch one gap more on
@@ -126,8 +126,12 @@ function learnWith(u: Float64Array): ToothWheel | null {
   // short on the next come out at its size.
   const first = 2 + cls.subarray(2).findIndex((c) => c !== 0);
   const perSlot: number[][] = Array.from({ length: lag }, () => []);
+  const slotIndex: number[][] = Array.from({ length: lag }, () => []);
   for (let anchor = first; anchor + lag <= n; ) {
-    for (let j = 0; j < lag; j++) perSlot[j].push(Math.log(u[anchor + j]));
+    for (let j = 0; j < lag; j++) {
+      perSlot[j].push(Math.log(u[anchor + j]));
+      slotIndex[j].push(anchor + j);
+    }
     const expected = anchor + lag;
     anchor = cls[expected] !== 0 ? expected : cls[expected - 1] !== 0 ? expected - 1 : cls[expected + 1] !== 0 ? expected + 1 : expected;
   }
@@ -149,7 +153,7 @@ function learnWith(u: Float64Array): ToothWheel | null {
     const j = (start + i) % lag;
     if (extraAt >= 0 && j === extraAt) continue;
     const c = medianCls(j);
-    gapsAfter.push(c > 0 ? c : 0);
+    gapsAfter.push(c > 0 ? (times ? votedGap(times, slotIndex[j]) || c : c) : 0);
   }
   const positions = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
   if (extraAt < 0 && !gapsAfter.some((g) => g > 0)) return null;
@@ -318,4 +322,68 @@ function dropExtra(span: number[], wheel: ToothWheel): void {
     }
   }
   if (best > 0) span.splice(best, 1);
+}
+
+/**
+ * A gap's size on a fine wheel, by vote over its occurrences: for each candidate of 1–3 missing teeth, the
+ * periods of the three teeth on either side, placed at their angles, give a smooth (quadratic in log) speed
+ * curve across the gap; the candidate whose curve best predicts the gap's duration wins. This follows a crank
+ * that slows or speeds up across the gap, where a ratio to the neighbours alone reads a gap a tooth long.
+ */
+function votedGap(times: Float64Array, occurrences: number[]): number {
+  const votes = [0, 0, 0, 0];
+  for (const k of occurrences) {
+    if (k < 3 || k + 4 >= times.length) continue;
+    const d = (i: number) => times[i + 1] - times[i];
+    let best = 0;
+    let bestErr = Infinity;
+    for (let m = 1; m <= 3; m++) {
+      const xs = [-2.5, -1.5, -0.5, m + 1.5, m + 2.5, m + 3.5];
+      const ys = [d(k - 3), d(k - 2), d(k - 1), d(k + 1), d(k + 2), d(k + 3)].map(Math.log);
+      const c = quadraticFit(xs, ys);
+      if (!c) continue;
+      let predicted = 0;
+      for (let j = 0; j <= m; j++) predicted += Math.exp(c[0] + c[1] * (j + 0.5) + c[2] * (j + 0.5) ** 2);
+      const err = Math.abs(Math.log(d(k) / predicted));
+      if (err < bestErr) {
+        bestErr = err;
+        best = m;
+      }
+    }
+    votes[best]++;
+  }
+  let winner = 0;
+  for (let m = 1; m <= 3; m++) if (votes[m] > votes[winner]) winner = m;
+  return winner;
+}
+
+/** Least-squares y = a + b·x + c·x² through the points; null when singular. */
+function quadraticFit(xs: number[], ys: number[]): [number, number, number] | null {
+  const s = new Float64Array(5);
+  const t = new Float64Array(3);
+  for (let i = 0; i < xs.length; i++) {
+    let p = 1;
+    for (let e = 0; e < 5; e++) {
+      s[e] += p;
+      if (e < 3) t[e] += p * ys[i];
+      p *= xs[i];
+    }
+  }
+  const m = [
+    [s[0], s[1], s[2], t[0]],
+    [s[1], s[2], s[3], t[1]],
+    [s[2], s[3], s[4], t[2]],
+  ];
+  for (let c = 0; c < 3; c++) {
+    let piv = c;
+    for (let r = c + 1; r < 3; r++) if (Math.abs(m[r][c]) > Math.abs(m[piv][c])) piv = r;
+    if (Math.abs(m[piv][c]) < 1e-12) return null;
+    [m[c], m[piv]] = [m[piv], m[c]];
+    for (let r = 0; r < 3; r++) {
+      if (r === c) continue;
+      const f = m[r][c] / m[c][c];
+      for (let k = c; k < 4; k++) m[r][k] -= f * m[c][k];
+    }
+  }
+  return [m[0][3] / m[0][0], m[1][3] / m[1][1], m[2][3] / m[2][2]];
 }

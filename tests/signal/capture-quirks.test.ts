@@ -7,6 +7,8 @@
 import { describe, expect, it } from 'vitest';
 import { analyzeBytes, analyzeCapture } from '@/signal';
 import { simulateCranking } from '@/signal/sim/simulate';
+import { edgeLogToCsv } from '@/signal/sim/to-csv';
+import { parseWheel } from '@/signal/teeth/wheel';
 
 const I4 = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
 const enc = (s: string) => new TextEncoder().encode(s);
@@ -56,5 +58,26 @@ describe('capture quirks', () => {
     const r = analyzeCapture({ toothTimes: out.toothTimes }, { engine: I4 });
     expect(r.warnings.map((w) => w.code)).toContain('NO_COMPRESSION');
     expect(r.cylinders.every((c) => c.relativePercent === null && c.status === 'uncertain')).toBe(true);
+  });
+});
+
+describe('edge logs', () => {
+  const v6 = { cylinders: 6, firingOrder: [1, 2, 3, 4, 5, 6], layout: 'v' as const };
+  const log = simulateCranking({ engine: v6, channels: [], leakPerS: [0, 3, 0, 0, 0, 0], wheel: parseWheel('36:15/2,14/1,3/1')!, camWindowDeg: [700, 40], seed: 9 });
+  const text = edgeLogToCsv(log, ['exported by a logic analyser']);
+
+  it('are read without the mapping dialog: crank from the busiest channel, cylinder 1 from the cam', () => {
+    const { capture, result } = analyzeBytes(enc(text), { engine: v6 });
+    expect(capture.confidence).toBeGreaterThanOrEqual(0.7);
+    expect(capture.channels.map((c) => c.role)).toEqual(['time', 'crank', 'sync']);
+    expect(result.wheel?.description).toBe('36 positions, 32 teeth, gaps of 1, 1 and 2');
+    expect(result.identity).toBe('cam');
+    expect(lowOf(result)).toEqual([2]);
+  });
+
+  it('the mapping dialog can override the choice (the cam channel named as crank gives no wheel)', () => {
+    const { result } = analyzeBytes(enc(text), { engine: v6 }, { mapping: ['time', 'sync', 'crank'] });
+    expect(result.verdict).toBe('uncertain');
+    expect(result.identity).toBe('assumed');
   });
 });

@@ -12,6 +12,11 @@ interface Entry {
   teeth?: string;
   truthPercent?: number[] | null;
   synced?: boolean;
+  codes?: string[];
+  verdict?: string;
+  identity?: string;
+  method?: string;
+  sensor?: 'vr';
 }
 
 const manifest: Entry[] = JSON.parse(readFileSync('samples/manifest.json', 'utf8'));
@@ -19,13 +24,23 @@ const bytes = (f: string) => new Uint8Array(readFileSync(`samples/${f}`));
 
 describe('curated samples', () => {
   it.each(manifest.filter((m) => m.truthPercent).map((m) => [m.file, m] as const))('%s', (_f, m) => {
-    const { result } = analyzeBytes(bytes(m.file), { engine: m.engine!, teeth: m.teeth ? parseWheel(m.teeth)! : undefined });
+    const { result } = analyzeBytes(bytes(m.file), { engine: m.engine!, teeth: m.teeth ? parseWheel(m.teeth)! : undefined, sensor: m.sensor });
+    expect(result.warnings.map((w) => w.code)).toEqual(expect.arrayContaining(m.codes ?? []));
+    if (m.identity) expect(result.identity).toBe(m.identity);
+    if (m.method) expect(result.method).toBe(m.method);
     const lowTruth = m.truthPercent!.filter((v) => v < 90).length;
     const low = result.cylinders.filter((c) => c.status === 'low');
     expect(result.verdict).not.toBe('uncertain');
     expect(low.length).toBe(lowTruth);
     if (m.synced) expect(low.map((c) => c.cylinder)).toEqual(m.truthPercent!.map((v, i) => (v < 90 ? i + 1 : 0)).filter(Boolean));
     if (lowTruth === 2 && m.synced) expect(result.pattern.kind).toBe('neighbours-low');
+  });
+
+  it.each(manifest.filter((m) => m.verdict).map((m) => [m.file, m] as const))('%s gives its verdict and warning', (_f, m) => {
+    const { result } = analyzeBytes(bytes(m.file), { engine: m.engine! });
+    expect(result.verdict).toBe(m.verdict);
+    expect(result.warnings.map((w) => w.code)).toEqual(expect.arrayContaining(m.codes ?? []));
+    expect(result.cylinders.every((c) => c.relativePercent === null)).toBe(true);
   });
 
   it('no-cranking.csv is uncertain with NO_CRANKING', () => {
