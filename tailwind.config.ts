@@ -21,6 +21,7 @@ export default {
         ok: token('ok'),
         low: token('low'),
         uncertain: token('uncertain'),
+        high: token('high'),
         limit: token('limit'),
         event: token('event'),
         sync: token('sync'),

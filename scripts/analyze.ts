@@ -9,6 +9,8 @@ import {
   MAX_CAPTURE_BYTES,
   parseFiringOrder,
   parseWheel,
+  intervalText,
+  percentText,
 } from '../signal';
 
 const HELP = `Usage: npm run --silent analyze -- FILE --cylinders N --firing-order 1-3-4-2 [options]
@@ -20,6 +22,7 @@ const HELP = `Usage: npm run --silent analyze -- FILE --cylinders N --firing-ord
   --mark-offset DEG      crank degrees from a cam/injector/coil mark to cylinder 1's TDC
                          (default 0 for a cam, 360 for an injector output)
   --low-limit 90         low limit, % of the healthy cylinders
+  --high-limit 110       upper limit: a cylinder wholly above it reads high
   --spread-limit 10      spread limit, percentage points
   --intervals 90-150-…   firing intervals for uneven fire, degrees
   --sample-rate HZ       samples per second, for a sample-index column
@@ -50,6 +53,7 @@ function main() {
         method: { type: 'string', default: 'auto' },
         teeth: { type: 'string' },
         'low-limit': { type: 'string', default: '90' },
+        'high-limit': { type: 'string', default: '110' },
         'spread-limit': { type: 'string', default: '10' },
         intervals: { type: 'string' },
         'sample-rate': { type: 'string' },
@@ -77,6 +81,8 @@ function main() {
   if (method !== 'auto' && method !== 'current' && method !== 'crank-speed' && method !== 'battery') fail('--method must be auto, current, crank-speed or battery.');
   const lowLimit = Number(values['low-limit']);
   if (!(lowLimit > 0 && lowLimit < 100)) fail('--low-limit must be a percentage between 0 and 100.');
+  const highLimit = Number(values['high-limit']);
+  if (!(highLimit > 100 && highLimit < 300)) fail('--high-limit must be a percentage above 100.');
   const spreadLimit = Number(values['spread-limit']);
   if (!(spreadLimit > 0 && spreadLimit < 100)) fail('--spread-limit must be a percentage between 0 and 100.');
   const teeth = values.teeth ? parseWheel(values.teeth) : undefined;
@@ -108,6 +114,7 @@ function main() {
       markOffsetDeg: markOffset,
       lowLimitPercent: lowLimit,
       spreadLimitPercent: spreadLimit,
+      highLimitPercent: highLimit,
       rotation: Number(values.rotation) || 0,
     };
     const { result } = analyzeBytes(bytes, settings, { sampleRateHz: sampleRate });
@@ -119,7 +126,8 @@ function main() {
       `Method ${result.method}, cranking ${result.crankingRpm} rpm, cylinder identity ${result.identity}, verdict ${result.verdict}`,
       ...(result.wheel ? [`Wheel: ${result.wheel.description} (${result.wheel.notation}, ${result.wheel.learned ? 'learned from the capture' : 'as set'})`] : []),
       ...(result.identityNote ? [result.identityNote] : []),
-      ...result.cylinders.map((c) => `  cylinder ${String(c.cylinder).padStart(2)}  ${c.relativePercent === null ? '    —' : c.relativePercent.toFixed(1).padStart(5)} %  ${c.status.padEnd(9)} ${c.events} events`),
+      ...result.cylinders.map((c) => `  cylinder ${String(c.cylinder).padStart(2)}  ${percentText(c.relativePercent).padStart(5)} %  (90 %: ${intervalText(c.interval)})  ${c.status.padEnd(9)} ${c.events} events`),
+      `Capture quality ${result.quality.grade}${result.quality.limitedBy !== 'none' ? `, limited by ${result.quality.limitedBy}` : ''}: ${result.quality.note}`,
       ...(result.crossCheck ? [`Cross-check (${result.crossCheck.method}): ${result.crossCheck.cylinders.map((c) => c.relativePercent ?? '—').join(' ')} — ${result.crossCheck.agree ? 'agrees' : 'disagrees'}`] : []),
       `Spread ${result.spreadPercent} points. ${result.pattern.hint}`,
       ...result.warnings.map((w) => `  ! ${w.code}: ${w.message}`),

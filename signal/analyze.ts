@@ -9,9 +9,11 @@ import { runCrankSpeedMethod, runSpeedChannelMethod } from './methods/crank-spee
 import { describePattern } from './steps/pattern';
 import { summarize } from './steps/summarize';
 import { runFit } from './steps/run-fit';
-import { type QualityWarning, THIN_EVIDENCE, warning } from './steps/warnings';
-import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, CylinderStatus, Method, MethodResult } from './types';
+import { type QualityWarning, warning } from './steps/warnings';
+import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderStatus, Method, MethodResult } from './types';
 import { ENGINE_VERSION } from './version';
+import { cylinderIntervals, widenToward } from './steps/interval';
+import { gradeCapture, holdAfterLow, isThin, type Limits, settleStatuses } from './steps/status';
 import { quantileProbe } from './dsp/stats';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
 import { wheelNotation } from './teeth/wheel';
@@ -28,6 +30,9 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   firingIntervals(setup);
   const lowLimit = settings.lowLimitPercent ?? 90;
   const spreadLimit = settings.spreadLimitPercent ?? 10;
+  const highLimit = settings.highLimitPercent ?? 110;
+  if (!(highLimit > 100 && highLimit < 300)) throw new CaptureError('BAD_SETTINGS', 'The upper limit must be a percentage above 100.');
+  const limits: Limits = { lowLimitPercent: lowLimit, highLimitPercent: highLimit, minEvents: MIN_CYCLES };
   if (!(lowLimit > 0 && lowLimit < 100)) throw new CaptureError('BAD_SETTINGS', 'The low limit must be a percentage between 0 and 100.');
   if (!(spreadLimit > 0 && spreadLimit < 100)) throw new CaptureError('BAD_SETTINGS', 'The spread limit must be a percentage between 0 and 100.');
   const rotation = Math.trunc(settings.rotation ?? 0);
@@ -75,13 +80,13 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     if (crank.ok && crank.run.wheel?.tooCoarse) primary = hasCurrent ? 'current' : 'battery';
   }
   const outcome = primary === 'battery' && isEdgeSampled(columns) ? batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit) : runMethod(primary);
-  const result = toMethodResult(primary, outcome, settings, lowLimit, spreadLimit, importWarnings);
+  const result = toMethodResult(primary, outcome, settings, limits, spreadLimit, importWarnings);
 
   let crossCheck: AnalysisResult['crossCheck'];
   const otherMethod: Method | null = choice !== 'auto' ? null : primary !== 'crank-speed' ? (hasCrank ? 'crank-speed' : null) : hasCurrent ? 'current' : hasBattery ? 'battery' : null;
   if (otherMethod) {
     const otherOutcome = otherMethod === 'battery' && isEdgeSampled(columns) ? batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit) : runMethod(otherMethod);
-    const other = toMethodResult(otherMethod, otherOutcome, settings, lowLimit, spreadLimit, importWarnings);
+    const other = toMethodResult(otherMethod, otherOutcome, settings, limits, spreadLimit, importWarnings);
     if (other.fitQuality > 0 && result.cylinders.every((c) => c.relativePercent !== null) && other.cylinders.every((c) => c.relativePercent !== null)) {
       let maxDifference = 0;
       for (let c = 0; c < result.cylinders.length; c++) {
@@ -95,6 +100,12 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
         agree,
         maxDifference: Math.round(maxDifference * 10) / 10,
       };
+      // Disagreement widens each interval halfway to the other method's figure, and the statuses follow.
+      for (let c = 0; c < result.cylinders.length; c++) {
+        const mine = result.cylinders[c];
+        if (mine.interval) mine.interval = widenToward(mine.interval, other.cylinders[c].relativePercent!);
+      }
+      settle(result, setup, limits);
       if (!agree) {
         result.warnings.push(warning('METHODS_DISAGREE', `The ${METHOD_WORDS[primary]} and ${METHOD_WORDS[otherMethod]} methods differ by up to ${crossCheck.maxDifference} points; check both probes and the firing order before trusting either.`));
       }
@@ -103,12 +114,14 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
 
   const statuses = result.cylinders.map((c) => c.status);
   // A cylinder read low stands even when another is uncertain; otherwise any doubt makes the verdict uncertain.
-  const verdict: CylinderStatus = statuses.includes('low') ? 'low' : statuses.includes('uncertain') ? 'uncertain' : 'ok';
+  const verdict: CylinderStatus = statuses.includes('low') ? 'low' : statuses.includes('high') ? 'high' : statuses.includes('uncertain') ? 'uncertain' : 'ok';
   const pattern = describePattern(setup, result.cylinders, verdict === 'uncertain');
+  const quality = gradeCapture(result.cylinders, result.warnings, isThin(result.method, result.warnings, result.wheel), result.identity === 'assumed');
   return {
     engineVersion: ENGINE_VERSION,
     ...result,
     verdict,
+    quality,
     pattern,
     settings: {
       method: choice,
@@ -116,6 +129,7 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
       firingOrder: setup.firingOrder,
       lowLimitPercent: lowLimit,
       spreadLimitPercent: spreadLimit,
+      highLimitPercent: highLimit,
       rotation,
       teeth: settings.teeth ? wheelNotation(settings.teeth) : undefined,
     },
@@ -127,10 +141,11 @@ function toMethodResult(
   method: Method,
   outcome: MethodOutcome,
   settings: AnalysisSettings,
-  lowLimit: number,
+  limits: Limits,
   spreadLimit: number,
   importWarnings: QualityWarning[],
 ): MethodResult {
+  const lowLimit = limits.lowLimitPercent;
   const setup = settings.engine;
   const n = setup.cylinders;
   const warnings: QualityWarning[] = [...importWarnings];
@@ -142,7 +157,7 @@ function toMethodResult(
       identity: 'assumed',
       window: { startS: 0, endS: 0 },
       cylinders: Array.from({ length: n }, (_, i) => ({
-        cylinder: i + 1, relativePercent: null, status: 'uncertain' as const, events: 0, rejected: 0, spreadPercent: 0, plainPercent: 0, raw: 0, perCycle: [],
+        cylinder: i + 1, relativePercent: null, interval: null, status: 'uncertain' as const, events: 0, rejected: 0, spreadPercent: 0, plainPercent: 0, raw: 0, perCycle: [],
       })),
       events: [],
       rawUnit: RAW_UNIT[method],
@@ -185,16 +200,20 @@ function toMethodResult(
     warnings.push(warning('NO_SYNC', `Without a cylinder 1 sync channel, the numbers assume the first event is cylinder ${setup.firingOrder[0]}; rotate the assignment if you know better, or record again with sync on cylinder 1.`));
   }
   if (run.rawScale) for (const c of summary.cylinders) c.raw = Math.round(c.raw * run.rawScale * 100) / 100;
-  const coarse = method === 'crank-speed' && !!run.wheel?.tooCoarse;
-  const thin = coarse || warnings.some((w) => THIN_EVIDENCE.has(w.code));
+  const thin = isThin(method, warnings, run.wheel);
   const noCompression = warnings.some((w) => w.code === 'NO_COMPRESSION');
+  const intervals = cylinderIntervals(
+    summary.cylinders.map((c) => c.perCycle),
+    summary.cylinders.map((c) => c.relativePercent),
+    { lowLimitPercent: lowLimit, floorPoints: method === 'crank-speed' ? 3 : 4, leaky: Array.from(fit.leakPerS, (l) => l > 0) },
+  );
   const inconsistent: number[] = [];
-  for (const c of summary.cylinders) {
+  for (const [i, c] of summary.cylinders.entries()) {
     if (noCompression) c.relativePercent = null;
-    if (thin || c.events < MIN_CYCLES || c.relativePercent === null) c.status = 'uncertain';
-    else if (c.relativePercent < lowLimit) c.status = 'low';
+    c.interval = c.relativePercent === null ? null : intervals[i];
     if (c.spreadPercent > spreadLimit) inconsistent.push(c.cylinder);
   }
+  settleStatuses(summary.cylinders, thin, limits, warnings);
   if (method !== 'crank-speed') holdAfterLow(summary.cylinders, setup, lowLimit, warnings);
   if (inconsistent.length && !quiet) {
     warnings.push(warning('INCONSISTENT_CYCLES', `Cylinder${inconsistent.length > 1 ? 's' : ''} ${inconsistent.join(', ')} varied by more than ${spreadLimit} points from cycle to cycle; look at the trace for misfiring probes or an unsteady crank.`));
@@ -219,33 +238,6 @@ function toMethodResult(
   };
 }
 
-/** How far below the low limit a cylinder right after a low one may read and still be the starter's doing. */
-const AFTER_LOW_MARGIN = 20;
-
-/**
- * The electrical methods read the starter's current. After a weak cylinder the crank dips hard into the next
- * compression and the starter's one-way clutch overruns, which the affine starter model does not follow, so
- * the next cylinder in firing order can read low without being low (measured on the simulator with an
- * overrunning clutch). Such a cylinder is `uncertain` with a sentence, unless it reads far below the limit.
- */
-function holdAfterLow(cylinders: CylinderResult[], setup: AnalysisSettings['engine'], lowLimit: number, warnings: QualityWarning[]): void {
-  const order = setup.firingOrder;
-  const byNumber = new Map(cylinders.map((c) => [c.cylinder, c]));
-  const lowBefore = new Set(cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder));
-  const held: number[] = [];
-  for (let p = 0; p < order.length; p++) {
-    const prev = byNumber.get(order[(p - 1 + order.length) % order.length])!;
-    const c = byNumber.get(order[p])!;
-    if (c.status !== 'low' || !lowBefore.has(prev.cylinder) || prev === c) continue;
-    if ((c.relativePercent ?? 0) < lowLimit - AFTER_LOW_MARGIN || (c.relativePercent ?? 0) <= (prev.relativePercent ?? 0)) continue;
-    c.status = 'uncertain';
-    held.push(c.cylinder);
-  }
-  if (held.length) {
-    warnings.push(warning('AFTER_LOW', `Cylinder${held.length > 1 ? 's' : ''} ${held.join(', ')} fire${held.length > 1 ? '' : 's'} right after a low cylinder and read${held.length > 1 ? '' : 's'} a little low; the starter's clutch overruns there and the current method can read low without cause. Confirm with crank speed (a crank sensor channel) or a gauge test.`));
-  }
-}
-
 const RAW_UNIT = { current: 'A', 'crank-speed': 'rpm', battery: 'V' } as const;
 const METHOD_WORDS: Record<Method, string> = { current: 'starter-current', 'crank-speed': 'crank-speed', battery: 'battery-voltage' };
 
@@ -262,6 +254,12 @@ function orientCurrent(current: Float64Array): { current: Float64Array; notice?:
 
 function withWarning(outcome: MethodOutcome, w: QualityWarning): MethodOutcome {
   return outcome.ok ? { ok: true, run: { ...outcome.run, warnings: [w, ...outcome.run.warnings] } } : { ok: false, warnings: [w, ...outcome.warnings] };
+}
+
+/** Statuses again after the intervals changed (a second method disagreeing). */
+function settle(r: MethodResult, setup: AnalysisSettings['engine'], limits: Limits): void {
+  settleStatuses(r.cylinders, isThin(r.method, r.warnings, r.wheel), limits, r.warnings);
+  if (r.method !== 'crank-speed') holdAfterLow(r.cylinders, setup, limits.lowLimitPercent, r.warnings);
 }
 
 function round3(v: number): number {

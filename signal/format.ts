@@ -18,3 +18,7 @@ export function identityWords(identity: 'sync' | 'cam' | 'injector' | 'coil' | '
     assumed: 'assumed from the firing order (no sync)',
   }[identity];
 }
+/** A 90 % interval as "86.0–93.0", or a dash. */
+export function intervalText(iv: [number, number] | null): string {
+  return iv ? `${iv[0].toFixed(1)}–${iv[1].toFixed(1)}` : '—';
+}

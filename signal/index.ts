@@ -28,4 +28,6 @@ export function analyzeBytes(
   const capture = importCapture(bytes, options);
   return { capture, result: analyzeCapture(capture.columns, settings, capture.warnings) };
 }
-export { identityWords, METHOD_NAMES, percentText } from './format';
+export { identityWords, intervalText, METHOD_NAMES, percentText } from './format';
+export { compareResults } from './steps/compare';
+export type { CylinderChange } from './steps/compare';

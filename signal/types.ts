@@ -27,7 +27,8 @@ export interface CaptureColumns {
 export type MethodChoice = 'auto' | 'current' | 'crank-speed' | 'battery';
 /** `battery` is the electrical method on battery voltage (it dips as the starter current rises). */
 export type Method = 'current' | 'crank-speed' | 'battery';
-export type CylinderStatus = 'ok' | 'low' | 'uncertain';
+/** `high`: wholly above the upper limit (carbon build-up or an oil-fouled chamber are common causes). */
+export type CylinderStatus = 'ok' | 'low' | 'high' | 'uncertain';
 /** Where cylinder numbers come from: a sync channel, a cam channel, an injector or coil output, or assumed. */
 export type IdentitySource = 'sync' | 'cam' | 'injector' | 'coil' | 'assumed';
 
@@ -43,6 +44,8 @@ export interface AnalysisSettings {
   lowLimitPercent?: number;
   /** @default 10 */
   spreadLimitPercent?: number;
+  /** A cylinder wholly above this reads `high`. @default 110 */
+  highLimitPercent?: number;
   /** Override of the cranking window, s. */
   window?: { startS: number; endS: number };
   /** Without sync: steps the cylinder assignment along the firing order. @default 0 */
@@ -53,8 +56,12 @@ export interface AnalysisSettings {
 
 export interface CylinderResult {
   cylinder: number;
-  /** Estimated compression pressure in percent of the healthy cylinders' median; null when the capture shows no compression to compare. */
+  /** Estimated compression pressure in percent of the healthy cylinders' median, as it is (above 100 when above the rest); null when the capture shows no compression to compare. */
   relativePercent: number | null;
+  /** 90 % interval of the figure, percent; null with no figure. */
+  interval: [number, number] | null;
+  /** Crank-speed method: mean time the crank takes through this cylinder's event window, ms. */
+  strokeMs?: number;
   status: CylinderStatus;
   /** Complete compression events used. */
   events: number;
@@ -77,7 +84,7 @@ export interface EventMark {
   used: boolean;
 }
 
-export type PatternKind = 'none' | 'one-low' | 'neighbours-low' | 'scattered-low' | 'uncertain';
+export type PatternKind = 'none' | 'one-low' | 'neighbours-low' | 'scattered-low' | 'high' | 'uncertain';
 
 export interface PatternHint {
   kind: PatternKind;
@@ -121,11 +128,20 @@ export interface MethodResult {
   warnings: QualityWarning[];
 }
 
+/** Capture quality in one word, and what limits it most. */
+export interface QualityGrade {
+  grade: 'good' | 'fair' | 'poor';
+  limitedBy: 'cycles' | 'noise' | 'sample rate' | 'wheel resolution' | 'identity' | 'compression' | 'none';
+  /** The limit in a plain sentence. */
+  note: string;
+}
+
 export interface AnalysisResult extends MethodResult {
   engineVersion: string;
   verdict: CylinderStatus;
+  quality: QualityGrade;
   pattern: PatternHint;
-  settings: Required<Pick<AnalysisSettings, 'lowLimitPercent' | 'spreadLimitPercent' | 'rotation'>> & {
+  settings: Required<Pick<AnalysisSettings, 'lowLimitPercent' | 'spreadLimitPercent' | 'highLimitPercent' | 'rotation'>> & {
     method: MethodChoice;
     cylinders: number;
     firingOrder: number[];

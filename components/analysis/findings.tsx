@@ -5,6 +5,7 @@ import { STATUS_TEXT } from './status-style';
 const VERDICT: Record<string, string> = {
   ok: 'No cylinder below the low limit.',
   low: 'At least one cylinder is below the low limit.',
+  high: 'At least one cylinder reads above the upper limit.',
   uncertain: 'Not enough good evidence to rank the cylinders.',
 };
 
@@ -12,9 +13,16 @@ export function Findings({ result }: { result: AnalysisResult }) {
   return (
     <div className="flex flex-col gap-3">
       <p className={`text-lg font-bold ${STATUS_TEXT[result.verdict]}`} data-testid="verdict">
-        {result.verdict === 'low' ? '▼ ' : result.verdict === 'uncertain' ? '? ' : '✓ '}
+        {{ low: '▼ ', high: '▲ ', uncertain: '? ', ok: '✓ ' }[result.verdict]}
         {VERDICT[result.verdict]}
       </p>
+      {result.quality && (
+        <p data-testid="quality">
+          Capture quality: <strong>{result.quality.grade}</strong>
+          {result.quality.limitedBy !== 'none' ? ` — limited by ${result.quality.limitedBy}. ` : '. '}
+          {result.quality.note}
+        </p>
+      )}
       <p>{result.pattern.hint}</p>
       {result.pattern.nextTests.length > 0 && (
         <div>

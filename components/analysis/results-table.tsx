@@ -1,8 +1,12 @@
-/** The figures beneath the chart: raw figure (A or rpm), the plain index, events used and rejected, spread. */
-import { type AnalysisResult, type CylinderResult, percentText } from '@/signal';
+/**
+ * The figures beneath the chart: the figure with its 90 % interval, the raw figure (A, V or rpm), the time through
+ * each event on crank speed, the plain index, events used and rejected, and the cycle-to-cycle spread.
+ */
+import { type AnalysisResult, type CylinderResult, intervalText, percentText } from '@/signal';
 import { STATUS_TEXT } from './status-style';
 
 export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult[]; rawUnit: AnalysisResult['rawUnit'] }) {
+  const stroke = cylinders.some((c) => c.strokeMs !== undefined);
   return (
     <div className="overflow-x-auto rounded-xl border border-line">
       <table className="w-full text-right">
@@ -11,8 +15,10 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
           <tr>
             <th scope="col" className="px-3 py-2 text-left">Cylinder</th>
             <th scope="col" className="px-3 py-2">Relative compression</th>
+            <th scope="col" className="px-3 py-2">90 % interval</th>
             <th scope="col" className="px-3 py-2 text-left">Status</th>
             <th scope="col" className="px-3 py-2">{rawUnit === 'A' ? 'Current rise' : rawUnit === 'V' ? 'Voltage swing' : 'Speed dip'}</th>
+            {stroke && <th scope="col" className="px-3 py-2">Compression stroke</th>}
             <th scope="col" className="px-3 py-2">Plain index</th>
             <th scope="col" className="px-3 py-2">Cycle spread</th>
             <th scope="col" className="px-3 py-2">Events used</th>
@@ -26,10 +32,12 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
                 {c.cylinder}
               </th>
               <td className="px-3 py-2">{percentText(c.relativePercent)} %</td>
+              <td className="px-3 py-2">{intervalText(c.interval)} %</td>
               <td className={`px-3 py-2 text-left font-sans font-bold ${STATUS_TEXT[c.status]}`}>{c.status}</td>
               <td className="px-3 py-2">
                 {c.raw.toFixed(1)} {rawUnit}
               </td>
+              {stroke && <td className="px-3 py-2">{c.strokeMs === undefined ? '—' : `${c.strokeMs.toFixed(1)} ms`}</td>}
               <td className="px-3 py-2">{c.plainPercent.toFixed(1)} %</td>
               <td className="px-3 py-2">± {c.spreadPercent.toFixed(1)}</td>
               <td className="px-3 py-2">{c.events}</td>

@@ -88,6 +88,9 @@ export function SettingsPanel({
         <Field id="s-low" label="Low limit (%)">
           <Input id="s-low" type="number" min={50} max={99} className="figures" value={settings.lowLimitPercent} onChange={(ev) => ev.target.value && set({ lowLimitPercent: Number(ev.target.value) })} />
         </Field>
+        <Field id="s-high" label="Upper limit (%)">
+          <Input id="s-high" type="number" min={101} max={200} className="figures" value={settings.highLimitPercent} onChange={(ev) => ev.target.value && set({ highLimitPercent: Number(ev.target.value) })} />
+        </Field>
         <Field id="s-spread" label="Spread limit (%)">
           <Input id="s-spread" type="number" min={1} max={50} className="figures" value={settings.spreadLimitPercent} onChange={(ev) => ev.target.value && set({ spreadLimitPercent: Number(ev.target.value) })} />
         </Field>

@@ -230,7 +230,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
                   </p>
                 )}
                 {result.identityNote && <p className="text-sm text-muted">{result.identityNote}</p>}
-                <CylinderBars cylinders={result.cylinders} lowLimit={settings.lowLimitPercent} onHover={setHighlighted} highlighted={highlighted} />
+                <CylinderBars cylinders={result.cylinders} lowLimit={settings.lowLimitPercent} highLimit={settings.highLimitPercent} onHover={setHighlighted} highlighted={highlighted} />
                 <Findings result={result} />
                 <div className="mt-4">
                   <ResultsTable cylinders={result.cylinders} rawUnit={result.rawUnit} />

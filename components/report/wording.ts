@@ -1,5 +1,5 @@
 /** Interpretation wording drawn from a result's verdict and pattern: a starting point the technician edits. */
-import { type AnalysisResult, identityWords, METHOD_NAMES, percentText } from '@/signal';
+import { type AnalysisResult, identityWords, intervalText, METHOD_NAMES, percentText } from '@/signal';
 
 export function interpretationFor(r: AnalysisResult): string {
   const method = METHOD_NAMES[r.method];
@@ -8,11 +8,13 @@ export function interpretationFor(r: AnalysisResult): string {
   if (r.verdict === 'uncertain') {
     return `A relative compression test by the ${method} method could not rank the cylinders: ${r.warnings.map((w) => w.message).join(' ')} The test should be repeated before conclusions are drawn.`;
   }
+  const doubts = r.warnings.filter((w) => w.code === 'CLOSE_CALL' || w.code === 'AFTER_LOW').map((w) => w.message);
+  const doubt = doubts.length ? ` ${doubts.join(' ')}` : '';
   if (low.length === 0) {
-    return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found every cylinder within the ${r.settings.lowLimitPercent} % low limit (spread ${r.spreadPercent} points). ${r.pattern.hint} ${identity}`;
+    return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found every cylinder within the ${r.settings.lowLimitPercent} % low limit (spread ${r.spreadPercent} points). ${r.pattern.hint}${doubt} ${identity}`;
   }
-  const list = low.map((c) => `cylinder ${c.cylinder} at ${percentText(c.relativePercent, 0)} %`).join(', ');
-  return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found ${list} of the healthy cylinders, below the ${r.settings.lowLimitPercent} % low limit. ${r.pattern.hint} ${identity} A relative test does not give pressure in psi or kPa; confirm with a gauge compression test before any teardown.`;
+  const list = low.map((c) => `cylinder ${c.cylinder} at ${percentText(c.relativePercent, 0)} % (90 % interval ${intervalText(c.interval)} %)`).join(', ');
+  return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found ${list} of the healthy cylinders, below the ${r.settings.lowLimitPercent} % low limit. ${r.pattern.hint}${doubt} ${identity} A relative test does not give pressure in psi or kPa; confirm with a gauge compression test before any teardown.`;
 }
 
 export function nextStepsFor(r: AnalysisResult): string[] {

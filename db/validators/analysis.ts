@@ -14,13 +14,14 @@ export const analysisSettingsSchema = z
       layout: z.enum(['inline', 'v', 'flat']).default('inline'),
       numbering: z.enum(['along-crank', 'bank-by-bank']).default('along-crank'),
     }),
-    method: z.enum(['auto', 'current', 'crank-speed']).default('auto'),
+    method: z.enum(['auto', 'current', 'crank-speed', 'battery']).default('auto'),
     teeth: z
       .string()
-      .regex(/^\d{1,3}-\d$/, 'Write the tooth pattern like 60-2.')
+      .refine((t) => parseWheel(t) !== null, 'Write the wheel like 60-2, or as runs and gaps such as 36:15/2,14/1,3/1.')
       .optional(),
     lowLimitPercent: z.number().gt(0, 'The low limit is a percentage above 0.').lt(100, 'The low limit is a percentage below 100.').default(90),
     spreadLimitPercent: z.number().gt(0).lt(100).default(10),
+    highLimitPercent: z.number().gt(100, 'The upper limit is a percentage above 100.').lt(300, 'The upper limit is a percentage below 300.').default(110),
     window: z.object({ startS: z.number(), endS: z.number() }).refine((w) => w.endS > w.startS, 'The cranking window must end after it starts.').optional(),
     rotation: z.number().int().min(-16).max(16).default(0),
     sensor: z.enum(['auto', 'hall', 'vr']).default('auto'),
@@ -52,6 +53,7 @@ export function engineSettings(s: AnalysisSettingsValues): AnalysisSettings {
     teeth: s.teeth ? (parseWheel(s.teeth) ?? undefined) : undefined,
     lowLimitPercent: s.lowLimitPercent,
     spreadLimitPercent: s.spreadLimitPercent,
+    highLimitPercent: s.highLimitPercent,
     window: s.window,
     rotation: s.rotation,
     sensor: s.sensor,

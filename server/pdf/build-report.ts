@@ -24,7 +24,7 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
     } catch {
       trace = undefined;
     }
-    analyses.push({ label: `${a.jobRepairOrder} · ${a.capture.fileName} · saved ${a.analysis.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`, result, fileSha256: a.analysis.fileSha256, trace });
+    analyses.push({ label: `${a.jobRepairOrder} · ${a.capture.fileName} · saved ${a.analysis.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`, result, fileSha256: a.analysis.fileSha256, savedAtMs: a.analysis.createdAt.getTime(), trace });
   }
   return {
     shopName: b.shop.name,

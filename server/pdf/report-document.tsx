@@ -4,7 +4,7 @@
  * engine version and SHA-256, page numbers. Built from plain data so it renders without a database.
  */
 import { Document, G, Line, Page, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
-import { type AnalysisResult, identityWords, percentText } from '@/signal';
+import { type AnalysisResult, compareResults, identityWords, intervalText, METHOD_NAMES, percentText } from '@/signal';
 
 export interface PdfTrace {
   t: number[];
@@ -18,6 +18,8 @@ export interface PdfAnalysis {
   label: string;
   result: AnalysisResult;
   fileSha256: string;
+  /** When the analysis was saved, ms since 1970: orders before and after. */
+  savedAtMs?: number;
   trace?: PdfTrace;
 }
 
@@ -40,7 +42,7 @@ export interface ReportPdfData {
   limits: string;
 }
 
-const C = { ink: '#1B2430', muted: '#545C68', line: '#CDC7BC', brand: '#A64822', ok: '#166E60', low: '#B0261E', uncertain: '#606876', limit: '#6842A8', event: '#2656A0', raised: '#EEEAE2' };
+const C = { ink: '#1B2430', muted: '#545C68', line: '#CDC7BC', brand: '#A64822', ok: '#166E60', low: '#B0261E', uncertain: '#606876', high: '#965C00', limit: '#6842A8', event: '#2656A0', raised: '#EEEAE2' };
 
 const s = StyleSheet.create({
   page: { fontFamily: 'Atkinson', fontSize: 9.5, color: C.ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40 },
@@ -63,8 +65,8 @@ const s = StyleSheet.create({
   verdict: { fontSize: 11, fontWeight: 700 },
 });
 
-const STATUS_COLOR = { ok: C.ok, low: C.low, uncertain: C.uncertain } as const;
-const STATUS_WORD = { ok: 'ok', low: 'LOW', uncertain: 'uncertain' } as const;
+const STATUS_COLOR = { ok: C.ok, low: C.low, high: C.high, uncertain: C.uncertain } as const;
+const STATUS_WORD = { ok: 'ok', low: 'LOW', high: 'HIGH', uncertain: 'uncertain' } as const;
 
 /** Bars in percent with the low-limit line; low is hatched, uncertain dotted, ok solid; a word under each. */
 function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?: number; height?: number }) {
@@ -75,7 +77,9 @@ function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?:
   const n = r.cylinders.length;
   const slot = plotW / n;
   const bw = Math.min(26, slot * 0.6);
-  const y = (p: number) => 8 + plotH * (1 - Math.min(110, Math.max(0, p)) / 110);
+  const high = r.settings.highLimitPercent ?? 110;
+  const ceiling = Math.ceil(Math.max(high + 5, ...r.cylinders.map((c) => Math.max(c.interval?.[1] ?? 0, c.relativePercent ?? 0))) / 10) * 10;
+  const y = (p: number) => 8 + plotH * (1 - Math.min(ceiling, Math.max(0, p)) / ceiling);
   const limit = r.settings.lowLimitPercent;
   return (
     <Svg width={width} height={height}>
@@ -93,7 +97,7 @@ function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?:
         const h = Math.max(0, y(0) - top);
         const color = STATUS_COLOR[c.status];
         const hatch: number[] = [];
-        if (c.status === 'low') for (let k = -h; k < bw; k += 4) hatch.push(k);
+        if (c.status === 'low' || c.status === 'high') for (let k = -h; k < bw; k += 4) hatch.push(k);
         return (
           <G key={c.cylinder}>
             <Rect x={x} y={top} width={bw} height={h} fill={c.status === 'ok' ? color : '#FFFFFF'} stroke={color} strokeWidth={1} />
@@ -103,9 +107,16 @@ function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?:
               const len = Math.min(bw - Math.max(0, k), h - Math.max(0, -k));
               return <Line key={k} x1={x1} y1={y1} x2={x1 + len} y2={y1 - len} stroke={color} strokeWidth={1.2} />;
             })}
+            {c.interval && (
+              <G>
+                <Line x1={x + bw / 2} x2={x + bw / 2} y1={y(c.interval[0])} y2={y(c.interval[1])} stroke={C.ink} strokeWidth={1} />
+                <Line x1={x + bw / 2 - 4} x2={x + bw / 2 + 4} y1={y(c.interval[0])} y2={y(c.interval[0])} stroke={C.ink} strokeWidth={1} />
+                <Line x1={x + bw / 2 - 4} x2={x + bw / 2 + 4} y1={y(c.interval[1])} y2={y(c.interval[1])} stroke={C.ink} strokeWidth={1} />
+              </G>
+            )}
             {c.status === 'uncertain' &&
               Array.from({ length: Math.floor(h / 5) }, (_, k) => <Rect key={k} x={x + bw / 2 - 1} y={top + 3 + k * 5} width={2} height={2} fill={color} />)}
-            <Text x={x + bw / 2} y={top - 2.5} style={{ fontSize: 7, fontFamily: 'AtkinsonMono' }} fill={C.ink} textAnchor="middle">
+            <Text x={x + bw / 2} y={Math.min(top, c.interval ? y(c.interval[1]) : top) - 2.5} style={{ fontSize: 7, fontFamily: 'AtkinsonMono' }} fill={C.ink} textAnchor="middle">
               {percentText(c.relativePercent, 0)}
             </Text>
             <Text x={x + bw / 2} y={height - padB + 11} style={{ fontSize: 7.5, fontWeight: 700 }} fill={C.ink} textAnchor="middle">
@@ -168,12 +179,13 @@ function TraceSvg({ trace, width = 515, height = 110 }: { trace: PdfTrace; width
 function Figures({ r }: { r: AnalysisResult }) {
   const cols = [
     ['Cylinder', 50],
-    ['Relative compression', 95],
+    ['Relative', 55],
+    ['90 % interval', 75],
     ['Status', 60],
-    [r.rawUnit === 'A' ? 'Current rise' : 'Speed dip', 75],
+    [r.rawUnit === 'A' ? 'Current rise' : r.rawUnit === 'V' ? 'Voltage swing' : 'Speed dip', 75],
     ['Plain index', 70],
     ['Cycle spread', 70],
-    ['Events used / rejected', 95],
+    ['Events used / rejected', 60],
   ] as const;
   return (
     <View style={s.table}>
@@ -187,19 +199,20 @@ function Figures({ r }: { r: AnalysisResult }) {
       {r.cylinders.map((c) => (
         <View key={c.cylinder} style={s.tr}>
           <Text style={[s.td, { width: 50 }]}>{c.cylinder}</Text>
-          <Text style={[s.td, s.mono, { width: 95 }]}>{`${percentText(c.relativePercent)} %`}</Text>
+          <Text style={[s.td, s.mono, { width: 55 }]}>{`${percentText(c.relativePercent)} %`}</Text>
+          <Text style={[s.td, s.mono, { width: 75 }]}>{`${intervalText(c.interval)} %`}</Text>
           <Text style={[s.td, { width: 60, color: STATUS_COLOR[c.status], fontWeight: 700 }]}>{c.status}</Text>
           <Text style={[s.td, s.mono, { width: 75 }]}>{`${c.raw.toFixed(1)} ${r.rawUnit}`}</Text>
           <Text style={[s.td, s.mono, { width: 70 }]}>{`${c.plainPercent.toFixed(1)} %`}</Text>
           <Text style={[s.td, s.mono, { width: 70 }]}>{`± ${c.spreadPercent.toFixed(1)}`}</Text>
-          <Text style={[s.td, s.mono, { width: 95 }]}>{`${c.events} / ${c.rejected}`}</Text>
+          <Text style={[s.td, s.mono, { width: 60 }]}>{`${c.events} / ${c.rejected}`}</Text>
         </View>
       ))}
     </View>
   );
 }
 
-const VERDICT = { ok: 'No cylinder below the low limit', low: 'At least one cylinder below the low limit', uncertain: 'Not enough evidence to rank the cylinders' };
+const VERDICT = { ok: 'No cylinder below the low limit', low: 'At least one cylinder below the low limit', high: 'At least one cylinder above the upper limit', uncertain: 'Not enough evidence to rank the cylinders' };
 
 export function ReportDocument({ d }: { d: ReportPdfData }) {
   const main = d.analyses[0];
@@ -253,9 +266,11 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
               <ChartSvg r={r} />
               <View style={{ flex: 1, gap: 3 }}>
                 <Text style={[s.verdict, { color: STATUS_COLOR[r.verdict] }]}>{`Verdict: ${VERDICT[r.verdict]}`}</Text>
-                <Text>{`Method: ${r.method === 'current' ? 'starter current' : 'crank speed'}; mean cranking ${r.crankingRpm} rpm; spread ${r.spreadPercent} points.`}</Text>
+                <Text>{`Method: ${METHOD_NAMES[r.method]}; mean cranking ${r.crankingRpm} rpm; spread ${r.spreadPercent} points.`}</Text>
+                {r.quality && <Text>{`Capture quality: ${r.quality.grade}${r.quality.limitedBy !== 'none' ? `, limited by ${r.quality.limitedBy}` : ''}. ${r.quality.note}`}</Text>}
+                <Text>{'Whiskers show each figure\'s 90 % interval; a cylinder is low or high only when its whole interval is past the limit.'}</Text>
                 <Text>{`Cylinder numbers: ${identityWords(r.identity)}; firing order ${r.settings.firingOrder.join('-')}.`}</Text>
-                <Text>{`Limits applied: low below ${r.settings.lowLimitPercent} %, spread above ${r.settings.spreadLimitPercent} points.`}</Text>
+                <Text>{`Limits applied: low below ${r.settings.lowLimitPercent} %, high above ${r.settings.highLimitPercent ?? 110} %, spread above ${r.settings.spreadLimitPercent} points.`}</Text>
                 <Text>{r.pattern.hint}</Text>
                 <Text style={s.small}>{main.label}</Text>
               </View>
@@ -294,6 +309,14 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
                 </View>
               ))}
             </View>
+            {beforeAfter(d.analyses)
+              .filter((c) => c.change === 'up' || c.change === 'down')
+              .map((c) => (
+                <Text key={c.cylinder} style={s.small}>
+                  {c.sentence}
+                </Text>
+              ))}
+            <Text style={s.small}>A change counts only where the two 90 % intervals do not overlap.</Text>
           </View>
         )}
 
@@ -322,4 +345,11 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
       </Page>
     </Document>
   );
+}
+
+/** The two analyses compared, older first, as cylinder changes that clear their intervals. */
+function beforeAfter(a: PdfAnalysis[]) {
+  const [x, y] = a;
+  const [before, after] = (x.savedAtMs ?? 0) <= (y.savedAtMs ?? 0) ? [x, y] : [y, x];
+  return compareResults(before.result, after.result);
 }

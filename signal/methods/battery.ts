@@ -64,7 +64,8 @@ export function batteryAtTeeth(c: CaptureColumns, crank: MethodOutcome, setup: E
     const pct = per[i].map((x) => (100 * x) / ref);
     return {
       cylinder: i + 1,
-      relativePercent: Number.isFinite(m) ? round1(Math.min(100, (100 * m) / ref)) : 0,
+      relativePercent: Number.isFinite(m) ? round1((100 * m) / ref) : null,
+      interval: null,
       status: 'ok',
       events: per[i].length,
       rejected: 0,

@@ -6,7 +6,7 @@
 import { type EngineSetup, tdcPhasesDeg } from '../engine/firing';
 import { volumeRatio, volumeRatioSlope } from '../engine/geometry';
 import { simpleWheel, type ToothWheel } from '../teeth/wheel';
-import { seededRandom } from './random';
+import { seededRandom } from '../dsp/random';
 
 export type SimChannel = 'current' | 'hall' | 'vr' | 'sync' | 'rpm' | 'battery';
 
@@ -46,6 +46,8 @@ export interface SimOptions {
   wheel?: ToothWheel;
   /** A cam window, crank degrees after cylinder 1's compression TDC (0–720): its edges are recorded. */
   camWindowDeg?: [number, number];
+  /** Trapped charge per cylinder (index = cylinder − 1), 1 = normal; above 1 stands for carbon build-up raising compression. */
+  chargeScale?: number[];
   /** A cylinder (1-based) that fires on every second cycle: its pressure after TDC is raised fourfold. */
   firesCylinder?: number;
   /** Crank degrees from cylinder 1's compression TDC to the first tooth after the gap. @default 84 */
@@ -207,7 +209,7 @@ export function simulateCranking(options: SimOptions): SimResult {
         if (!o.plugsOut && psi >= ivc && psi <= evo) {
           if (!closed[c]) {
             closed[c] = 1;
-            mass[c] = 1;
+            mass[c] = o.chargeScale?.[c] ?? 1;
             cyclePeak[c] = 0;
             cycleCount[c]++;
           }

@@ -21,6 +21,15 @@ export function describePattern(setup: EngineSetup, cylinders: CylinderResult[],
       nextTests: [],
     };
   }
+  const high = cylinders.filter((c) => c.status === 'high').map((c) => c.cylinder);
+  if (low.length === 0 && high.length > 0) {
+    return {
+      kind: 'high',
+      cylinders: high,
+      hint: `Cylinder${high.length > 1 ? 's' : ''} ${high.join(', ')} read${high.length > 1 ? '' : 's'} above the others: carbon build-up or an oil-fouled chamber are possible causes (common on direct-injection engines); confirm with a gauge test.`,
+      nextTests: [NEXT_TESTS.gauge, NEXT_TESTS.inspection],
+    };
+  }
   if (low.length === 0) {
     return {
       kind: 'none',

@@ -67,6 +67,7 @@ export function summarize(
   const raw: number[][] = Array.from({ length: n }, () => []);
   const rejectedKeys = new Set<string>();
   const rejectedCount = new Int32Array(n);
+  const stroke: number[][] = Array.from({ length: n }, () => []);
   const events: EventMark[] = [];
   for (let e = 0; e < fit.events.length; e++) {
     const ev = fit.events[e];
@@ -87,6 +88,7 @@ export function summarize(
       continue;
     }
     perEvent[c].push(pct);
+    if (!isCurrent) stroke[c].push(timeAtAngle(m, ev.tdcDeg + halfIntervalDeg) - timeAtAngle(m, ev.tdcDeg - halfIntervalDeg));
     const p = plainIndex(m, ev, halfIntervalDeg, isCurrent);
     if (Number.isFinite(p.index)) {
       plain[c].push(p.index);
@@ -102,7 +104,9 @@ export function summarize(
     const r = ratios[c];
     cylinders.push({
       cylinder: c + 1,
-      relativePercent: Number.isFinite(r) ? round1(Math.min(100, Math.max(0, r))) : 0,
+      relativePercent: Number.isFinite(r) ? round1(Math.max(0, r)) : null,
+      interval: null,
+      strokeMs: isCurrent || !stroke[c].length ? undefined : round1((1000 * stroke[c].reduce((a, b) => a + b, 0)) / stroke[c].length),
       status: 'ok' as CylinderStatus,
       events: perEvent[c].length,
       rejected: rejectedCount[c],
@@ -117,12 +121,23 @@ export function summarize(
   return { cylinders, events, spreadPercent, rejectedKeys };
 }
 
-/** The reference: the median of the figures at or above the low limit of the strongest. */
+/**
+ * The reference: the median of the healthy cylinders. Healthy is the largest group of figures within 6 % of
+ * one another (on a tie, the stronger group), so one cylinder reading above the rest (carbon build-up) does not
+ * drag the healthy ones below 100 %. Nothing raises compression 30 % above the rest; when the strongest is that
+ * far above the group, the group is the weak one, and the healthy are those within the low limit of the strongest.
+ */
 export function healthyReference(figures: number[], lowLimitPercent: number): number {
-  const finite = figures.filter(Number.isFinite);
-  const strongest = Math.max(...finite);
-  const healthy = finite.filter((v) => v >= (lowLimitPercent / 100) * strongest);
-  return median(healthy.length ? healthy : finite);
+  const finite = figures.filter(Number.isFinite).sort((a, b) => a - b);
+  if (!finite.length) return NaN;
+  let best: number[] = [];
+  for (const v of finite) {
+    const group = finite.filter((x) => x >= v && x <= v * 1.06);
+    if (group.length > best.length || (group.length === best.length && median(group) > median(best))) best = group;
+  }
+  const strongest = finite[finite.length - 1];
+  if (strongest > 1.3 * median(best)) return median(finite.filter((v) => v >= (lowLimitPercent / 100) * strongest));
+  return median(best);
 }
 
 export function round1(v: number): number {

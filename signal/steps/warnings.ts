@@ -26,7 +26,8 @@ export type WarningCode =
   | 'WHEEL_TOO_COARSE'
   | 'TEETH_REPAIRED'
   | 'MARK_ORDER'
-  | 'AFTER_LOW';
+  | 'AFTER_LOW'
+  | 'CLOSE_CALL';
 
 export interface QualityWarning {
   code: WarningCode;

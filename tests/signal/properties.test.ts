@@ -1,6 +1,6 @@
 /**
  * Property-based checks (fast-check) on the parser and the engine: whatever the bytes, only typed errors are
- * thrown; results keep their invariants (percentages within 0–100 or none with `uncertain`, one result per cylinder, deterministic).
+ * thrown; results keep their invariants (percentages finite and not negative, or none with `uncertain`, one result per cylinder, deterministic).
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -45,7 +45,7 @@ describe('parser: only typed errors', () => {
 
 describe('engine: invariants on any decodable capture', () => {
   const engine = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
-  it('random columns give one result per cylinder, percentages in 0–100, the same twice', () => {
+  it('random columns give one result per cylinder, finite percentages, the same twice', () => {
     fc.assert(
       fc.property(
         fc.float64Array({ minLength: 20, maxLength: 3000, noNaN: true, noDefaultInfinity: true }),
@@ -70,7 +70,7 @@ describe('engine: invariants on any decodable capture', () => {
               continue;
             }
             expect(c.relativePercent).toBeGreaterThanOrEqual(0);
-            expect(c.relativePercent).toBeLessThanOrEqual(100);
+            expect(Number.isFinite(c.relativePercent)).toBe(true);
           }
           expect(run()).toEqual(a);
         },

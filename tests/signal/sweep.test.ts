@@ -26,8 +26,8 @@ const LEAKS: Record<string, (n: number) => number[]> = {
   'one leak': (n) => Array.from({ length: n }, (_, i) => (i === n - 2 ? 3 : 0)),
   'two leaks': (n) => Array.from({ length: n }, (_, i) => (i === 0 || i === 2 ? 1.5 : 0)),
 };
-/** Mean absolute error per method on this sweep, percentage points (measured; see the closing note). */
-const TOLERANCE: Record<Method, number> = { 'current+sync': 1.5, teeth: 1.5, 'hall+sync': 1.5, vr: 1.5 };
+/** Mean absolute error per method on this sweep, percentage points (measured; figures as they are, not capped at 100). */
+const TOLERANCE: Record<Method, number> = { 'current+sync': 1.7, teeth: 1.5, 'hall+sync': 1.5, vr: 1.5 };
 
 function run(engine: EngineSetup, leak: number[], method: Method, seed: number): { r: AnalysisResult; truth: Float64Array } {
   const channels: SimChannel[] = method === 'current+sync' ? ['current', 'sync'] : method === 'hall+sync' ? ['hall', 'sync'] : method === 'vr' ? ['vr'] : [];
@@ -37,20 +37,22 @@ function run(engine: EngineSetup, leak: number[], method: Method, seed: number):
 }
 
 /** Without sync the capture cannot tell the rotation: compare at the rotation that fits best. */
-function aligned(r: AnalysisResult, truth: Float64Array, engine: EngineSetup): { got: (number | null)[]; status: string[] } {
+function aligned(r: AnalysisResult, truth: Float64Array, engine: EngineSetup) {
   const n = engine.cylinders;
   const order = engine.firingOrder;
-  let best = { err: Infinity, got: [] as (number | null)[], status: [] as string[] };
+  let best = { err: Infinity, got: [] as (number | null)[], status: [] as string[], interval: [] as ([number, number] | null)[] };
   for (let rot = 0; rot < (r.identity === 'assumed' ? n : 1); rot++) {
     const got = new Array<number | null>(n);
     const status = new Array<string>(n);
+    const interval = new Array<[number, number] | null>(n);
     for (let p = 0; p < n; p++) {
       const c = r.cylinders[order[(p + rot) % n] - 1];
       got[order[p] - 1] = c.relativePercent;
       status[order[p] - 1] = c.status;
+      interval[order[p] - 1] = c.interval;
     }
-    const err = got.reduce<number>((a, v, i) => a + Math.abs((v ?? 0) - Math.min(100, truth[i])), 0);
-    if (err < best.err) best = { err, got, status };
+    const err = got.reduce<number>((a, v, i) => a + Math.abs((v ?? 0) - truth[i]), 0);
+    if (err < best.err) best = { err, got, status, interval };
   }
   return best;
 }
@@ -59,17 +61,25 @@ describe('recovery sweep on the realistic simulator', () => {
   const errors: Record<Method, number[]> = { 'current+sync': [], teeth: [], 'hall+sync': [], vr: [] };
   const uncertain: Record<Method, number> = { 'current+sync': 0, teeth: 0, 'hall+sync': 0, vr: 0 };
   const wrong: string[] = [];
+  const inside: Record<Method, number[]> = { 'current+sync': [], teeth: [], 'hall+sync': [], vr: [] };
+  const widths: Record<Method, number[]> = { 'current+sync': [], teeth: [], 'hall+sync': [], vr: [] };
   for (const [name, engine] of Object.entries(ENGINES)) {
     for (const method of Object.keys(errors) as Method[]) {
       it(`${name} × ${method}`, () => {
         for (const [kind, leakOf] of Object.entries(LEAKS)) {
           const { r, truth } = run(engine, leakOf(engine.cylinders), method, 11);
-          const { got, status } = aligned(r, truth, engine);
+          const { got, status, interval } = aligned(r, truth, engine);
           for (let i = 0; i < engine.cylinders; i++) {
             const t = truth[i];
             if ((t >= 95 && status[i] === 'low') || (t < 80 && status[i] === 'ok')) wrong.push(`${name} ${method} ${kind} cyl ${i + 1}: truth ${t.toFixed(0)}, read ${got[i]} ${status[i]}`);
             if (status[i] === 'uncertain') uncertain[method]++;
-            else if (got[i] !== null) errors[method].push(Math.abs(got[i]! - Math.min(100, t)));
+            if (got[i] !== null) errors[method].push(Math.abs(got[i]! - t));
+            const iv = interval[i];
+            if (iv) {
+              inside[method].push(t >= iv[0] && t <= iv[1] ? 1 : 0);
+              if (process.env.SHOW_MISSES && !(t >= iv[0] && t <= iv[1])) console.log(`miss ${name} ${method} ${kind} cyl ${i + 1}: truth ${t.toFixed(1)} got ${got[i]} [${iv.join(', ')}]`);
+              widths[method].push(iv[1] - iv[0]);
+            }
           }
         }
       });
@@ -77,13 +87,24 @@ describe('recovery sweep on the realistic simulator', () => {
   }
   it('states its figures and holds them', () => {
     const lines: string[] = [];
+    const coverage: number[] = [];
+    const means: [Method, number][] = [];
     for (const m of Object.keys(errors) as Method[]) {
       const e = errors[m];
       const mean = e.reduce((a, b) => a + b, 0) / Math.max(1, e.length);
-      lines.push(`${m}: mean |error| ${mean.toFixed(2)} points, worst ${Math.max(0, ...e).toFixed(1)}, ${e.length} figures, ${uncertain[m]} cylinders uncertain`);
-      expect(mean, m).toBeLessThanOrEqual(TOLERANCE[m]);
+      const cover = inside[m].reduce((a, b) => a + b, 0) / Math.max(1, inside[m].length);
+      const w = [...widths[m]].sort((a, b) => a - b);
+      lines.push(`${m}: mean |error| ${mean.toFixed(2)} points, worst ${Math.max(0, ...e).toFixed(1)}, ${e.length} figures, ${uncertain[m]} cylinders uncertain; 90 % intervals hold the truth for ${(100 * cover).toFixed(1)} %, median width ${w[w.length >> 1]?.toFixed(1)} points`);
+      means.push([m, mean]);
+      coverage.push(cover);
     }
     console.log(`sweep:\n${lines.join('\n')}\nconfident wrong flags: ${wrong.length}\n${wrong.join('\n')}`);
+    for (const [m, mean] of means) expect(mean, m).toBeLessThanOrEqual(TOLERANCE[m]);
     expect(wrong).toEqual([]);
+    // Calibration (issue: 88–97 % of true values inside the 90 % intervals), per method.
+    for (const c of coverage) {
+      expect(c).toBeGreaterThanOrEqual(0.88);
+      expect(c).toBeLessThanOrEqual(0.97);
+    }
   });
 });

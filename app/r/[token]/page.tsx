@@ -39,7 +39,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
           <h2 id="result" className="text-xl font-bold">
             {low.length === 0 ? 'All cylinders measured alike' : `${low.length === 1 ? 'One cylinder is' : `${low.length} cylinders are`} weaker than the others`}
           </h2>
-          <CylinderBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} />
+          <CylinderBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} highLimit={r.settings.highLimitPercent} />
           <p className="text-base text-muted">Each bar compares a cylinder with the healthy ones. This is a screening test; the next step confirms it.</p>
         </section>
       )}

@@ -5,7 +5,7 @@ import { CylinderBars } from '@/components/analysis/cylinder-bars';
 import { candidateAnalysesForVehicle } from '@/db/queries/reports';
 import { getVehicle, vehicleJobs } from '@/db/queries/vehicles';
 import { pageMember } from '@/server/page-context';
-import type { AnalysisResult } from '@/signal';
+import { type AnalysisResult, compareResults } from '@/signal';
 
 export const metadata: Metadata = { title: 'Vehicle' };
 
@@ -37,11 +37,18 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
                   <figcaption className="font-bold">
                     {i === 0 ? 'Before' : 'After'}: <span className="figures">{t.repairOrder}</span> · {new Date(t.createdAt).toLocaleDateString()} · {t.fileName}
                   </figcaption>
-                  <CylinderBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} />
+                  <CylinderBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} highLimit={r.settings.highLimitPercent} />
                 </figure>
               );
             })}
           </div>
+          <ul className="mt-3 flex flex-col gap-1" data-testid="changes">
+            {compareResults(before.result as AnalysisResult, after.result as AnalysisResult).map((c) => (
+              <li key={c.cylinder} className={c.change === 'none' || c.change === 'unknown' ? 'text-muted' : 'font-bold'}>
+                {c.sentence}
+              </li>
+            ))}
+          </ul>
         </section>
       )}
       <section aria-labelledby="tests" className="rounded-2xl border border-line bg-surface p-4">

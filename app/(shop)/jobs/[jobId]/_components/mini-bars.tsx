@@ -2,14 +2,14 @@
 interface Mini {
   cylinder: number;
   relativePercent: number | null;
-  status: 'ok' | 'low' | 'uncertain';
+  status: 'ok' | 'low' | 'high' | 'uncertain';
 }
 
 export function MiniBars({ cylinders, label }: { cylinders: Mini[]; label: string }) {
   const w = 10;
   const gap = 3;
   const h = 32;
-  const cls = { ok: 'pattern-ok', low: 'pattern-low', uncertain: 'pattern-uncertain' } as const;
+  const cls = { ok: 'pattern-ok', low: 'pattern-low', high: 'pattern-high', uncertain: 'pattern-uncertain' } as const;
   return (
     <div role="img" aria-label={label} className="flex items-end" style={{ height: h, gap }}>
       {cylinders.map((c) => (

@@ -1,4 +1,4 @@
-/** A small seeded random source (mulberry32) so simulated captures are reproducible. */
+/** A small seeded random source (mulberry32): reproducible simulated captures and bootstrap resamples. */
 
 export interface Random {
   /** Uniform in [0, 1). */

@@ -1,0 +1,99 @@
+/**
+ * Statuses from the evidence: a cylinder is `low` only when its whole 90 % interval lies below the low limit,
+ * `high` when wholly above the upper limit, `ok` when within both, and otherwise `uncertain` with a sentence
+ * that names it, its interval and the next step. Thin evidence makes every cylinder `uncertain`.
+ */
+import type { EngineSetup } from '../engine/firing';
+import type { CylinderResult, CylinderStatus, Method, QualityGrade, WheelInfo } from '../types';
+import { type QualityWarning, THIN_EVIDENCE, warning } from './warnings';
+
+export interface Limits {
+  lowLimitPercent: number;
+  highLimitPercent: number;
+  /** Fewer complete events than this for a cylinder make it `uncertain`. */
+  minEvents: number;
+}
+
+export function statusOf(c: CylinderResult, l: Limits): CylinderStatus {
+  if (c.relativePercent === null || !c.interval || c.events < l.minEvents) return 'uncertain';
+  const [lo, hi] = c.interval;
+  if (hi < l.lowLimitPercent) return 'low';
+  if (lo > l.highLimitPercent) return 'high';
+  if (lo >= l.lowLimitPercent && hi <= l.highLimitPercent) return 'ok';
+  return 'uncertain';
+}
+
+/** Whether the warnings (or a wheel too coarse for crank speed) leave nothing to rank. */
+export function isThin(method: Method, warnings: QualityWarning[], wheel?: WheelInfo): boolean {
+  return (method === 'crank-speed' && !!wheel?.tooCoarse) || warnings.some((w) => THIN_EVIDENCE.has(w.code));
+}
+
+/** Sets every cylinder's status and says, for each close call, what to do. Replaces earlier close-call words. */
+export function settleStatuses(cylinders: CylinderResult[], thin: boolean, l: Limits, warnings: QualityWarning[]): void {
+  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'CLOSE_CALL') warnings.splice(i, 1);
+  for (const c of cylinders) {
+    c.status = thin ? 'uncertain' : statusOf(c, l);
+    if (thin || c.status !== 'uncertain' || !c.interval || c.relativePercent === null || c.events < l.minEvents) continue;
+    const [lo, hi] = c.interval;
+    const limit = hi > l.highLimitPercent && lo <= l.highLimitPercent ? `the ${l.highLimitPercent} % upper limit` : `the ${l.lowLimitPercent} % low limit`;
+    warnings.push(
+      warning('CLOSE_CALL', `Cylinder ${c.cylinder} reads ${fmt(lo)}–${fmt(hi)} %, across ${limit}: record again with 5–10 s of cranking, or gauge it.`),
+    );
+  }
+}
+
+/**
+ * The electrical methods read the starter's current. After a weak cylinder the crank dips hard into the next
+ * compression and the starter's one-way clutch overruns, which the affine starter model does not follow, so
+ * the next cylinder in firing order can read low without being low (measured on the simulator with an
+ * overrunning clutch). Such a cylinder is `uncertain` with a sentence, unless it reads far below the limit.
+ */
+export function holdAfterLow(cylinders: CylinderResult[], setup: EngineSetup, lowLimit: number, warnings: QualityWarning[]): void {
+  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'AFTER_LOW') warnings.splice(i, 1);
+  const order = setup.firingOrder;
+  const byNumber = new Map(cylinders.map((c) => [c.cylinder, c]));
+  const lowBefore = new Set(cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder));
+  const held: number[] = [];
+  for (let p = 0; p < order.length; p++) {
+    const prev = byNumber.get(order[(p - 1 + order.length) % order.length])!;
+    const c = byNumber.get(order[p])!;
+    if (c.status !== 'low' || !lowBefore.has(prev.cylinder) || prev === c) continue;
+    if ((c.relativePercent ?? 0) < lowLimit - AFTER_LOW_MARGIN || (c.relativePercent ?? 0) <= (prev.relativePercent ?? 0)) continue;
+    c.status = 'uncertain';
+    held.push(c.cylinder);
+  }
+  if (held.length) {
+    warnings.push(warning('AFTER_LOW', `Cylinder${held.length > 1 ? 's' : ''} ${held.join(', ')} fire${held.length > 1 ? '' : 's'} right after a low cylinder and read${held.length > 1 ? '' : 's'} a little low; the starter's clutch overruns there and the current method can read low without cause. Confirm with crank speed (a crank sensor channel) or a gauge test.`));
+  }
+}
+
+/** How far below the low limit a cylinder right after a low one may read and still be the starter's doing. */
+const AFTER_LOW_MARGIN = 20;
+
+/**
+ * Capture quality in one word, from the component that limits it most: thin evidence or no compression (poor),
+ * complete events per cylinder (≥ 6 good, 3–5 fair), the median interval half-width (≤ 4 points good, ≤ 8 fair),
+ * and cylinder identity (assumed is fair).
+ */
+export function gradeCapture(cylinders: CylinderResult[], warnings: QualityWarning[], thin: boolean, identityAssumed: boolean): QualityGrade {
+  const codes = new Set(warnings.map((w) => w.code));
+  if (codes.has('NO_COMPRESSION')) return { grade: 'poor', limitedBy: 'compression', note: 'No compression signature was found.' };
+  if (codes.has('SAMPLE_RATE_TOO_LOW')) return { grade: 'poor', limitedBy: 'sample rate', note: 'The capture was sampled too slowly for its compression events.' };
+  if (codes.has('WHEEL_TOO_COARSE') && thin) return { grade: 'poor', limitedBy: 'wheel resolution', note: 'The crank wheel has too few teeth per compression event.' };
+  const events = Math.min(...cylinders.map((c) => c.events));
+  if (thin || events < 3) return { grade: 'poor', limitedBy: 'cycles', note: `Only ${events} complete event(s) per cylinder could be used.` };
+  const halves = cylinders.filter((c) => c.interval).map((c) => (c.interval![1] - c.interval![0]) / 2).sort((a, b) => a - b);
+  const half = halves.length ? halves[halves.length >> 1] : Infinity;
+  const parts: QualityGrade[] = [
+    { grade: events >= 6 ? 'good' : 'fair', limitedBy: 'cycles', note: `${events} complete events per cylinder; 6 or more give the tightest figures.` },
+    { grade: half <= 4 ? 'good' : half <= 8 ? 'fair' : 'poor', limitedBy: 'noise', note: `The figures are good to about ±${fmt(half)} points.` },
+    { grade: identityAssumed ? 'fair' : 'good', limitedBy: 'identity', note: identityAssumed ? 'Cylinder numbers are assumed (no sync, cam or injector channel).' : 'Cylinder numbers come from the capture.' },
+  ];
+  const rank = { poor: 0, fair: 1, good: 2 } as const;
+  const worst = parts.reduce((a, b) => (rank[b.grade] < rank[a.grade] ? b : a));
+  return worst.grade === 'good' ? { grade: 'good', limitedBy: 'none', note: `The figures are good to about ±${fmt(half)} points.` } : worst;
+}
+
+function fmt(v: number): string {
+  return (Math.round(v * 10) / 10).toString();
+}
