@@ -87,7 +87,9 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   if (otherMethod) {
     const otherOutcome = otherMethod === 'battery' && isEdgeSampled(columns) ? batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit) : runMethod(otherMethod);
     const other = toMethodResult(otherMethod, otherOutcome, settings, limits, spreadLimit, importWarnings);
-    if (other.fitQuality > 0 && result.cylinders.every((c) => c.relativePercent !== null) && other.cylinders.every((c) => c.relativePercent !== null)) {
+    // A method whose own evidence is thin (a wheel too coarse for crank speed, say) is no check on the other.
+    const otherThin = isThin(other.method, other.warnings, other.wheel);
+    if (!otherThin && other.fitQuality > 0 && result.cylinders.every((c) => c.relativePercent !== null) && other.cylinders.every((c) => c.relativePercent !== null)) {
       let maxDifference = 0;
       for (let c = 0; c < result.cylinders.length; c++) {
         maxDifference = Math.max(maxDifference, Math.abs(result.cylinders[c].relativePercent! - other.cylinders[c].relativePercent!));

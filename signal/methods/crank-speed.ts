@@ -33,8 +33,8 @@ export interface CrankInput {
   markOffsetDeg?: number;
 }
 
-/** A wheel with fewer positions than this per firing interval cannot separate cylinders by crank speed. */
-const MIN_POSITIONS_PER_EVENT = 4;
+/** A wheel with fewer positions than this per firing interval cannot separate cylinders by crank speed (the compression torque's shape needs about six samples an event; an 8-tooth wheel on an inline 4 gives four). */
+const MIN_POSITIONS_PER_EVENT = 6;
 
 export function runCrankSpeedMethod(
   input: CrankInput,
@@ -217,7 +217,7 @@ export function runSpeedChannelMethod(
   const motion = motionFromSpeed(time, rpmChannel, indexAtTime(time, window.startS), indexAtTime(time, window.endS), step);
   const mismatch = countCheck(motion, setup, 'engine speed');
   const fit = runFit(motion, setup, false, rotation);
-  if (!fit) return { ok: false, warnings: [warning('TOO_FEW_CYCLES', 'The speed log holds too little cranking to fit; crank for 5–10 s.')] };
+  if (!fit) return { ok: false, warnings: [...(mismatch ? [mismatch] : []), warning('TOO_FEW_CYCLES', 'The speed log holds too little cranking to fit; crank for 5–10 s.')] };
   return { ok: true, run: { motion, fit, window, rpm: meanRpm(motion), identity: 'assumed', warnings: mismatch ? [mismatch] : [] } };
 }
 

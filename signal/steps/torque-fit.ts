@@ -155,7 +155,11 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   let bestRss = Infinity;
   const tryPhase = (p: number, stride = 1) => {
     const s = solveAt(m, o, p, false, shapes(), stride);
-    if (s && s.rss < bestRss) {
+    // Compression only ever slows the crank into TDC: a phase that needs the cylinders' torque upside down
+    // (half an event out, where the sum of shapes nearly changes sign) is not a fit.
+    let sum = 0;
+    if (s) for (let c = 0; c < n; c++) sum += s.coef[2 + c];
+    if (s && sum > 0 && s.rss < bestRss) {
       bestRss = s.rss;
       bestPhase = p;
     }
