@@ -10,6 +10,7 @@ import { beginWork, getDb, shuttingDown } from '@/db/client';
 import { members, organizations } from '@/db/schema';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
+import { findNul, readLimited } from './request-body';
 import { checkOrigin } from './origin';
 import { can, type Permission, type RoleName } from './permissions';
 import { allow, clientKey, PUBLIC_LIMIT_PER_MIN } from './rate-limit';
@@ -83,9 +84,10 @@ async function readInput(req: NextRequest, params: Record<string, string>, rawBo
   if (!type.includes('application/json')) {
     throw new HttpError(415, 'UNSUPPORTED_MEDIA_TYPE', 'Send the request body as JSON (Content-Type: application/json).');
   }
+  const bytes = await readLimited(req);
   let body: unknown;
   try {
-    body = await req.json();
+    body = JSON.parse(new TextDecoder().decode(bytes));
   } catch {
     throw new HttpError(400, 'BAD_JSON', 'The request body is not valid JSON.');
   }
@@ -95,7 +97,10 @@ async function readInput(req: NextRequest, params: Record<string, string>, rawBo
 
 /** Parses query, body and route params merged; a 400 naming each wrong field in a sentence. */
 async function parseInput<S extends z.ZodType>(schema: S, req: NextRequest, params: Record<string, string>, rawBody = false): Promise<z.infer<S>> {
-  const parsed = schema.safeParse(await readInput(req, params, rawBody));
+  const raw = await readInput(req, params, rawBody);
+  const nul = findNul(raw);
+  if (nul) throw new HttpError(400, 'INVALID_INPUT', `The field "${nul}" holds a NUL character (\\u0000); remove it and send again.`, { [nul]: 'Remove the NUL character.' });
+  const parsed = schema.safeParse(raw);
   if (parsed.success) return parsed.data;
   const fields = fieldErrors(parsed.error);
   throw new HttpError(400, 'INVALID_INPUT', `Check ${Object.keys(fields).length === 1 ? 'this field' : 'these fields'}: ${Object.values(fields).join(' ')}`, fields);
@@ -118,9 +123,10 @@ async function respond(req: NextRequest, work: () => Promise<unknown>, rawBody =
     admit(req);
     const out = await work();
     if (out instanceof Response) return out;
-    return NextResponse.json(out ?? { ok: true });
+    return NextResponse.json(out ?? { ok: true }, { headers: { 'cache-control': 'no-store' } });
   } catch (e) {
     const res = handleError(e);
+    res.headers.set('cache-control', 'no-store');
     if (rawBody) {
       await req.body?.cancel().catch(() => {});
       res.headers.set('connection', 'close');

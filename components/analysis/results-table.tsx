@@ -33,7 +33,9 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
               </th>
               <td className="px-3 py-2">{percentText(c.relativePercent)} %</td>
               <td className="px-3 py-2">{intervalText(c.interval)} %</td>
-              <td className={`px-3 py-2 text-left font-sans font-bold ${STATUS_TEXT[c.status]}`}>{c.status}</td>
+              <td className={`px-3 py-2 text-left font-sans font-bold ${STATUS_TEXT[c.status]}`} data-testid="status">
+                {c.status}
+              </td>
               <td className="px-3 py-2">
                 {c.raw.toFixed(1)} {rawUnit}
               </td>

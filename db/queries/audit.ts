@@ -1,6 +1,6 @@
 /** Audit events: who did what to which record in which shop. */
 import 'server-only';
-import { and, desc, eq, inArray, isNull, or } from 'drizzle-orm';
+import { and, count, desc, eq, gte, inArray, isNull, or } from 'drizzle-orm';
 import { getDb } from '../client';
 import { auditEvents, members, users } from '../schema';
 
@@ -37,4 +37,14 @@ export async function listShopActivity(shopId: string, limit = 100) {
     .where(or(eq(auditEvents.shopId, shopId), and(isNull(auditEvents.shopId), eq(auditEvents.action, 'auth.sign-in'), inArray(auditEvents.actorId, memberIds))))
     .orderBy(desc(auditEvents.createdAt))
     .limit(limit);
+}
+
+/** How many times `action` was recorded in the shop (and by `actorId`, when given) since `since`. */
+export async function countRecentActions(shopId: string, action: string, since: Date, actorId?: string): Promise<number> {
+  const db = await getDb();
+  const [row] = await db
+    .select({ n: count() })
+    .from(auditEvents)
+    .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.action, action), gte(auditEvents.createdAt, since), actorId ? eq(auditEvents.actorId, actorId) : undefined));
+  return row?.n ?? 0;
 }

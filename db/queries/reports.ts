@@ -97,8 +97,8 @@ export async function reportBundle(shopId: string, reportId: string) {
         .where(and(eq(analyses.shopId, shopId), inArray(analyses.id, content.analysisIds)))
     : [];
   const ordered = content.analysisIds.map((id) => included.find((i) => i.analysis.id === id)).filter((x): x is (typeof included)[number] => !!x);
-  const [signer] = report.signedBy ? await db.select({ name: users.name }).from(users).where(eq(users.id, report.signedBy)) : [];
-  return { report, content, shop: row.shop, job: row.job, vehicle: row.vehicle, analyses: ordered, signerName: signer?.name ?? null };
+  const [signer] = report.signedBy ? await db.select({ name: users.name, email: users.email }).from(users).where(eq(users.id, report.signedBy)) : [];
+  return { report, content, shop: row.shop, job: row.job, vehicle: row.vehicle, analyses: ordered, signerName: signer?.name ?? null, signerEmail: signer?.email ?? null };
 }
 
 export type ReportBundle = NonNullable<Awaited<ReturnType<typeof reportBundle>>>;
@@ -150,10 +150,23 @@ export async function findShareLink(token: string) {
   return l ?? null;
 }
 
+/**
+ * Records the customer's answer through a link, once per revision: returns the new answer, or `earlier` with
+ * the answer that stands when one was already given through this link for this revision.
+ */
 export async function recordApproval(link: { id: string; shopId: string; reportId: string }, revision: number, decision: 'approve' | 'decline', typedName: string) {
   const db = await getDb();
-  const [a] = await db.insert(approvals).values({ shopId: link.shopId, reportId: link.reportId, revision, shareLinkId: link.id, decision, typedName }).returning();
-  return a;
+  const [a] = await db
+    .insert(approvals)
+    .values({ shopId: link.shopId, reportId: link.reportId, revision, shareLinkId: link.id, decision, typedName })
+    .onConflictDoNothing({ target: [approvals.shareLinkId, approvals.revision] })
+    .returning();
+  if (a) return { created: a, earlier: null };
+  const [earlier] = await db
+    .select()
+    .from(approvals)
+    .where(and(eq(approvals.shopId, link.shopId), eq(approvals.shareLinkId, link.id), eq(approvals.revision, revision)));
+  return { created: null, earlier };
 }
 
 export async function listApprovalsForJob(shopId: string, jobId: string) {

@@ -201,7 +201,8 @@ export const approvals = pgTable(
     typedName: text().notNull(),
     createdAt: created(),
   },
-  (t) => [index().on(t.shopId, t.reportId)],
+  // One answer per revision per link: a later one is refused and the first stands.
+  (t) => [index().on(t.shopId, t.reportId), uniqueIndex().on(t.shareLinkId, t.revision)],
 );
 
 export type ShareLink = typeof shareLinks.$inferSelect;

@@ -6,7 +6,12 @@ export const JOB_STATUSES = ['open', 'waiting', 'done'] as const;
 
 export const jobSchema = z
   .object({
-    repairOrder: z.string().trim().min(1, 'Enter the repair-order number.').max(30, 'Keep the repair-order number under 30 characters.'),
+    repairOrder: z
+      .string()
+      .trim()
+      .min(1, 'Enter the repair-order number.')
+      .max(30, 'Keep the repair-order number under 30 characters.')
+      .refine((v) => ![...v].some((ch) => ch.charCodeAt(0) < 32 || ch.charCodeAt(0) === 127), 'Write the repair-order number on one line, without tabs or line breaks.'),
     odometer: z.preprocess(
       (v) => (v === '' || v === null ? undefined : v),
       z.coerce.number().int('The odometer reading is a whole number.').min(0, 'The odometer cannot be negative.').max(3_000_000, 'That odometer reading is too large.').optional(),

@@ -32,8 +32,10 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
     repairOrder: b.job.repairOrder,
     revision: b.report.revision,
     status: b.report.status === 'signed' ? 'signed' : 'draft',
-    signedBy: b.content.technicianName ?? b.signerName,
-    signedAt: b.report.signedAt ? b.report.signedAt.toISOString().slice(0, 10) : null,
+    // The signature is the signing member's, from the signing record; a typed name is only "prepared by".
+    signedBy: b.signerName ? `${b.signerName}${b.signerEmail ? ` <${b.signerEmail}>` : ''}` : null,
+    signedAt: b.report.signedAt ? `${b.report.signedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC` : null,
+    preparedBy: b.content.technicianName ?? null,
     generatedAt: new Date().toISOString().slice(0, 16).replace('T', ' ') + ' UTC',
     vehicle: {
       description: [v.year, v.make, v.model].filter(Boolean).join(' '),

@@ -31,6 +31,8 @@ export interface ReportPdfData {
   status: 'draft' | 'signed';
   signedBy?: string | null;
   signedAt?: string | null;
+  /** The technician's name as typed on the draft, shown apart from the signature. */
+  preparedBy?: string | null;
   generatedAt: string;
   vehicle: { description: string; vin: string; engine: string; odometer: string };
   concern: string;
@@ -230,7 +232,8 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
           </View>
           <View style={{ alignItems: 'flex-end' }}>
             <Text style={s.mono}>{`${d.repairOrder} · revision ${d.revision}`}</Text>
-            <Text style={s.small}>{d.status === 'signed' ? `Signed by ${d.signedBy ?? '—'} on ${d.signedAt}` : 'DRAFT — not signed'}</Text>
+            <Text style={s.small}>{d.status === 'signed' ? `Signed by ${d.signedBy ?? 'a former member'} on ${d.signedAt}` : 'DRAFT — not signed'}</Text>
+            {d.preparedBy ? <Text style={s.small}>{`Prepared by ${d.preparedBy}`}</Text> : null}
           </View>
         </View>
 

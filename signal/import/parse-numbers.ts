@@ -36,6 +36,9 @@ export interface ParsedColumns {
   missingValues: number;
 }
 
+/** No sample's number is longer than this many characters. */
+const MAX_NUMBER_CHARS = 400;
+
 const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i);
 const MAX_EXACT = 2 ** 53;
 
@@ -189,13 +192,13 @@ export class NumberParser {
       this.rowHasContent = true;
       if (this.inExp) {
         this.expo = this.expo * 10 + (b - 48);
-        if (this.slow) this.text.push(b);
+        if (this.slow) this.keep(b);
       } else if (!this.slow && this.mant < 1e14) {
         this.mant = this.mant * 10 + (b - 48);
         if (this.inFrac) this.frac++;
       } else {
         if (!this.slow) this.startSlow();
-        this.text.push(b);
+        this.keep(b);
       }
       return;
     }
@@ -203,7 +206,7 @@ export class NumberParser {
     if (b === 10) return this.endRow();
     if (b === this.dec && !this.inFrac && !this.inExp) {
       this.inFrac = true;
-      if (this.slow) this.text.push(46);
+      if (this.slow) this.keep(46);
       return;
     }
     if (b === 45 || b === 43) {
@@ -211,12 +214,12 @@ export class NumberParser {
       if (this.inExp && this.expo === 0) this.expNeg = b === 45;
       else if (!this.any && !this.inFrac) this.neg = b === 45;
       else this.bad = true;
-      if (this.slow) this.text.push(b);
+      if (this.slow) this.keep(b);
       return;
     }
     if ((b === 101 || b === 69) && this.any && !this.inExp) {
       this.inExp = true;
-      if (this.slow) this.text.push(b);
+      if (this.slow) this.keep(b);
       return;
     }
     if (b === 13 || b === 32 || b === 34 || b === 9) return;
@@ -224,6 +227,15 @@ export class NumberParser {
     this.bad = true;
     this.rowHasContent = true;
     if (this.text.length < 40) this.text.push(b);
+  }
+
+  /**
+   * Keeps one byte of a long number's text. A field longer than any sample's number (a 200,000-digit field,
+   * say) is not a number: it is marked bad rather than kept whole.
+   */
+  private keep(b: number): void {
+    if (this.text.length < MAX_NUMBER_CHARS) this.text.push(b);
+    else this.bad = true;
   }
 
   /** Switches the field to the exact fallback: its text so far, rebuilt from the state, then Number(). */

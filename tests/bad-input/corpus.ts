@@ -92,6 +92,7 @@ export function badCorpus(): BadCase[] {
     ['VR waveform of pure noise', `Time (s),Crank sensor [V]\n${rows(20000, (i) => `${(i / 20000).toFixed(6)},${((((i * 7919) % 1009) / 1009 - 0.5) * 0.6).toFixed(3)}`)}`],
     ['tooth log with glitches on every revolution', `Time[s], Primary\n0,0\n${toothLogWithGlitches()}`],
     ['units row with unknown units', `Time,Current\n(ticks),(furlongs)\n${rows(3000, (i) => `${i},${100 + (i % 50)}`)}`],
+    ['a number field of 200,000 digits', `${H}${rows(3000, (i) => `${i / 1000},${i === 5 ? '1'.repeat(200_000) : 100 + (i % 50)}`)}`],
     ['header repeated in the middle', `${H}${rows(200, (i) => `${i / 1000},1`)}${H}${rows(200, (i) => `${i / 1000},1`)}`],
   ];
   return cases.map(([name, b]) => ({ name, bytes: typeof b === 'string' ? enc(b) : b }));

@@ -66,6 +66,15 @@ describe('share links', () => {
     const { token } = await q.createShareLink(shopId, reportId, userId);
     const link = (await q.findShareLink(token))!;
     const a = await q.recordApproval(link, 1, 'approve', 'Pat Customer');
-    expect(a).toMatchObject({ revision: 1, decision: 'approve', typedName: 'Pat Customer', reportId });
+    expect(a.created).toMatchObject({ revision: 1, decision: 'approve', typedName: 'Pat Customer', reportId });
+  });
+
+  it('one answer per revision per link: a later one is refused and the first stands', async () => {
+    const { token } = await q.createShareLink(shopId, reportId, userId);
+    const link = (await q.findShareLink(token))!;
+    expect((await q.recordApproval(link, 1, 'approve', 'Pat Customer')).created).not.toBeNull();
+    const again = await q.recordApproval(link, 1, 'decline', 'Someone Else');
+    expect(again.created).toBeNull();
+    expect(again.earlier).toMatchObject({ decision: 'approve', typedName: 'Pat Customer' });
   });
 });

@@ -15,7 +15,11 @@ export const POST = withPublic(
     const link = await findShareLink(input.token);
     const b = link && (await reportBundle(link.shopId, link.reportId));
     if (!link || !b) throw new HttpError(404, 'NOT_FOUND', 'This link does not open a report; ask the shop for a new one.');
-    const a = await recordApproval(link, b.report.revision, input.decision, input.typedName);
+    const { created: a, earlier } = await recordApproval(link, b.report.revision, input.decision, input.typedName);
+    if (!a) {
+      const when = earlier ? ` on ${earlier.createdAt.toISOString().slice(0, 10)}` : '';
+      throw new HttpError(409, 'ALREADY_ANSWERED', `An answer${earlier ? ` (${earlier.decision})` : ''} was already given through this link for this revision${when}; it stands. Ask the shop if it should change.`);
+    }
     await recordAudit(link.shopId, null, `report.${input.decision}`, { type: 'report', id: link.reportId }, { jobId: b.job.id, typedName: input.typedName, revision: b.report.revision });
     return { decision: a.decision, revision: a.revision, at: a.createdAt };
   },

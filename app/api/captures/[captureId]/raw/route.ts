@@ -1,6 +1,7 @@
 /** The capture's raw file as uploaded (decompressed), for the browser's worker and for integrations. */
 import { z } from 'zod';
 import { getCapture, readCaptureBytes } from '@/db/queries/captures';
+import { dispositionFor } from '@/server/file-name';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
 
@@ -12,9 +13,9 @@ export const GET = withShop({ capture: ['read'] }, z.object({ captureId: z.strin
     headers: {
       'content-type': 'text/plain; charset=utf-8',
       'content-length': String(bytes.length),
-      'content-disposition': `attachment; filename="${capture.fileName.replace(/"/g, '')}"`,
+      'content-disposition': dispositionFor(capture.fileName),
       'x-content-sha256': capture.sha256,
-      'cache-control': 'private, max-age=3600',
+      'cache-control': 'private, no-store',
     },
   });
 });

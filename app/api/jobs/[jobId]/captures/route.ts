@@ -6,6 +6,7 @@ import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { createCapture, DuplicateCaptureError, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
+import { fileNameFromHeader } from '@/server/file-name';
 import { HttpError, notFound } from '@/server/http';
 import { checkUploadHeaders, receiveCapture } from '@/server/receive-capture';
 import { withShop } from '@/server/with-shop';
@@ -24,7 +25,7 @@ export const POST = withShop(
     if (!job) throw notFound('That job');
     if (!req.body) throw new HttpError(400, 'EMPTY_FILE', 'The upload was empty; choose the capture file again.');
     const rawName = req.headers.get('x-file-name');
-    const fileName = (rawName ? decodeURIComponent(rawName) : 'capture.csv').replace(/[\\/\0]/g, '_').slice(0, 200) || 'capture.csv';
+    const fileName = fileNameFromHeader(rawName);
     const file = await receiveCapture(req.body, length, contentType, job.vehicle.engine);
     try {
       const capture = await createCapture(shop.id, { jobId: input.jobId, fileName, uploadedBy: user.id, ...file });

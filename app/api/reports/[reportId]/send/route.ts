@@ -1,11 +1,19 @@
-/** E-mails the report PDF to the advisor or the customer; recorded in the audit log. */
+/**
+ * E-mails the report PDF to the advisor or the customer, one recipient a send; recorded in the audit log with
+ * the recipient. Sends are limited per member and per shop over the last hour (counted in the audit log, so
+ * every instance sees the same count).
+ */
 import { z } from 'zod';
-import { recordAudit } from '@/db/queries/audit';
+import { countRecentActions, recordAudit } from '@/db/queries/audit';
 import { reportBundle } from '@/db/queries/reports';
-import { notFound } from '@/server/http';
+import { HttpError, notFound } from '@/server/http';
 import { sendMail } from '@/server/mail';
 import { pdfDataFor, renderReportPdf } from '@/server/pdf/build-report';
 import { withShop } from '@/server/with-shop';
+
+/** Sends allowed in an hour. */
+const SENDS_PER_MEMBER_HOUR = 10;
+const SENDS_PER_SHOP_HOUR = 40;
 
 export const POST = withShop(
   { report: ['send'] },
@@ -15,6 +23,13 @@ export const POST = withShop(
     note: z.string().trim().max(1000, 'Keep the note under 1,000 characters.').optional(),
   }),
   async ({ input, shop, user }) => {
+    const hourAgo = new Date(Date.now() - 3_600_000);
+    if ((await countRecentActions(shop.id, 'report.send', hourAgo, user.id)) >= SENDS_PER_MEMBER_HOUR) {
+      throw new HttpError(429, 'TOO_MANY_SENDS', `You have sent ${SENDS_PER_MEMBER_HOUR} reports in the last hour, the most one member may; try again later, or ask a colleague.`);
+    }
+    if ((await countRecentActions(shop.id, 'report.send', hourAgo)) >= SENDS_PER_SHOP_HOUR) {
+      throw new HttpError(429, 'TOO_MANY_SENDS', `The shop has sent ${SENDS_PER_SHOP_HOUR} reports in the last hour, the most it may; try again later.`);
+    }
     const b = await reportBundle(shop.id, input.reportId);
     if (!b) throw notFound('That report');
     const pdf = await renderReportPdf(await pdfDataFor(b));
