@@ -2,8 +2,20 @@
 import { spawnSync } from 'node:child_process';
 import { backupEmbedded } from '../db/backup';
 import { dataDir } from '../db/client';
+import { cliArgs } from './cli-args';
 
-const file = process.argv[2] ?? `crankprint-backup-${new Date().toISOString().slice(0, 19).replace(/[:T]/g, '-')}.${process.env.DATABASE_URL ? 'dump' : 'tar.gz'}`;
+const { positionals } = cliArgs(
+  `Usage: npm run db:backup -- [FILE]
+
+Copies the embedded database (CRANKPRINT_DATA_DIR, default .data) to FILE, a gzip tarball, or with DATABASE_URL
+set runs pg_dump into FILE. Stop the app first: the embedded database serves one process.
+
+  FILE     where to write (default crankprint-backup-DATE.tar.gz, or .dump with DATABASE_URL)
+  --help   this text`,
+  {},
+  1,
+);
+const file = positionals[0] ?? `crankprint-backup-${new Date().toISOString().slice(0, 19).replace(/[:T]/g, '-')}.${process.env.DATABASE_URL ? 'dump' : 'tar.gz'}`;
 if (process.env.DATABASE_URL) {
   const r = spawnSync('pg_dump', ['--format=custom', `--file=${file}`, process.env.DATABASE_URL], { stdio: 'inherit' });
   process.exit(r.status ?? 1);

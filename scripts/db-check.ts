@@ -4,8 +4,20 @@
  */
 import { dataDir, openDatabase } from '../db/client';
 import { checkIntegrity } from '../db/integrity';
+import { cliArgs } from './cli-args';
 
-const json = process.argv.includes('--json');
+const { values } = cliArgs(
+  `Usage: npm run db:check -- [--json]
+
+Opens the database (embedded, or DATABASE_URL) and checks every stored capture against the SHA-256 recorded at
+upload. Exit 0 when all is whole, 1 when something is not, 2 when the database cannot be opened.
+
+  --json   one JSON object on stdout
+  --help   this text`,
+  { json: { type: 'boolean', default: false } },
+  0,
+);
+const json = !!values.json;
 let d;
 try {
   d = await openDatabase(process.env.DATABASE_URL ? { url: process.env.DATABASE_URL } : { dataDir: dataDir() });

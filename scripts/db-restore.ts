@@ -2,8 +2,20 @@
 import { spawnSync } from 'node:child_process';
 import { restoreEmbedded } from '../db/backup';
 import { dataDir } from '../db/client';
+import { cliArgs } from './cli-args';
 
-const file = process.argv[2];
+const { positionals } = cliArgs(
+  `Usage: npm run db:restore -- FILE
+
+Restores a backup made by db:backup into an empty CRANKPRINT_DATA_DIR, or with DATABASE_URL set runs
+pg_restore --clean from FILE.
+
+  FILE     the backup to restore
+  --help   this text`,
+  {},
+  1,
+);
+const file = positionals[0];
 if (!file) {
   console.error('Give the backup file: npm run db:restore -- crankprint-backup-….tar.gz');
   process.exit(2);
