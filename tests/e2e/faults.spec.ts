@@ -149,3 +149,32 @@ test('a second process is refused the data directory; SIGTERM finishes the reque
   expect(check.ok).toBe(true);
   expect(check.captures.find((x) => x.id === c.id)?.sha256).toBe(createHash('sha256').update(body).digest('hex'));
 });
+
+test('a second server on the same data directory refuses to start, naming the process that holds it', async () => {
+  test.setTimeout(180_000);
+  const server = startServer();
+  await waitReady(server);
+  const { spawn } = await import('node:child_process');
+  const second = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', '0'], {
+    stdio: ['ignore', 'ignore', 'pipe'],
+    env: { ...process.env, CRANKPRINT_DATA_DIR: DATA, NEXT_TELEMETRY_DISABLED: '1', BETTER_AUTH_SECRET: 'child-server-secret-0123456789abcdef0123456789' },
+  });
+  let stderr = '';
+  second.stderr!.on('data', (d) => (stderr += String(d)));
+  const code = await new Promise<number | null>((res) => {
+    const timer = setTimeout(() => {
+      second.kill('SIGKILL');
+      res(null);
+    }, 90_000);
+    second.on('exit', (c) => {
+      clearTimeout(timer);
+      res(c);
+    });
+  });
+  expect(code, stderr).not.toBeNull();
+  expect(code).not.toBe(0);
+  expect(stderr).toContain(`in use by process ${server.child.pid}`);
+  expect(stderr.trim().split('\n').filter((l) => l.startsWith('Crankprint cannot start'))).toHaveLength(1);
+  server.child.kill('SIGTERM');
+  await exited(server.child);
+});
