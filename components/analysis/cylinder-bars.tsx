@@ -1,15 +1,53 @@
 'use client';
 /**
- * The per-cylinder chart: bars in percent with their 90 % interval as whiskers, the low and upper limit lines;
- * status carried by a word and a fill pattern as well as colour; one dot per cycle for consistency. The axis
- * grows to show a figure above 100 %. Hovering a bar highlights that cylinder's events.
+ * The per-cylinder chart, drawn with uPlot like the trace: the bars are series (one per status, each with its
+ * fill pattern so status never rests on colour alone), the 90 % interval is a whisker series, the low and upper
+ * limits and the per-cycle dots are drawn on top, and the axis grows to show a figure above 100 %. Below it, a
+ * focusable line per cylinder carries the figure, its interval and the status word; focusing or hovering one
+ * highlights that cylinder's events in the trace.
  */
-import { type CylinderResult, percentText } from '@/signal';
-import { STATUS_WORD } from './status-style';
+import { useEffect, useRef } from 'react';
+import uPlot from 'uplot';
+import 'uplot/dist/uPlot.min.css';
+import { type CylinderResult, type CylinderStatus, intervalText, percentText } from '@/signal';
+import { STATUS_TEXT, STATUS_WORD } from './status-style';
 
-const W = 640;
-const H = 300;
-const PAD = { l: 48, r: 16, t: 16, b: 64 };
+const HEIGHT = 300;
+const STATUSES: CylinderStatus[] = ['ok', 'low', 'high', 'uncertain'];
+
+const rgb = (token: string, alpha = 1) => {
+  const v = typeof document !== 'undefined' ? getComputedStyle(document.documentElement).getPropertyValue(`--${token}`).trim() : '0 0 0';
+  return `rgb(${v} / ${alpha})`;
+};
+
+/** A fill pattern per status: solid (ok), diagonal hatch (low), horizontal bands (high), dots (uncertain). */
+function patternFor(ctx: CanvasRenderingContext2D, status: CylinderStatus): CanvasPattern | string {
+  if (status === 'ok') return rgb('ok');
+  const tile = document.createElement('canvas');
+  const s = Math.round(8 * devicePixelRatio);
+  tile.width = tile.height = s;
+  const t = tile.getContext('2d')!;
+  t.fillStyle = rgb(status, 0.3);
+  t.fillRect(0, 0, s, s);
+  t.fillStyle = rgb(status);
+  t.strokeStyle = rgb(status);
+  if (status === 'low') {
+    t.lineWidth = s / 3;
+    t.beginPath();
+    t.moveTo(-s, s * 2);
+    t.lineTo(s * 2, -s);
+    t.moveTo(0, s);
+    t.lineTo(s, 0);
+    t.stroke();
+  } else if (status === 'high') {
+    t.fillRect(0, 0, s, s / 2);
+  } else {
+    t.beginPath();
+    t.arc(s / 2, s / 2, s / 5, 0, 2 * Math.PI);
+    t.fill();
+  }
+  return ctx.createPattern(tile, 'repeat') ?? rgb(status);
+}
 
 export function CylinderBars({
   cylinders,
@@ -24,89 +62,155 @@ export function CylinderBars({
   onHover?: (cylinder: number | null) => void;
   highlighted?: number | null;
 }) {
-  const n = cylinders.length;
-  const plotW = W - PAD.l - PAD.r;
-  const plotH = H - PAD.t - PAD.b;
-  const slot = plotW / Math.max(1, n);
-  const barW = Math.min(64, slot * 0.62);
-  const tallest = Math.max(highLimit + 5, ...cylinders.map((c) => Math.max(c.interval?.[1] ?? 0, c.relativePercent ?? 0, ...c.perCycle)));
-  const top = Math.ceil(tallest / 10) * 10;
-  const y = (pct: number) => PAD.t + plotH * (1 - Math.max(0, Math.min(top, pct)) / top);
-  const ticks = Array.from({ length: Math.floor(top / 25) + 1 }, (_, k) => k * 25);
+  const host = useRef<HTMLDivElement>(null);
+  const hl = useRef(highlighted);
+  hl.current = highlighted;
+  const plot = useRef<uPlot | null>(null);
+
+  useEffect(() => {
+    const el = host.current;
+    if (!el) return;
+    const n = cylinders.length;
+    const tallest = Math.max(highLimit + 5, ...cylinders.map((c) => Math.max(c.interval?.[1] ?? 0, c.relativePercent ?? 0, ...c.perCycle)));
+    const ceiling = Math.ceil(tallest / 10) * 10;
+    const xs = cylinders.map((_, i) => i + 1);
+    const byStatus = STATUSES.map((st) => cylinders.map((c) => (c.status === st ? c.relativePercent : null)));
+    const data: uPlot.AlignedData = [xs, ...byStatus, cylinders.map((c) => c.interval?.[1] ?? null)];
+    const bars = uPlot.paths.bars!({ size: [0.6, 64] });
+    const whiskers: uPlot.Series.PathBuilder = (u, seriesIdx, idx0, idx1) => {
+      const path = new Path2D();
+      const cap = 8 * devicePixelRatio;
+      for (let i = idx0; i <= idx1; i++) {
+        const iv = cylinders[i]?.interval;
+        if (!iv) continue;
+        const x = u.valToPos(i + 1, 'x', true);
+        const y0 = u.valToPos(iv[0], 'y', true);
+        const y1 = u.valToPos(iv[1], 'y', true);
+        path.moveTo(x, y0);
+        path.lineTo(x, y1);
+        path.moveTo(x - cap, y0);
+        path.lineTo(x + cap, y0);
+        path.moveTo(x - cap, y1);
+        path.lineTo(x + cap, y1);
+      }
+      void seriesIdx;
+      return { stroke: path, fill: undefined, clip: undefined, flags: 0 } as unknown as uPlot.Series.Paths;
+    };
+    const overlay = (u: uPlot) => {
+      const ctx = u.ctx;
+      const { left, width } = u.bbox;
+      ctx.save();
+      // Per-cycle dots beside each bar.
+      ctx.fillStyle = rgb('ink', 0.7);
+      cylinders.forEach((c, i) => {
+        const x = u.valToPos(i + 1, 'x', true) + 0.32 * (u.valToPos(2, 'x', true) - u.valToPos(1, 'x', true));
+        for (const v of c.perCycle) {
+          ctx.beginPath();
+          ctx.arc(x, u.valToPos(v, 'y', true), 3 * devicePixelRatio, 0, 2 * Math.PI);
+          ctx.fill();
+        }
+      });
+      // Figures above the bars (and above their whiskers), dimmed when another cylinder is highlighted.
+      ctx.font = `bold ${13 * devicePixelRatio}px ui-monospace, monospace`;
+      ctx.textAlign = 'center';
+      cylinders.forEach((c, i) => {
+        const x = u.valToPos(i + 1, 'x', true);
+        const y = u.valToPos(Math.max(c.relativePercent ?? 0, c.interval?.[1] ?? 0), 'y', true) - 6 * devicePixelRatio;
+        ctx.fillStyle = rgb('ink', hl.current == null || hl.current === c.cylinder ? 1 : 0.35);
+        ctx.fillText(percentText(c.relativePercent, 0), x, y);
+      });
+      // The limits.
+      ctx.strokeStyle = rgb('limit');
+      ctx.fillStyle = rgb('limit');
+      ctx.font = `bold ${12 * devicePixelRatio}px system-ui, sans-serif`;
+      ctx.textAlign = 'left';
+      for (const [value, dash, text] of [
+        [lowLimit, [8, 5], `low limit ${lowLimit} %`],
+        [highLimit, [3, 5], `upper limit ${highLimit} %`],
+      ] as const) {
+        const y = u.valToPos(value, 'y', true);
+        ctx.setLineDash(dash.map((d) => d * devicePixelRatio));
+        ctx.lineWidth = (value === lowLimit ? 2.5 : 1.5) * devicePixelRatio;
+        ctx.beginPath();
+        ctx.moveTo(left, y);
+        ctx.lineTo(left + width, y);
+        ctx.stroke();
+        ctx.fillText(text, left + 6 * devicePixelRatio, y - 5 * devicePixelRatio);
+      }
+      ctx.restore();
+    };
+    const u = new uPlot(
+      {
+        width: Math.max(280, el.clientWidth || 640),
+        height: HEIGHT,
+        legend: { show: false },
+        cursor: { show: false },
+        select: { show: false, left: 0, top: 0, width: 0, height: 0 },
+        scales: { x: { time: false, range: [0.4, n + 0.6] }, y: { range: [0, ceiling] } },
+        axes: [
+          {
+            stroke: rgb('ink'),
+            grid: { show: false },
+            ticks: { show: false },
+            splits: () => xs,
+            values: (_u, vals) => vals.map((v) => (Number.isInteger(v) && v >= 1 && v <= n ? `Cyl ${cylinders[v - 1].cylinder}` : '')),
+            font: `bold ${14}px system-ui, sans-serif`,
+          },
+          { stroke: rgb('muted'), grid: { stroke: rgb('line') }, splits: () => Array.from({ length: Math.floor(ceiling / 25) + 1 }, (_, k) => k * 25), values: (_u, vals) => vals.map((v) => `${v} %`) },
+        ],
+        series: [
+          {},
+          ...STATUSES.map((st) => ({
+            label: st,
+            paths: bars,
+            points: { show: false },
+            fill: (self: uPlot) => patternFor(self.ctx, st),
+            stroke: st === 'ok' ? rgb('ok') : rgb(st),
+            width: 2,
+          })),
+          { label: '90 % interval', paths: whiskers, points: { show: false }, stroke: rgb('ink'), width: 2 },
+        ],
+        hooks: { draw: [overlay] },
+      },
+      data,
+      el,
+    );
+    plot.current = u;
+    const resize = new ResizeObserver(() => u.setSize({ width: Math.max(280, el.clientWidth), height: HEIGHT }));
+    resize.observe(el);
+    return () => {
+      resize.disconnect();
+      u.destroy();
+      plot.current = null;
+    };
+  }, [cylinders, lowLimit, highLimit]);
+
+  useEffect(() => {
+    plot.current?.redraw(false);
+  }, [highlighted]);
+
   return (
-    <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={`Relative compression per cylinder: ${cylinders.map((c) => `cylinder ${c.cylinder} ${spoken(c)}`).join(', ')}`} className="h-auto w-full">
-      <defs>
-        <pattern id="fill-low" width="8" height="8" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-          <rect width="8" height="8" fill="rgb(var(--low) / 0.35)" />
-          <rect width="4" height="8" fill="rgb(var(--low))" />
-        </pattern>
-        <pattern id="fill-high" width="8" height="8" patternUnits="userSpaceOnUse">
-          <rect width="8" height="8" fill="rgb(var(--high) / 0.35)" />
-          <rect width="8" height="4" fill="rgb(var(--high))" />
-        </pattern>
-        <pattern id="fill-uncertain" width="7" height="7" patternUnits="userSpaceOnUse">
-          <rect width="7" height="7" fill="rgb(var(--uncertain) / 0.25)" />
-          <circle cx="3.5" cy="3.5" r="1.6" fill="rgb(var(--uncertain))" />
-        </pattern>
-      </defs>
-      {ticks.map((v) => (
-        <g key={v}>
-          <line x1={PAD.l} x2={W - PAD.r} y1={y(v)} y2={y(v)} stroke="rgb(var(--line))" strokeWidth="1" />
-          <text x={PAD.l - 8} y={y(v) + 4} textAnchor="end" className="figures" fontSize="12" fill="rgb(var(--muted))">
-            {v} %
-          </text>
-        </g>
-      ))}
-      {cylinders.map((c, i) => {
-        const cx = PAD.l + slot * (i + 0.5);
-        const barTop = y(c.relativePercent ?? 0);
-        const fill = c.status === 'ok' ? 'rgb(var(--ok))' : `url(#fill-${c.status})`;
-        const dim = highlighted != null && highlighted !== c.cylinder;
-        return (
-          <g
-            key={c.cylinder}
-            opacity={dim ? 0.45 : 1}
-            onMouseEnter={() => onHover?.(c.cylinder)}
-            onMouseLeave={() => onHover?.(null)}
-            onFocus={() => onHover?.(c.cylinder)}
-            onBlur={() => onHover?.(null)}
-            tabIndex={0}
-            role="listitem"
-            aria-label={`Cylinder ${c.cylinder}: ${spoken(c)}`}
-          >
-            <rect x={cx - barW / 2} y={barTop} width={barW} height={Math.max(0, y(0) - barTop)} fill={fill} stroke={c.status === 'ok' ? 'none' : `rgb(var(--${c.status}))`} strokeWidth="2" rx="3" />
-            {c.interval && (
-              <g stroke="rgb(var(--ink))" strokeWidth="2" data-testid="whisker">
-                <line x1={cx} x2={cx} y1={y(c.interval[0])} y2={y(c.interval[1])} />
-                <line x1={cx - 8} x2={cx + 8} y1={y(c.interval[0])} y2={y(c.interval[0])} />
-                <line x1={cx - 8} x2={cx + 8} y1={y(c.interval[1])} y2={y(c.interval[1])} />
-              </g>
-            )}
-            {c.perCycle.map((v, k) => (
-              <circle key={k} cx={cx + barW / 2 + 7} cy={y(v)} r="3" fill="rgb(var(--ink))" opacity="0.7" />
-            ))}
-            <text x={cx + barW / 2 + 4} y={barTop - 6} textAnchor="start" className="figures" fontSize="14" fontWeight="700" fill="rgb(var(--ink))">
-              {percentText(c.relativePercent, 0)}
-            </text>
-            <text x={cx} y={H - PAD.b + 20} textAnchor="middle" fontSize="15" fontWeight="700" fill="rgb(var(--ink))">
-              Cyl {c.cylinder}
-            </text>
-            <text x={cx} y={H - PAD.b + 40} textAnchor="middle" fontSize="13" fontWeight="700" fill={`rgb(var(--${c.status}))`}>
-              {STATUS_WORD[c.status]}
-            </text>
-          </g>
-        );
-      })}
-      <line x1={PAD.l} x2={W - PAD.r} y1={y(highLimit)} y2={y(highLimit)} stroke="rgb(var(--limit))" strokeWidth="1.5" strokeDasharray="3 5" />
-      <text x={W - PAD.r - 4} y={y(highLimit) - 5} textAnchor="end" fontSize="12" fontWeight="700" fill="rgb(var(--limit))">
-        upper limit {highLimit} %
-      </text>
-      <line x1={PAD.l} x2={W - PAD.r} y1={y(lowLimit)} y2={y(lowLimit)} stroke="rgb(var(--limit))" strokeWidth="2.5" strokeDasharray="8 5" />
-      <rect x={PAD.l + 2} y={y(lowLimit) + 3} width="92" height="16" rx="3" fill="rgb(var(--surface))" opacity="0.9" />
-      <text x={PAD.l + 6} y={y(lowLimit) + 15} fontSize="12" fontWeight="700" fill="rgb(var(--limit))">
-        low limit {lowLimit} %
-      </text>
-    </svg>
+    <figure className="flex flex-col gap-2" aria-label="Relative compression per cylinder">
+      <div ref={host} className="w-full" aria-hidden="true" data-testid="cylinder-plot" />
+      <ol className="flex flex-wrap gap-2" aria-label="Per-cylinder figures">
+        {cylinders.map((c) => (
+          <li key={c.cylinder}>
+            <button
+              type="button"
+              className={`figures rounded-lg border px-2 py-1 text-sm ${highlighted === c.cylinder ? 'border-brand' : 'border-line'}`}
+              onMouseEnter={() => onHover?.(c.cylinder)}
+              onMouseLeave={() => onHover?.(null)}
+              onFocus={() => onHover?.(c.cylinder)}
+              onBlur={() => onHover?.(null)}
+              aria-label={`Cylinder ${c.cylinder}: ${spoken(c)}`}
+              data-testid="whisker"
+            >
+              Cyl {c.cylinder}: {percentText(c.relativePercent)} % ({intervalText(c.interval)}) <strong className={STATUS_TEXT[c.status]}>{STATUS_WORD[c.status]}</strong>
+            </button>
+          </li>
+        ))}
+      </ol>
+    </figure>
   );
 }
 
