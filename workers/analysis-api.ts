@@ -19,12 +19,14 @@ import {
 
 export type Stage = 'reading' | 'parsing' | 'analysing' | 'done';
 export type ProgressFn = (stage: Stage, fraction: number) => void;
-export type TraceChannel = 'current' | 'crank' | 'sync' | 'rpm' | 'toothPeriod';
+export type TraceChannel = 'current' | 'crank' | 'sync' | 'rpm' | 'battery' | 'toothPeriod';
 
 export interface ImportSummary {
   rows: number;
   durationS: number;
   channels: ChannelInfo[];
+  /** The channels the trace can draw (from the decoded columns, so an edge log's crank shows as tooth period). */
+  traces: TraceChannel[];
   confidence: number;
   preview: string[][];
   header: string[];
@@ -74,6 +76,10 @@ export function createAnalysisApi() {
         rows: capture.rows,
         durationS: t && t.length > 1 ? t[t.length - 1] - t[0] : 0,
         channels: capture.channels,
+        traces: [
+          ...(['current', 'crank', 'rpm', 'battery', 'sync'] as const).filter((c) => capture!.columns[c] && capture!.columns.time),
+          ...(capture.columns.toothTimes ? (['toothPeriod'] as const) : []),
+        ],
         confidence: capture.confidence,
         preview: capture.sniff.preview,
         header: capture.sniff.columns.map((c) => (c.unit ? `${c.name} [${c.unit}]` : c.name)),

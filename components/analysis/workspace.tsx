@@ -11,9 +11,9 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
 import { type AnalysisSettingsValues, analysisSettingsSchema, engineSettings } from '@/db/validators/analysis';
-import { type AnalysisResult, type ChannelRole, identityWords, METHOD_NAMES } from '@/signal';
+import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
 import { SURE_MAPPING } from '@/signal/steps/screen';
-import type { WorkerError } from '@/workers/analysis-api';
+import type { TraceChannel, WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';
 import { Findings } from './findings';
@@ -33,12 +33,13 @@ interface Props {
   canSave: boolean;
 }
 
-const CHANNELS: { role: ChannelRole; channel: 'current' | 'crank' | 'rpm' | 'sync' | 'toothPeriod'; label: string; unit: string; token: string; right?: boolean }[] = [
-  { role: 'current', channel: 'current', label: 'Starter current', unit: 'A', token: 'brand' },
-  { role: 'crank', channel: 'crank', label: 'Crank sensor', unit: 'V', token: 'ink' },
-  { role: 'rpm', channel: 'rpm', label: 'Engine speed', unit: 'rpm', token: 'brand' },
-  { role: 'toothTimes', channel: 'toothPeriod', label: 'Tooth period', unit: 'ms', token: 'brand' },
-  { role: 'sync', channel: 'sync', label: 'Sync', unit: 'V', token: 'sync', right: true },
+const CHANNELS: { channel: TraceChannel; label: string; unit: string; token: string; right?: boolean }[] = [
+  { channel: 'current', label: 'Starter current', unit: 'A', token: 'brand' },
+  { channel: 'crank', label: 'Crank sensor', unit: 'V', token: 'ink' },
+  { channel: 'rpm', label: 'Engine speed', unit: 'rpm', token: 'brand' },
+  { channel: 'toothPeriod', label: 'Tooth period', unit: 'ms', token: 'brand' },
+  { channel: 'battery', label: 'Battery', unit: 'V', token: 'ink' },
+  { channel: 'sync', label: 'Sync', unit: 'V', token: 'sync', right: true },
 ];
 
 function settingsFromUrl(raw: string | null, fallback: AnalysisSettingsValues): AnalysisSettingsValues {
@@ -103,7 +104,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   }, [ready, askMapping, settings, analyze, w.load]);
 
   const summary = w.load.phase === 'ready' ? w.load.summary : null;
-  const shown = useMemo(() => CHANNELS.filter((c) => summary?.channels.some((ch) => ch.role === c.role)), [summary]);
+  const shown = useMemo(() => CHANNELS.filter((c) => summary?.traces.includes(c.channel)), [summary]);
   const fetchView = useCallback(
     async (fromS: number, toS: number, columns: number): Promise<TraceData | null> => {
       const parts = await Promise.all(shown.map((c) => decimate(c.channel, fromS, toS, columns)));
