@@ -159,7 +159,7 @@ function toMethodResult(
       identity: 'assumed',
       window: { startS: 0, endS: 0 },
       cylinders: Array.from({ length: n }, (_, i) => ({
-        cylinder: i + 1, relativePercent: null, interval: null, status: 'uncertain' as const, events: 0, rejected: 0, spreadPercent: 0, plainPercent: 0, raw: 0, perCycle: [],
+        cylinder: i + 1, relativePercent: null, interval: null, status: 'uncertain' as const, events: 0, rejected: 0, spreadPercent: 0, plainPercent: null, raw: 0, perCycle: [],
       })),
       events: [],
       rawUnit: RAW_UNIT[method],
@@ -211,7 +211,13 @@ function toMethodResult(
   );
   const inconsistent: number[] = [];
   for (const [i, c] of summary.cylinders.entries()) {
-    if (noCompression) c.relativePercent = null;
+    if (noCompression) {
+      // Nothing to compare: no figure of any kind, only the raw measurements.
+      c.relativePercent = null;
+      c.plainPercent = null;
+      c.perCycle = [];
+      c.spreadPercent = 0;
+    }
     c.interval = c.relativePercent === null ? null : intervals[i];
     if (c.spreadPercent > spreadLimit) inconsistent.push(c.cylinder);
   }

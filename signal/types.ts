@@ -70,7 +70,7 @@ export interface CylinderResult {
   /** Cycle-to-cycle spread (standard deviation of the per-event estimates), percentage points. */
   spreadPercent: number;
   /** The plain index (current peak or kinetic-energy dip) in percent of the strongest cylinder, a cross-check. */
-  plainPercent: number;
+  plainPercent: number | null;
   /** Mean raw figure: current peak above the trough (A) or speed dip (rpm). */
   raw: number;
   /** Per-event estimates in percent, one per cycle. */

@@ -40,7 +40,7 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
                 {c.raw.toFixed(1)} {rawUnit}
               </td>
               {stroke && <td className="px-3 py-2">{c.strokeMs === undefined ? '—' : `${c.strokeMs.toFixed(1)} ms`}</td>}
-              <td className="px-3 py-2">{c.plainPercent.toFixed(1)} %</td>
+              <td className="px-3 py-2">{percentText(c.plainPercent)} %</td>
               <td className="px-3 py-2">± {c.spreadPercent.toFixed(1)}</td>
               <td className="px-3 py-2">{c.events}</td>
               <td className="px-3 py-2">{c.rejected}</td>

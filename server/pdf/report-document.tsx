@@ -205,7 +205,7 @@ function Figures({ r }: { r: AnalysisResult }) {
           <Text style={[s.td, s.mono, { width: 75 }]}>{`${intervalText(c.interval)} %`}</Text>
           <Text style={[s.td, { width: 60, color: STATUS_COLOR[c.status], fontWeight: 700 }]}>{c.status}</Text>
           <Text style={[s.td, s.mono, { width: 75 }]}>{`${c.raw.toFixed(1)} ${r.rawUnit}`}</Text>
-          <Text style={[s.td, s.mono, { width: 70 }]}>{`${c.plainPercent.toFixed(1)} %`}</Text>
+          <Text style={[s.td, s.mono, { width: 70 }]}>{`${percentText(c.plainPercent)} %`}</Text>
           <Text style={[s.td, s.mono, { width: 70 }]}>{`± ${c.spreadPercent.toFixed(1)}`}</Text>
           <Text style={[s.td, s.mono, { width: 60 }]}>{`${c.events} / ${c.rejected}`}</Text>
         </View>
