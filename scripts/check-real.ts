@@ -7,6 +7,7 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { type AnalysisResult, analyzeBytes, type EngineSetup } from '../signal';
+import { MIN_COMPRESSION_SWING } from '../signal/steps/compression-evidence';
 
 const dir = resolve(process.env.CRANKPRINT_REAL_DIR ?? join(import.meta.dirname, '..', '..', 'shared', 'captures-real'));
 
@@ -60,7 +61,7 @@ function expectations(file: string, r: AnalysisResult, mappingConfidence: number
   } else if (file.startsWith('i3-')) {
     checks.push(
       ['4. plugs-in I3: glitch edges repaired and counted', (r.wheel?.glitchesDropped ?? 0) > 0 && codes.includes('TEETH_REPAIRED')],
-      ['4. plugs-in I3: combustion, where it shows, is warned of', r.speedSwing! > 1.08 && (codes.includes('ENGINE_FIRED') || r.cylinders.every((c) => c.status !== 'low'))],
+      ['4. plugs-in I3: combustion, where it shows, is warned of', r.speedSwing! > MIN_COMPRESSION_SWING && (codes.includes('ENGINE_FIRED') || r.cylinders.every((c) => c.status !== 'low'))],
     );
   }
   return checks;

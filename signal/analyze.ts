@@ -10,7 +10,7 @@ import { describePattern } from './steps/pattern';
 import { summarize } from './steps/summarize';
 import { runFit } from './steps/run-fit';
 import { type QualityWarning, warning } from './steps/warnings';
-import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderStatus, Method, MethodResult } from './types';
+import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, CylinderStatus, Method, MethodResult, WheelInfo } from './types';
 import { ENGINE_VERSION } from './version';
 import { cylinderIntervals, widenToward } from './steps/interval';
 import { gradeCapture, holdAfterLow, isThin, type Limits, settleStatuses } from './steps/status';
@@ -51,6 +51,8 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     }
     if (method === 'battery') {
       if (!hasBattery) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The battery-voltage method needs a battery-voltage channel (V) and a time column; map them or choose another method.')] };
+      // Logged only at each tooth edge, the voltage is read along the crank-speed method's events.
+      if (isEdgeSampled(columns)) return batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit);
       return runBatteryMethod(columns.time!, columns.battery!, columns.sync, setup, rotation, settings.window);
     }
     if (!hasCrank) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The crank-speed method needs crank tooth times, a crank sensor channel or an engine-speed channel; map one or choose the starter-current method.')] };
@@ -79,14 +81,12 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     const crank = runMethod('crank-speed');
     if (crank.ok && crank.run.wheel?.tooCoarse) primary = hasCurrent ? 'current' : 'battery';
   }
-  const outcome = primary === 'battery' && isEdgeSampled(columns) ? batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit) : runMethod(primary);
-  const result = toMethodResult(primary, outcome, settings, limits, spreadLimit, importWarnings);
+  const result = toMethodResult(primary, runMethod(primary), settings, limits, spreadLimit, importWarnings);
 
   let crossCheck: AnalysisResult['crossCheck'];
   const otherMethod: Method | null = choice !== 'auto' ? null : primary !== 'crank-speed' ? (hasCrank ? 'crank-speed' : null) : hasCurrent ? 'current' : hasBattery ? 'battery' : null;
   if (otherMethod) {
-    const otherOutcome = otherMethod === 'battery' && isEdgeSampled(columns) ? batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit) : runMethod(otherMethod);
-    const other = toMethodResult(otherMethod, otherOutcome, settings, limits, spreadLimit, importWarnings);
+    const other = toMethodResult(otherMethod, runMethod(otherMethod), settings, limits, spreadLimit, importWarnings);
     // A method whose own evidence is thin (a wheel too coarse for crank speed, say) is no check on the other.
     const otherThin = isThin(other.method, other.warnings, other.wheel);
     if (!otherThin && other.fitQuality > 0 && result.cylinders.every((c) => c.relativePercent !== null) && other.cylinders.every((c) => c.relativePercent !== null)) {
@@ -107,7 +107,7 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
         const mine = result.cylinders[c];
         if (mine.interval) mine.interval = widenToward(mine.interval, other.cylinders[c].relativePercent!);
       }
-      settle(result, setup, limits);
+      settle(result.cylinders, result.method, result.warnings, result.wheel, setup, limits);
       if (!agree) {
         result.warnings.push(warning('METHODS_DISAGREE', `The ${METHOD_WORDS[primary]} and ${METHOD_WORDS[otherMethod]} methods differ by up to ${crossCheck.maxDifference} points; check both probes and the firing order before trusting either.`));
       }
@@ -170,6 +170,8 @@ function toMethodResult(
   }
   const run: MethodRun = outcome.run;
   warnings.push(...run.warnings);
+  // With no compression there is nothing to compare: no figures, and no follow-on complaints about events.
+  const noCompression = run.warnings.some((w) => w.code === 'NO_COMPRESSION');
   const half = Math.min(...firingIntervals(setup)) / 2;
   const isCurrent = method !== 'crank-speed';
   let fit = run.fit;
@@ -183,27 +185,23 @@ function toMethodResult(
       // Keep the first pass's rejected set: the refit leaves those events out.
       summary = { ...again, rejectedKeys: summary.rejectedKeys };
     }
-    if (!warnings.some((w) => w.code === 'NO_COMPRESSION')) warnings.push(warning('EVENTS_REJECTED', `${summary.rejectedKeys.size} compression event(s) looked malformed (a spike or dropout) and were left out.`));
+    if (!noCompression) warnings.push(warning('EVENTS_REJECTED', `${summary.rejectedKeys.size} compression event(s) looked malformed (a spike or dropout) and were left out.`));
   }
 
-  // With no compression there is nothing to compare: the follow-on complaints about events would only confuse.
-  if (warnings.some((w) => w.code === 'NO_COMPRESSION')) {
-    const noise = new Set(['EVENTS_REJECTED', 'FIRING_ORDER_MISMATCH']);
-    for (let i = warnings.length - 1; i >= 0; i--) if (noise.has(warnings[i].code)) warnings.splice(i, 1);
+  if (noCompression) {
+    for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'FIRING_ORDER_MISMATCH') warnings.splice(i, 1);
   }
-  const quiet = warnings.some((w) => w.code === 'NO_COMPRESSION');
   const rpm = Math.round(run.rpm * 10) / 10;
   if (rpm < MIN_RPM) warnings.push(warning('CRANKING_TOO_SLOW', `Cranking averaged ${rpm.toFixed(0)} rpm, below the ${MIN_RPM} rpm needed; charge or replace the battery and check the starter, then record again.`));
   if (rpm > MAX_RPM) warnings.push(warning('CRANKING_TOO_FAST', `The crank turned at ${rpm.toFixed(0)} rpm, faster than cranking (${MAX_RPM} rpm); the engine may have started. Disable fuel as the service information directs and record again.`));
   const cycles = Math.min(...summary.cylinders.map((c) => c.events));
-  if (cycles < MIN_CYCLES && !quiet) warnings.push(warning('TOO_FEW_CYCLES', `Only ${cycles} complete engine cycle(s) per cylinder were usable; crank for 5–10 s so at least ${MIN_CYCLES} are recorded.`));
-  if (fit.r2 < MIN_FIT && !quiet && !warnings.some((w) => w.code === 'FIRING_ORDER_MISMATCH')) warnings.push(warning('FIRING_ORDER_MISMATCH', `The compression events do not follow ${n} cylinders firing ${setup.firingOrder.join('-')}; check the cylinder count, firing order and intervals against the service information.`));
+  if (cycles < MIN_CYCLES && !noCompression) warnings.push(warning('TOO_FEW_CYCLES', `Only ${cycles} complete engine cycle(s) per cylinder were usable; crank for 5–10 s so at least ${MIN_CYCLES} are recorded.`));
+  if (fit.r2 < MIN_FIT && !noCompression && !warnings.some((w) => w.code === 'FIRING_ORDER_MISMATCH')) warnings.push(warning('FIRING_ORDER_MISMATCH', `The compression events do not follow ${n} cylinders firing ${setup.firingOrder.join('-')}; check the cylinder count, firing order and intervals against the service information.`));
   if (run.identity === 'assumed' && !warnings.some((w) => w.code === 'SYNC_NOT_FOUND')) {
     warnings.push(warning('NO_SYNC', `Without a cylinder 1 sync channel, the numbers assume the first event is cylinder ${setup.firingOrder[0]}; rotate the assignment if you know better, or record again with sync on cylinder 1.`));
   }
   if (run.rawScale) for (const c of summary.cylinders) c.raw = Math.round(c.raw * run.rawScale * 100) / 100;
   const thin = isThin(method, warnings, run.wheel);
-  const noCompression = warnings.some((w) => w.code === 'NO_COMPRESSION');
   const intervals = cylinderIntervals(
     summary.cylinders.map((c) => c.perCycle),
     summary.cylinders.map((c) => c.relativePercent),
@@ -221,9 +219,8 @@ function toMethodResult(
     c.interval = c.relativePercent === null ? null : intervals[i];
     if (c.spreadPercent > spreadLimit) inconsistent.push(c.cylinder);
   }
-  settleStatuses(summary.cylinders, thin, limits, warnings);
-  if (method !== 'crank-speed') holdAfterLow(summary.cylinders, setup, lowLimit, warnings);
-  if (inconsistent.length && !quiet) {
+  settle(summary.cylinders, method, warnings, run.wheel, setup, limits);
+  if (inconsistent.length && !noCompression) {
     warnings.push(warning('INCONSISTENT_CYCLES', `Cylinder${inconsistent.length > 1 ? 's' : ''} ${inconsistent.join(', ')} varied by more than ${spreadLimit} points from cycle to cycle; look at the trace for misfiring probes or an unsteady crank.`));
   }
   if (summary.spreadPercent > spreadLimit && !thin) {
@@ -264,10 +261,13 @@ function withWarning(outcome: MethodOutcome, w: QualityWarning): MethodOutcome {
   return outcome.ok ? { ok: true, run: { ...outcome.run, warnings: [w, ...outcome.run.warnings] } } : { ok: false, warnings: [w, ...outcome.warnings] };
 }
 
-/** Statuses again after the intervals changed (a second method disagreeing). */
-function settle(r: MethodResult, setup: AnalysisSettings['engine'], limits: Limits): void {
-  settleStatuses(r.cylinders, isThin(r.method, r.warnings, r.wheel), limits, r.warnings);
-  if (r.method !== 'crank-speed') holdAfterLow(r.cylinders, setup, limits.lowLimitPercent, r.warnings);
+/**
+ * Statuses from the intervals, then the electrical methods' hold on a cylinder right after a low one: once when
+ * the result is made, and again when a disagreeing second method has widened the intervals.
+ */
+function settle(cylinders: CylinderResult[], method: Method, warnings: QualityWarning[], wheel: WheelInfo | undefined, setup: AnalysisSettings['engine'], limits: Limits): void {
+  settleStatuses(cylinders, isThin(method, warnings, wheel), limits, warnings);
+  if (method !== 'crank-speed') holdAfterLow(cylinders, setup, limits.lowLimitPercent, warnings);
 }
 
 function round3(v: number): number {

@@ -119,7 +119,7 @@ export class CaptureImporter {
       warnings.push(warning('MISSING_VALUES', `${parsed.raggedRows} row(s) have the wrong number of fields (first at line ${parsed.firstRaggedLine}); their missing fields are treated as missing.`));
     }
 
-    const roles = [...this.mapping.roles];
+    const roles = this.mapping.roles;
     const columns: CaptureColumns = {};
     const channels: ChannelInfo[] = [];
     const edgeLog = this.mapping.edgeLog || roles.includes('level');
@@ -130,7 +130,8 @@ export class CaptureImporter {
       channels.push({ index: c, role, name: s.columns[c].name, unit: s.columns[c].unit, confidence: this.given ? 1 : this.mapping.confidence[c] });
       if (role === 'ignore') continue;
       const v = parsed.columns[c];
-      if (role !== 'time' && role !== 'toothTimes') overRange += markOverRange(v);
+      const over = role !== 'time' && role !== 'toothTimes' ? markOverRange(v) : 0;
+      overRange += over;
       if (role === 'level' || (edgeLog && (role === 'crank' || role === 'sync'))) {
         levels.push({ index: c, name: s.columns[c].name, values: v });
         continue;
@@ -154,7 +155,7 @@ export class CaptureImporter {
         warnings.push(...checkTime(v, firstLine).filter((w) => !(edgeLog && w.code === 'TIME_GAPS')));
         if (parsed.missingValues > 0) fillMissing(v);
       } else {
-        const missing = parsed.missingValues > 0 || overRange > 0 ? fillMissing(v) : 0;
+        const missing = parsed.missingValues > 0 || over > 0 ? fillMissing(v) : 0;
         warnings.push(...checkValues(`${s.columns[c].name}`, v, role === 'current' || role === 'rpm', missing));
       }
       columns[role as Exclude<ChannelRole, 'ignore' | 'level'>] = v;

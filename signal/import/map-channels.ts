@@ -87,17 +87,19 @@ export function mapChannels(cells: HeaderCell[], values: Float64Array[]): Channe
   return { roles, confidence, timeScale: scale ?? 1, timeIsIndex, edgeLog: false };
 }
 
+const ruleFor = (role: ChannelRole) => RULES.find((r) => r.role === role)!;
+
 /**
  * An edge log: a time column by name, irregular steps and 0/1 columns. Whole-number columns are levels (sorted
  * into crank and marks on import), a battery column by name is kept, the rest is ignored.
  */
 function edgeLogMapping(cells: HeaderCell[], values: Float64Array[]): ChannelMapping | null {
-  const ti = cells.findIndex((c) => RULES[0].name.test(c.name));
+  const ti = cells.findIndex((c) => ruleFor('time').name.test(c.name));
   if (ti < 0) return null;
   const others = values.filter((_, i) => i !== ti);
   if (!looksLikeEdgeLog(values[ti], others)) return null;
   const roles: ChannelRole[] = cells.map((c, i) =>
-    i === ti ? 'time' : RULES[1].name.test(c.name) ? 'battery' : isLevelLike(values[i]) ? 'level' : 'ignore',
+    i === ti ? 'time' : ruleFor('battery').name.test(c.name) ? 'battery' : isLevelLike(values[i]) ? 'level' : 'ignore',
   );
   return { roles, confidence: roles.map(() => 0.9), timeScale: timeScale(cells[ti].unit) ?? 1, timeIsIndex: false, edgeLog: true };
 }

@@ -4,6 +4,7 @@
  * through the starter-current method. Sampled only at crank-tooth edges (an engine computer's tooth log), each
  * compression event's voltage swing is read along the crank-speed method's events, as a plain index.
  */
+import { indexAtTime } from '../dsp/decimate';
 import { quantileProbe, stdDev } from '../dsp/stats';
 import type { EngineSetup } from '../engine/firing';
 import { firingIntervals } from '../engine/firing';
@@ -82,13 +83,9 @@ export function batteryAtTeeth(c: CaptureColumns, crank: MethodOutcome, setup: E
 
 /** Max − min of a sample-and-hold channel over [t0, t1]: the value held at t0, then every row inside. */
 function swingBetween(time: Float64Array, v: Float64Array, t0: number, t1: number): number {
-  let lo = 0;
-  let hi = time.length - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (time[mid] <= t0) lo = mid;
-    else hi = mid;
-  }
+  // The last row at or before t0 holds the value at t0.
+  const at = indexAtTime(time, t0);
+  const lo = Math.max(0, at < time.length && time[at] === t0 ? at : at - 1);
   let min = v[lo];
   let max = v[lo];
   for (let i = lo + 1; i < time.length && time[i] <= t1; i++) {

@@ -149,7 +149,7 @@ export function runCrankSpeedMethod(
   const rpm = meanRpm(motion);
   return {
     ok: true,
-    run: { motion, fit, window, rpm, identity, identityNote, warnings, wheel: wheelInfo, speedSwing: Math.round(evidence.swing * 100) / 100, excluded: evidence.fired, toothAngles: angles },
+    run: { motion, fit, window, rpm, identity, identityNote, warnings, wheel: wheelInfo, speedSwing: Math.round(evidence.swing * 100) / 100, excluded: evidence.fired },
   };
 }
 

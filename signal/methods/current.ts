@@ -32,8 +32,6 @@ export interface MethodRun {
   speedSwing?: number;
   /** Events left out of the figures from the start (combustion), as the fit's exclude keys. */
   excluded?: Set<string>;
-  /** The crank's tooth angles, for an electrical channel sampled at each edge. */
-  toothAngles?: { times: Float64Array; angleDeg: Float64Array };
   /** Figures made by the method itself (an electrical channel read along the crank's events). */
   figures?: Summary;
   /** Multiplies the raw figure into its unit (battery volts from equivalent amps). @default 1 */
