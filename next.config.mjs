@@ -1,24 +1,5 @@
 /** @type {import('next').NextConfig} */
-
-const dev = process.env.NODE_ENV !== 'production';
-
-/** Content security: our own origin only; no framing except our PDF preview inside our own pages. */
-function csp(frameAncestors) {
-  return [
-    "default-src 'self'",
-    `script-src 'self' 'unsafe-inline'${dev ? " 'unsafe-eval'" : ''}`,
-    "style-src 'self' 'unsafe-inline'",
-    "img-src 'self' data: blob:",
-    "font-src 'self'",
-    `connect-src 'self'${dev ? ' ws: wss:' : ''}`,
-    "worker-src 'self' blob:",
-    "frame-src 'self'",
-    "object-src 'none'",
-    "base-uri 'self'",
-    "form-action 'self'",
-    `frame-ancestors ${frameAncestors}`,
-  ].join('; ');
-}
+import { contentSecurityPolicy } from './server/csp.mjs';
 
 const common = [
   { key: 'X-Content-Type-Options', value: 'nosniff' },
@@ -27,13 +8,15 @@ const common = [
 ];
 
 const nextConfig = {
-  serverExternalPackages: ['@electric-sql/pglite', '@react-pdf/renderer'],
+  serverExternalPackages: ['@electric-sql/pglite', '@react-pdf/renderer', 'rate-limiter-flexible', 'pino', 'pino-pretty'],
   poweredByHeader: false,
   async headers() {
     return [
-      { source: '/:path*', headers: [...common, { key: 'Content-Security-Policy', value: csp("'none'") }, { key: 'X-Frame-Options', value: 'DENY' }] },
+      // Pages get their CSP, with a script nonce, from proxy.ts; the API runs no script.
+      { source: '/:path*', headers: [...common, { key: 'X-Frame-Options', value: 'DENY' }] },
+      { source: '/api/:path*', headers: [{ key: 'Content-Security-Policy', value: contentSecurityPolicy() }] },
       // The report PDF is previewed in an iframe of our own report page.
-      { source: '/api/reports/:id/pdf', headers: [...common, { key: 'Content-Security-Policy', value: csp("'self'") }, { key: 'X-Frame-Options', value: 'SAMEORIGIN' }] },
+      { source: '/api/reports/:id/pdf', headers: [{ key: 'Content-Security-Policy', value: contentSecurityPolicy({ frameAncestors: "'self'" }) }, { key: 'X-Frame-Options', value: 'SAMEORIGIN' }] },
       { source: '/r/:token', headers: [{ key: 'Referrer-Policy', value: 'no-referrer' }, { key: 'Cache-Control', value: 'private, no-store' }] },
     ];
   },

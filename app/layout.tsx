@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from 'next';
+import { headers } from 'next/headers';
 import localFont from 'next/font/local';
 import { Providers } from './providers';
 import './globals.css';
@@ -31,11 +32,13 @@ export const viewport: Viewport = { width: 'device-width', initialScale: 1 };
 /** Picks the saved theme (or the system's) before first paint, so there is no flash. */
 const themeScript = `try{var t=localStorage.getItem('crankprint-theme');if(!t)t=matchMedia('(prefers-color-scheme: dark)').matches?'dark':'light';document.documentElement.dataset.theme=t}catch(e){}`;
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+/** Every page renders per request: its scripts carry that request's CSP nonce (proxy.ts). */
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const nonce = (await headers()).get('x-nonce') ?? undefined;
   return (
     <html lang="en" className={`${text.variable} ${figures.variable}`} suppressHydrationWarning>
       <head>
-        <script dangerouslySetInnerHTML={{ __html: themeScript }} />
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
       <body className="min-h-screen font-sans text-base antialiased">
         <Providers>{children}</Providers>

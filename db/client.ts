@@ -1,7 +1,7 @@
 /**
  * The one database client per process. Embedded PGlite in the data directory by default — opened lazily on
  * first use, kept on globalThis so every route bundle shares it, migrated once behind one promise, guarded by a
- * PID lock and closed on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a
+ * PID lock and closed by the server on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a
  * PostgreSQL server through node-postgres, with the same migrations.
  */
 import { mkdirSync } from 'node:fs';
@@ -72,60 +72,34 @@ export function dataDir(): string {
   return process.env.CRANKPRINT_DATA_DIR || '.data';
 }
 
-type Holder = { ready?: Promise<Database>; hooked?: boolean; working: number; drained?: () => void; closing?: boolean };
-const g = globalThis as unknown as { __crankprintDb?: Holder };
-const holder: Holder = (g.__crankprintDb ??= { working: 0 });
+type Holder = { ready?: Promise<Database> };
+const g = globalThis as unknown as { __crankprintDb?: Holder; __crankprintLife?: Life };
+const holder: Holder = (g.__crankprintDb ??= {});
 
-/**
- * Marks a request as using the database until the returned function is called. On SIGTERM new requests are
- * turned away (see {@link shuttingDown}), the requests under way finish (up to 10 s), and only then is the
- * database closed. `npm start` sets NEXT_MANUAL_SIG_HANDLE so that Next.js leaves the signal to this.
- */
-export function beginWork(): () => void {
-  holder.working++;
-  let done = false;
-  return () => {
-    if (done) return;
-    done = true;
-    if (--holder.working === 0) holder.drained?.();
-  };
+/** What the server (scripts/serve.mjs) shares with the app in its process: whether it is stopping. */
+interface Life {
+  stopping: boolean;
+  cutOff: boolean;
+  closeDatabase?: () => Promise<void>;
 }
+const life: Life = (g.__crankprintLife ??= { stopping: false, cutOff: false });
 
 /** True once SIGTERM or SIGINT has arrived: handlers answer 503 rather than start work. */
 export function shuttingDown(): boolean {
-  return !!holder.closing;
+  return life.stopping;
 }
 
-function drain(timeoutMs: number): Promise<void> {
-  if (holder.working === 0) return Promise.resolve();
-  return new Promise((resolve) => {
-    const timer = setTimeout(resolve, timeoutMs);
-    holder.drained = () => {
-      clearTimeout(timer);
-      resolve();
-    };
-  });
+/** True when the server is about to close the database: work still running (a long upload) gives up with a 503. */
+export function pastCutOff(): boolean {
+  return life.cutOff;
 }
 
 /** The process's database, opened and migrated on first use. Every handler awaits this before a query. */
 export function getDatabase(): Promise<Database> {
   holder.ready ??= (async () => {
     const d = await openDatabase(process.env.DATABASE_URL ? { url: process.env.DATABASE_URL } : { dataDir: dataDir() });
-    if (!holder.hooked) {
-      holder.hooked = true;
-      const shutdown = (signal: NodeJS.Signals) => {
-        holder.closing = true;
-        // A moment for requests already accepted to reach a handler (and be turned away), then the drain.
-        new Promise((r) => setTimeout(r, 300))
-          .then(() => drain(10_000))
-          .then(() => d.close())
-          .catch(() => {})
-          // The last handlers have returned, but their responses may still be on their way out.
-          .finally(() => setTimeout(() => process.exit(signal === 'SIGINT' ? 130 : 143), 500));
-      };
-      process.once('SIGINT', shutdown);
-      process.once('SIGTERM', shutdown);
-    }
+    // The server closes it once the requests under way have finished (scripts/serve.mjs).
+    life.closeDatabase = () => d.close();
     // Demo mode seeds an invented shop into an empty database.
     if (process.env.CRANKPRINT_DEMO === '1') await (await import('./seed')).seedDemoIfEmpty(d.db);
     return d;

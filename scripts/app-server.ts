@@ -1,6 +1,6 @@
 /**
- * `next start` as a child process for the fault tests and the load benchmark: its own port and database, the
- * demo shop seeded, signals handled by Crankprint (NEXT_MANUAL_SIG_HANDLE), mail to a closed port.
+ * Crankprint's server (`npm start`: scripts/serve.mjs) as a child process for the fault tests and the load
+ * benchmark: its own port and database, the demo shop seeded, mail to a closed port.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
 
@@ -11,7 +11,7 @@ export interface AppServer {
 
 export function startApp(port: number, env: Record<string, string>, options: { detached?: boolean } = {}): AppServer {
   const base = `http://127.0.0.1:${port}`;
-  const child = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', String(port)], {
+  const child = spawn(process.execPath, ['scripts/serve.mjs'], {
     detached: options.detached,
     stdio: ['ignore', 'ignore', 'pipe'],
     env: {
@@ -20,7 +20,7 @@ export function startApp(port: number, env: Record<string, string>, options: { d
       BETTER_AUTH_URL: base,
       BETTER_AUTH_SECRET: 'child-server-secret-0123456789abcdef0123456789',
       NEXT_TELEMETRY_DISABLED: '1',
-      NEXT_MANUAL_SIG_HANDLE: '1',
+      PORT: String(port),
       SMTP_URL: 'smtp://127.0.0.1:9',
       ...env,
     },

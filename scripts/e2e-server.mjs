@@ -1,5 +1,5 @@
 // The server the browser tests run against: a fresh data directory (or, in the PostgreSQL pass, a fresh
-// database) and mail folder, the mail sink, and `next start` on 127.0.0.1 with the demo shop seeded.
+// database) and mail folder, the mail sink, and Crankprint's server (`npm start`) on 127.0.0.1 with the demo shop seeded.
 import { spawn } from 'node:child_process';
 import { rmSync } from 'node:fs';
 import { createDatabase } from './pg-server.mjs';
@@ -21,13 +21,13 @@ const env = {
   BETTER_AUTH_URL: `http://127.0.0.1:${port}`,
   BETTER_AUTH_SECRET: process.env.BETTER_AUTH_SECRET || 'e2e-only-secret-0123456789abcdef0123456789',
   NEXT_TELEMETRY_DISABLED: '1',
-  NEXT_MANUAL_SIG_HANDLE: '1',
+  PORT: port,
 };
 // The PostgreSQL pass of `npm test`: a fresh database on the test server instead of the embedded one.
 if (process.env.CRANKPRINT_TEST_PG_URL) env.DATABASE_URL = await createDatabase(process.env.CRANKPRINT_TEST_PG_URL, 'e2e');
 const children = [
   spawn(process.execPath, ['scripts/mail-sink.mjs'], { stdio: 'inherit', env }),
-  spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', port], { stdio: 'inherit', env }),
+  spawn(process.execPath, ['scripts/serve.mjs'], { stdio: 'inherit', env }),
 ];
 const stop = () => children.forEach((c) => c.kill('SIGTERM'));
 process.on('SIGINT', stop);

@@ -11,6 +11,7 @@ import { getDb } from '@/db/client';
 import * as schema from '@/db/schema';
 import { recordAudit } from '@/db/queries/audit';
 import { sendMail } from './mail';
+import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
 import { ac, roles } from './permissions';
 
 export const APP_URL = process.env.BETTER_AUTH_URL || 'http://127.0.0.1:3000';
@@ -28,33 +29,17 @@ const SERVER_ONLY_PATHS = [
   '/organization/add-member',
 ];
 
-/** Attempts allowed per minute and client on the sensitive endpoints; CRANKPRINT_RATE_LIMIT_SCALE raises them for tests. */
-const scale = Math.max(1, Number(process.env.CRANKPRINT_RATE_LIMIT_SCALE) || 1);
-const RATE_LIMIT = {
-  enabled: true,
-  window: 60,
-  max: 200 * scale,
-  customRules: {
-    '/sign-in/email': { window: 60, max: 10 * scale },
-    '/sign-up/email': { window: 60, max: 5 * scale },
-    '/request-password-reset': { window: 60, max: 5 * scale },
-    '/reset-password': { window: 60, max: 10 * scale },
-  },
-};
-
 /** Loopback http is the only place cookies may travel without TLS (a trial or test on this machine). */
 const LOOPBACK = /^http:\/\/(127\.0\.0\.1|localhost|\[::1\])(:\d+)?\/?$/;
 const SECURE_COOKIES = APP_URL.startsWith('https:') || (process.env.NODE_ENV === 'production' && !LOOPBACK.test(APP_URL));
-/** Proxies whose X-Forwarded-For hop is trusted, so rate limits count per client (README: several instances). */
-const TRUSTED_PROXIES = (process.env.CRANKPRINT_TRUSTED_PROXIES ?? '').split(',').map((s) => s.trim()).filter(Boolean);
-
 if (SECURE_COOKIES && !APP_URL.startsWith('https:')) {
   console.warn(`BETTER_AUTH_URL is ${APP_URL}: sign-in cookies are marked Secure in production and browsers send them only over HTTPS; serve Crankprint over HTTPS.`);
 }
 
 function build(db: Awaited<ReturnType<typeof getDb>>) {
   return betterAuth({
-    rateLimit: RATE_LIMIT,
+    // Counted per client and purpose in the auth route (server/rate-limit.ts), shared across instances.
+    rateLimit: { enabled: false },
     appName: 'Crankprint',
     baseURL: APP_URL,
     secret: process.env.BETTER_AUTH_SECRET,
@@ -67,7 +52,8 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
       disableCSRFCheck: false,
       useSecureCookies: SECURE_COOKIES,
       cookiePrefix: 'crankprint',
-      ipAddress: { trustedProxies: TRUSTED_PROXIES },
+      // The address the server took from the socket or its trusted proxies (scripts/serve.mjs).
+      ipAddress: { ipAddressHeaders: [CLIENT_HEADER] },
     },
     emailAndPassword: {
       enabled: true,

@@ -12,6 +12,8 @@ export class HttpError extends Error {
   readonly fields?: Record<string, string>;
   /** More about the error, merged into the body's `error` object (e.g. the engine's line and column). */
   detail?: Record<string, unknown>;
+  /** For a 429: seconds until the client may try again (sent as Retry-After). */
+  retryAfterS?: number;
   constructor(status: number, code: string, message: string, fields?: Record<string, string>) {
     super(message);
     this.status = status;
@@ -34,5 +36,6 @@ export function fieldErrors(e: ZodError): Record<string, string> {
 }
 
 export function errorResponse(e: HttpError): NextResponse<ApiErrorBody> {
-  return NextResponse.json({ error: { ...e.detail, code: e.code, message: e.message, fields: e.fields } }, { status: e.status });
+  const headers = e.retryAfterS ? { 'retry-after': String(e.retryAfterS) } : undefined;
+  return NextResponse.json({ error: { ...e.detail, code: e.code, message: e.message, fields: e.fields } }, { status: e.status, headers });
 }

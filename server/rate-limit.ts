@@ -1,20 +1,74 @@
-/** A per-process sliding-window limit for the public share-link routes (several instances: put it in front). */
+/**
+ * One budget per client and purpose, counted by rate-limiter-flexible: in PostgreSQL when DATABASE_URL is set
+ * (every instance on that server shares the counts), in memory on the embedded database (one process holds it).
+ * The client is the address the server took from the socket or its trusted proxies (scripts/serve.mjs).
+ */
 import 'server-only';
+import { RateLimiterDrizzle, type RateLimiterAbstract, RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
+import { getDb } from '@/db/client';
+import { rateLimits } from '@/db/schema';
+import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
+import { HttpError } from './http';
 
-const hits = new Map<string, number[]>();
+/** CRANKPRINT_RATE_LIMIT_SCALE multiplies every budget (the browser tests share one loopback address). */
+const scale = Math.max(1, Number(process.env.CRANKPRINT_RATE_LIMIT_SCALE) || 1);
 
-/** true when the key is still within `max` hits per `windowMs`; records this hit. */
-export function allow(key: string, max: number, windowMs = 60_000): boolean {
-  const now = Date.now();
-  const list = (hits.get(key) ?? []).filter((t) => now - t < windowMs);
-  list.push(now);
-  hits.set(key, list);
-  if (hits.size > 10_000) for (const [k, v] of hits) if (now - v[v.length - 1] > windowMs) hits.delete(k);
-  return list.length <= max;
+/** Attempts per client per minute. `share` counts the customer's page and its API together. */
+export const BUDGETS = {
+  share: 30,
+  'sign-in': 10,
+  'sign-up': 5,
+  'password-reset': 5,
+  auth: 200,
+} as const;
+export type Purpose = keyof typeof BUDGETS;
+
+const WINDOW_S = 60;
+
+const g = globalThis as unknown as { __crankprintLimiters?: Promise<Record<Purpose, RateLimiterAbstract>> };
+
+async function build(): Promise<Record<Purpose, RateLimiterAbstract>> {
+  const db = process.env.DATABASE_URL ? await getDb() : null;
+  const make = (purpose: Purpose): RateLimiterAbstract => {
+    const opts = { keyPrefix: purpose, points: BUDGETS[purpose] * scale, duration: WINDOW_S };
+    return db ? new RateLimiterDrizzle({ ...opts, storeClient: db, schema: rateLimits }) : new RateLimiterMemory(opts);
+  };
+  return Object.fromEntries((Object.keys(BUDGETS) as Purpose[]).map((p) => [p, make(p)])) as Record<Purpose, RateLimiterAbstract>;
 }
 
-export function clientKey(headers: Headers): string {
-  return headers.get('x-forwarded-for')?.split(',')[0].trim() || headers.get('x-real-ip') || 'local';
+let warned = false;
+/** The client's address as the server wrote it; one shared key (and a warning) when the app runs without it. */
+export function clientOf(headers: Headers): string {
+  if (process.env.CRANKPRINT_SERVED === '1') return headers.get(CLIENT_HEADER) || 'unknown';
+  if (!warned) {
+    warned = true;
+    console.warn('Crankprint is running without its server (npm start): every client shares one rate-limit budget.');
+  }
+  return 'unserved';
 }
 
-export const PUBLIC_LIMIT_PER_MIN = 30 * Math.max(1, Number(process.env.CRANKPRINT_RATE_LIMIT_SCALE) || 1);
+/** Counts one attempt; a 429 with a sentence (and Retry-After) once the client's budget for `purpose` is spent. */
+export async function spend(purpose: Purpose, headers: Headers): Promise<void> {
+  g.__crankprintLimiters ??= build();
+  const limiters = await g.__crankprintLimiters;
+  try {
+    await limiters[purpose].consume(clientOf(headers));
+  } catch (e) {
+    if (!(e instanceof RateLimiterRes)) throw e;
+    const seconds = Math.max(1, Math.ceil(e.msBeforeNext / 1000));
+    const err = new HttpError(429, 'RATE_LIMITED', `Too many attempts from your address; wait ${seconds} s and try again.`);
+    err.retryAfterS = seconds;
+    throw err;
+  }
+}
+
+/** True while the client's budget lasts (for pages, which answer with their own not-found). */
+export async function withinBudget(purpose: Purpose, headers: Headers): Promise<boolean> {
+  try {
+    await spend(purpose, headers);
+    return true;
+  } catch (e) {
+    if (e instanceof HttpError && e.status === 429) return false;
+    throw e;
+  }
+}

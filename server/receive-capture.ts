@@ -7,6 +7,7 @@
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { CHUNK_BYTES, compressPiece } from '@/db/chunks';
+import { pastCutOff } from '@/db/client';
 import type { EngineSpec } from '@/db/schema';
 import { engineSettings, settingsForEngine } from '@/db/validators/analysis';
 import { analyzeCapture, type CaptureError, CaptureImporter, isCaptureError, MAX_CAPTURE_BYTES, refusalFor } from '@/signal';
@@ -82,6 +83,7 @@ export async function receiveCapture(body: ReadableStream<Uint8Array>, length: n
     for (;;) {
       const { done, value } = await reader.read();
       if (done) break;
+      if (pastCutOff()) throw new HttpError(503, 'RESTARTING', 'The server restarted during the upload and nothing was stored; upload the file again.');
       size += value.length;
       if (size > MAX_CAPTURE_BYTES) throw tooLarge();
       pending.push(value);

@@ -6,14 +6,14 @@ import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { type NextRequest, NextResponse } from 'next/server';
 import { z } from 'zod';
-import { beginWork, getDb, shuttingDown } from '@/db/client';
+import { getDb, shuttingDown } from '@/db/client';
 import { members, organizations } from '@/db/schema';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { findNul, readLimited } from './request-body';
 import { checkOrigin } from './origin';
 import { can, type Permission, type RoleName } from './permissions';
-import { allow, clientKey, PUBLIC_LIMIT_PER_MIN } from './rate-limit';
+import { spend } from './rate-limit';
 
 export interface SessionContext {
   user: { id: string; name: string; email: string };
@@ -112,13 +112,11 @@ function describe(permission: Permission): string {
 }
 
 /**
- * What every wrapper does around its own checks: the request counts as work under way (so SIGTERM waits for
- * it), is admitted, runs, and its return value is sent as JSON (a Response is passed through) or its error as
+ * What every wrapper does around its own checks: the request is admitted, runs, and its return value is sent as JSON (a Response is passed through) or its error as
  * the typed error body. With `rawBody` the handler streams the body itself and may stop part-way: on an error
  * the rest is let go and the connection closed, so the client hears the answer.
  */
 async function respond(req: NextRequest, work: () => Promise<unknown>, rawBody = false): Promise<Response> {
-  const done = beginWork();
   try {
     admit(req);
     const out = await work();
@@ -132,8 +130,6 @@ async function respond(req: NextRequest, work: () => Promise<unknown>, rawBody =
       res.headers.set('connection', 'close');
     }
     return res;
-  } finally {
-    done();
   }
 }
 
@@ -189,9 +185,7 @@ export function withSession<S extends z.ZodType>(schema: S, handler: (ctx: Sessi
 export function withPublic<S extends z.ZodType>(schema: S, handler: (ctx: { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
   return (req: NextRequest, context: { params: Params }): Promise<Response> =>
     respond(req, async () => {
-      if (!allow(`public:${clientKey(req.headers)}`, PUBLIC_LIMIT_PER_MIN)) {
-        throw new HttpError(429, 'RATE_LIMITED', 'Too many requests; wait a minute and try again.');
-      }
+      await spend('share', req.headers);
       const input = await parseInput(schema, req, (await context.params) ?? {});
       return handler({ input, req });
     });

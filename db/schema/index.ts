@@ -1,2 +1,3 @@
 export * from './auth';
 export * from './shop';
+export * from './limits';

@@ -155,9 +155,9 @@ test('a second server on the same data directory refuses to start, naming the pr
   const server = startServer();
   await waitReady(server);
   const { spawn } = await import('node:child_process');
-  const second = spawn(process.execPath, ['node_modules/next/dist/bin/next', 'start', '-H', '127.0.0.1', '-p', '0'], {
+  const second = spawn(process.execPath, ['scripts/serve.mjs'], {
     stdio: ['ignore', 'ignore', 'pipe'],
-    env: { ...process.env, CRANKPRINT_DATA_DIR: DATA, NEXT_TELEMETRY_DISABLED: '1', BETTER_AUTH_SECRET: 'child-server-secret-0123456789abcdef0123456789' },
+    env: { ...process.env, PORT: '0', CRANKPRINT_DATA_DIR: DATA, NEXT_TELEMETRY_DISABLED: '1', BETTER_AUTH_SECRET: 'child-server-secret-0123456789abcdef0123456789' },
   });
   let stderr = '';
   second.stderr!.on('data', (d) => (stderr += String(d)));

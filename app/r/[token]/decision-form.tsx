@@ -11,7 +11,8 @@ export function DecisionForm({ token, revision }: { token: string; revision: num
   const send = async (decision: 'approve' | 'decline') => {
     setError(null);
     try {
-      await api('/api/public/decision', { method: 'POST', json: { token, decision, typedName: name } });
+      // This page sends no Referer elsewhere; to our own server it names itself, for the origin check.
+      await api('/api/public/decision', { method: 'POST', json: { token, decision, typedName: name }, referrerPolicy: 'same-origin' });
       setDone(decision === 'approve' ? 'Thank you: you approved the recommended next step. The shop has been told.' : 'Thank you: you declined for now. The shop has been told.');
     } catch (e) {
       setError(e instanceof ApiError ? (e.fields.typedName ?? e.message) : 'That did not go through; try again.');

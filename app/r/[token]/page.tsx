@@ -5,7 +5,7 @@ import { notFound } from 'next/navigation';
 import { LogoMark } from '@/components/brand/logo';
 import { CylinderBars } from '@/components/analysis/cylinder-bars';
 import { findShareLink, reportBundle } from '@/db/queries/reports';
-import { allow, clientKey, PUBLIC_LIMIT_PER_MIN } from '@/server/rate-limit';
+import { withinBudget } from '@/server/rate-limit';
 import type { AnalysisResult } from '@/signal';
 import { DecisionForm } from './decision-form';
 
@@ -14,7 +14,13 @@ export const metadata: Metadata = { title: 'Your vehicle’s test result', robot
 
 export default async function CustomerReport({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  if (!allow(`public:${clientKey(await headers())}`, PUBLIC_LIMIT_PER_MIN)) notFound();
+  if (!(await withinBudget('share', await headers()))) {
+    return (
+      <main className="mx-auto max-w-2xl px-4 py-8 text-lg">
+        <p role="alert">Too many attempts from your address to open report links. Wait a minute, then reload this page.</p>
+      </main>
+    );
+  }
   const link = await findShareLink(token);
   const b = link && (await reportBundle(link.shopId, link.reportId));
   if (!link || !b) notFound();

@@ -1,17 +1,26 @@
 /**
  * better-auth's own endpoints: sign-up, sign-in, sign-out, e-mail verification, password reset, session,
- * invitations. Their bodies are read here with the JSON limit while they stream, then handed on.
+ * invitations. Each POST spends the client's budget for its purpose (server/rate-limit.ts); bodies are read
+ * with the JSON limit while they stream, then handed on.
  */
-import { beginWork } from '@/db/client';
 import { getAuth } from '@/server/auth';
 import { errorResponse, HttpError } from '@/server/http';
+import { type Purpose, spend } from '@/server/rate-limit';
 import { readLimited } from '@/server/request-body';
 
+/** Which budget a POST to better-auth spends, by the path after /api/auth. */
+function purposeOf(path: string): Purpose {
+  if (path.startsWith('/sign-in')) return 'sign-in';
+  if (path.startsWith('/sign-up')) return 'sign-up';
+  if (path === '/request-password-reset' || path === '/reset-password' || path === '/send-verification-email') return 'password-reset';
+  return 'auth';
+}
+
 async function handle(req: Request): Promise<Response> {
-  const done = beginWork();
   try {
     let forward = req;
     if (req.method !== 'GET' && req.method !== 'HEAD') {
+      await spend(purposeOf(new URL(req.url).pathname.replace(/^\/api\/auth/, '')), req.headers);
       const body = await readLimited(req);
       forward = new Request(req.url, { method: req.method, headers: req.headers, body: body as unknown as BodyInit, signal: req.signal });
     }
@@ -20,8 +29,6 @@ async function handle(req: Request): Promise<Response> {
   } catch (e) {
     if (e instanceof HttpError) return errorResponse(e);
     throw e;
-  } finally {
-    done();
   }
 }
 

@@ -1,0 +1,84 @@
+// npm start (and, with --dev, npm run demo): Next.js behind Crankprint's own HTTP server, which
+//   1. names the client from the socket, or from the forwarded chain behind CRANKPRINT_TRUSTED_PROXIES, in a
+//      header only it writes (scripts/client-address.mjs);
+//   2. gives every request an id, returned in X-Request-Id and carried into the logs;
+//   3. on SIGTERM or SIGINT stops listening, answers new requests 503, lets the ones under way finish, tells
+//      any still running at STOP_AFTER_MS - CUTOFF_MS to give up with a 503, closes the database and exits
+//      (143 / 130) within STOP_AFTER_MS.
+// PORT (default 3000) and HOST (default 127.0.0.1) say where it listens.
+import { randomUUID } from 'node:crypto';
+import { createServer } from 'node:http';
+import { CLIENT_HEADER, clientAddress, trustFrom } from './client-address.mjs';
+
+export const STOP_AFTER_MS = 10_000;
+const CUTOFF_MS = 2_000;
+const dev = process.argv.includes('--dev');
+const port = Number(process.env.PORT || 3000);
+const hostname = process.env.HOST || '127.0.0.1';
+const trust = trustFrom(process.env.CRANKPRINT_TRUSTED_PROXIES);
+
+// Shared with the app's modules in this process (db/client.ts reads it): stopping, and the cut-off for
+// requests still running.
+const life = (globalThis.__crankprintLife ??= { stopping: false, cutOff: false });
+process.env.CRANKPRINT_SERVED = '1';
+
+process.env.NODE_ENV ??= dev ? 'development' : 'production';
+const { default: next } = await import('next');
+const app = next({ dev, hostname, port });
+const handle = app.getRequestHandler();
+await app.prepare();
+
+const open = new Set();
+let allDone = null;
+
+const server = createServer((req, res) => {
+  const id = randomUUID();
+  res.setHeader('X-Request-Id', id);
+  if (life.stopping) {
+    res.writeHead(503, { 'content-type': 'application/json', 'cache-control': 'no-store', 'retry-after': '5', connection: 'close' });
+    res.end(JSON.stringify({ error: { code: 'RESTARTING', message: 'The server is restarting; try again in a few seconds.' } }));
+    return;
+  }
+  delete req.headers[CLIENT_HEADER];
+  req.headers[CLIENT_HEADER] = clientAddress(req, trust);
+  req.headers['x-request-id'] = id;
+  open.add(res);
+  res.once('close', () => {
+    open.delete(res);
+    if (open.size === 0) allDone?.();
+  });
+  handle(req, res).catch((e) => {
+    console.error(e);
+    if (!res.headersSent) res.writeHead(500).end();
+  });
+});
+
+const settled = (ms) => new Promise((resolve) => {
+  if (open.size === 0) return resolve();
+  const timer = setTimeout(resolve, ms);
+  allDone = () => {
+    clearTimeout(timer);
+    resolve();
+  };
+});
+
+async function stop(signal) {
+  if (life.stopping) return;
+  life.stopping = true;
+  server.close();
+  server.closeIdleConnections();
+  await settled(STOP_AFTER_MS - CUTOFF_MS);
+  // Still running: uploads stop reading and answer 503; then whatever is left is cut.
+  life.cutOff = true;
+  await settled(CUTOFF_MS / 2);
+  server.closeAllConnections();
+  await life.closeDatabase?.().catch(() => {});
+  await Promise.race([app.close().catch(() => {}), new Promise((r) => setTimeout(r, 300))]);
+  process.exit(signal === 'SIGINT' ? 130 : 143);
+}
+process.once('SIGTERM', () => stop('SIGTERM'));
+process.once('SIGINT', () => stop('SIGINT'));
+
+server.listen(port, hostname, () => {
+  console.log(`Crankprint ${dev ? '(development) ' : ''}listening on http://${hostname}:${server.address().port}`);
+});

@@ -1,0 +1,1 @@
+export function contentSecurityPolicy(o?: { nonce?: string; frameAncestors?: string; dev?: boolean }): string;
