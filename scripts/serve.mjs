@@ -2,9 +2,9 @@
 //   1. names the client from the socket, or from the forwarded chain behind CRANKPRINT_TRUSTED_PROXIES, in a
 //      header only it writes (scripts/client-address.mjs);
 //   2. gives every request an id, returned in X-Request-Id and carried into the logs;
-//   3. on SIGTERM or SIGINT stops listening, answers new requests 503, lets the ones under way finish, tells
-//      any still running at STOP_AFTER_MS - CUTOFF_MS to give up with a 503, closes the database and exits
-//      (143 / 130) within STOP_AFTER_MS.
+//   3. on SIGTERM or SIGINT answers new requests 503, lets the ones under way finish, tells any still running
+//      at STOP_AFTER_MS - CUTOFF_MS to give up (uploads stop reading and answer 503), answers 503 itself for
+//      any left at the end, closes the database and exits (143 / 130) within STOP_AFTER_MS.
 // PORT (default 3000) and HOST (default 127.0.0.1) say where it listens.
 import { randomUUID } from 'node:crypto';
 import { createServer } from 'node:http';
@@ -65,12 +65,20 @@ const settled = (ms) => new Promise((resolve) => {
 async function stop(signal) {
   if (life.stopping) return;
   life.stopping = true;
-  server.close();
+  // Keep listening so that new requests hear a 503 rather than a refused connection; idle ones close.
   server.closeIdleConnections();
   await settled(STOP_AFTER_MS - CUTOFF_MS);
-  // Still running: uploads stop reading and answer 503; then whatever is left is cut.
+  // Still running: uploads stop reading and answer 503.
   life.cutOff = true;
   await settled(CUTOFF_MS / 2);
+  // Still running after that (a store or an analysis): the client hears a 503 before the database closes.
+  for (const res of open) {
+    if (!res.headersSent) {
+      res.writeHead(503, { 'content-type': 'application/json', 'cache-control': 'no-store', connection: 'close' });
+      res.end(JSON.stringify({ error: { code: 'RESTARTING', message: 'The server restarted before this finished; check the job, and send it again if it is not there.' } }));
+    }
+  }
+  server.close();
   server.closeAllConnections();
   await life.closeDatabase?.().catch(() => {});
   await Promise.race([app.close().catch(() => {}), new Promise((r) => setTimeout(r, 300))]);
