@@ -1,11 +1,12 @@
 /**
  * npm run bench:load — a bounded load test on loopback against `next start` (build first), on the embedded
  * database and, when PostgreSQL's server programs are installed, on a throwaway PostgreSQL server:
- *   1. the jobs list and capture metadata, 50 connections for 30 s (autocannon);
+ *   1. GET /api/health and GET /api/jobs (signed in), the same way: 50 connections for 30 s each (autocannon);
  *   2. 10 concurrent 10 MB uploads, three times.
- * Prints p50/p95/p99 latency, requests per second and errors, then one line
- * `load: pglite_p95_ms=X pg_p95_ms=X upload_p95_ms=X errors=N` (upload: the slower of the two databases).
- * LOAD_SECONDS shortens the first part for a quick look. Timings are reported, never asserted.
+ * Prints p50/p95/p99 latency, requests per second and errors, then one line with, per database, both routes'
+ * throughput and p95 and the ratios jobs/health (targets: throughput ratio >= 0.5, p95 ratio <= 2.5), the
+ * upload p95 (the slower database) and the error count. LOAD_SECONDS shortens part 1 and LOAD_UPLOADS=0
+ * leaves part 2 out, for a quick look. Timings are reported, never asserted.
  */
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -42,24 +43,13 @@ function figures(latencies: number[], errors: number, seconds: number): Figures 
   return { p50: percentile(s, 50), p95: percentile(s, 95), p99: percentile(s, 99), rps: latencies.length / seconds, requests: latencies.length, errors };
 }
 
-/** The jobs list and a capture's metadata, alternately, from 50 connections. */
-async function readLoad(cookie: string): Promise<Figures> {
-  const jobs = (await (await fetch(`${BASE}/api/jobs`, { headers: { cookie } })).json()).jobs as { id: string }[];
-  const captures = (await (await fetch(`${BASE}/api/jobs/${jobs[0].id}/captures`, { headers: { cookie } })).json()).captures as { id: string }[];
+/** One route from 50 connections for SECONDS, every answer's latency kept; anything but 200 is an error. */
+async function cannon(path: string, cookie?: string): Promise<Figures> {
   const latencies: number[] = [];
   let bad = 0;
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
     const instance = autocannon(
-      {
-        url: BASE,
-        connections: CONNECTIONS,
-        duration: SECONDS,
-        headers: { cookie },
-        requests: [
-          { method: 'GET', path: '/api/jobs' },
-          { method: 'GET', path: `/api/captures/${captures[0].id}` },
-        ],
-      },
+      { url: `${BASE}${path}`, connections: CONNECTIONS, duration: SECONDS, headers: cookie ? { cookie } : {} },
       (err, res) => (err ? reject(err) : resolve(res)),
     );
     instance.on('response', (_client, status, _bytes, ms) => {
@@ -104,11 +94,14 @@ async function run(label: string, env: Record<string, string>, body: string) {
   try {
     await waitReady(server);
     const cookie = await signInCookie(BASE, 'tech@demo.crankprint.test');
-    const read = await readLoad(cookie);
-    console.log(`${label}: jobs list + capture metadata, ${CONNECTIONS} connections, ${SECONDS} s: ${fmt(read)}`);
-    const upload = await uploadLoad(cookie, body);
-    console.log(`${label}: ${UPLOADS} concurrent ${(body.length / 1048576).toFixed(1)} MB uploads × ${UPLOAD_ROUNDS}: ${fmt(upload)}`);
-    return { read, upload };
+    // The same way for both: the health check (no session, one query) and the jobs list (a session).
+    const health = await cannon('/api/health');
+    console.log(`${label}: GET /api/health, ${CONNECTIONS} connections, ${SECONDS} s: ${fmt(health)}`);
+    const jobs = await cannon('/api/jobs', cookie);
+    console.log(`${label}: GET /api/jobs (signed in), ${CONNECTIONS} connections, ${SECONDS} s: ${fmt(jobs)}`);
+    const upload = process.env.LOAD_UPLOADS === '0' ? figures([], 0, 1) : await uploadLoad(cookie, body);
+    if (upload.requests) console.log(`${label}: ${UPLOADS} concurrent ${(body.length / 1048576).toFixed(1)} MB uploads × ${UPLOAD_ROUNDS}: ${fmt(upload)}`);
+    return { health, jobs, upload };
   } finally {
     server.child.kill('SIGTERM');
     await exited(server.child);
@@ -141,8 +134,13 @@ if (pg) {
 } else {
   console.log('PostgreSQL server programs are not installed: its figures are left out (apt-get install postgresql-15).');
 }
-const errors = Object.values(results).reduce((n, r) => n + r.read.errors + r.upload.errors, 0);
-const uploadP95 = Math.max(...Object.values(results).map((r) => r.upload.p95));
-const n = (v: number | undefined) => (v === undefined ? 'na' : v.toFixed(0));
-console.log(`load: pglite_p95_ms=${n(results.pglite?.read.p95)} pg_p95_ms=${n(results.pg?.read.p95)} upload_p95_ms=${n(uploadP95)} errors=${errors}`);
+const errors = Object.values(results).reduce((n, r) => n + r.health.errors + r.jobs.errors + r.upload.errors, 0);
+const uploadP95 = Math.max(...Object.values(results).map((r) => r.upload.p95 || 0));
+const n = (v: number | undefined) => (v === undefined || Number.isNaN(v) ? 'na' : v.toFixed(0));
+const ratio = (a: number | undefined, b: number | undefined) => (a === undefined || b === undefined ? 'na' : (a / b).toFixed(2));
+// Targets (issue: load): jobs throughput >= 0.5 x health's, jobs p95 <= 2.5 x health's.
+const parts = Object.entries(results).map(
+  ([db, r]) => `${db}_jobs_rps=${n(r.jobs.rps)} ${db}_health_rps=${n(r.health.rps)} ${db}_jobs_p95_ms=${n(r.jobs.p95)} ${db}_health_p95_ms=${n(r.health.p95)} ${db}_rps_ratio=${ratio(r.jobs.rps, r.health.rps)} ${db}_p95_ratio=${ratio(r.jobs.p95, r.health.p95)}`,
+);
+console.log(`load: ${parts.join(' ')} upload_p95_ms=${n(uploadP95)} errors=${errors}`);
 process.exit(errors === 0 ? 0 : 1);

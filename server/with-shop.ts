@@ -10,6 +10,7 @@ import { getDb, shuttingDown } from '@/db/client';
 import { members, organizations } from '@/db/schema';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
+import { rememberMembership } from './membership-cache';
 import { findNul, readLimited } from './request-body';
 import { checkOrigin } from './origin';
 import { can, type Permission, type RoleName } from './permissions';
@@ -63,7 +64,11 @@ interface Membership {
 }
 
 /** The member's shop: the session's active shop, else their first membership; a 403 when they have none. */
-export async function resolveMembership(s: SessionContext): Promise<Membership> {
+export function resolveMembership(s: SessionContext): Promise<Membership> {
+  return rememberMembership(`${s.user.id}|${s.activeShopId ?? ''}`, () => lookUpMembership(s));
+}
+
+async function lookUpMembership(s: SessionContext): Promise<Membership> {
   const db = await getDb();
   const rows = await db
     .select({ memberId: members.id, role: members.role, shopId: organizations.id, shopName: organizations.name })
@@ -72,7 +77,7 @@ export async function resolveMembership(s: SessionContext): Promise<Membership> 
     .where(s.activeShopId ? and(eq(members.userId, s.user.id), eq(members.organizationId, s.activeShopId)) : eq(members.userId, s.user.id))
     .orderBy(asc(members.createdAt))
     .limit(1);
-  const row: Membership | undefined = rows[0] ?? (s.activeShopId ? await resolveMembership({ ...s, activeShopId: null }) : undefined);
+  const row: Membership | undefined = rows[0] ?? (s.activeShopId ? await lookUpMembership({ ...s, activeShopId: null }) : undefined);
   if (!row) throw new HttpError(403, 'NO_SHOP', 'You are not a member of a shop yet: create one, or accept an invitation from your shop owner.');
   return row;
 }

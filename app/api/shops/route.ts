@@ -5,6 +5,7 @@ import { getDb } from '@/db/client';
 import { recordAudit } from '@/db/queries/audit';
 import { members, organizations } from '@/db/schema';
 import { getAuth } from '@/server/auth';
+import { forgetMemberships } from '@/server/membership-cache';
 import { withSession } from '@/server/with-shop';
 
 export const POST = withSession(
@@ -15,6 +16,7 @@ export const POST = withSession(
     const shop = await auth.api.createOrganization({ body: { name: input.name, slug }, headers: req.headers });
     if (!shop) throw new Error('Shop not created');
     await auth.api.setActiveOrganization({ body: { organizationId: shop.id }, headers: req.headers });
+    forgetMemberships();
     await recordAudit(shop.id, user.id, 'shop.create', { type: 'shop', id: shop.id });
     return { shop: { id: shop.id, name: shop.name } };
   },

@@ -5,6 +5,7 @@
  */
 import { getAuth } from '@/server/auth';
 import { errorResponse, HttpError } from '@/server/http';
+import { forgetMemberships } from '@/server/membership-cache';
 import { type Purpose, spend } from '@/server/rate-limit';
 import { readLimited } from '@/server/request-body';
 
@@ -25,7 +26,10 @@ async function handle(req: Request): Promise<Response> {
       forward = new Request(req.url, { method: req.method, headers: req.headers, body: body as unknown as BodyInit, signal: req.signal });
     }
     const auth = await getAuth();
-    return await auth.handler(forward);
+    const res = await auth.handler(forward);
+    // Accepting an invitation or switching shops changes who is a member where.
+    if (req.method === 'POST' && req.url.includes('/organization/')) forgetMemberships();
+    return res;
   } catch (e) {
     if (e instanceof HttpError) return errorResponse(e);
     throw e;
