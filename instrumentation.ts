@@ -1,7 +1,21 @@
 /**
  * At server start (Next.js calls this once per server process): the Node.js server checks that it can open the
  * embedded database, so a second server on the same data directory stops at once (server/start-check.ts).
+ * Errors thrown while rendering a page are logged with their stack, the request id and Next.js's digest (the
+ * reference the error page shows).
  */
+import type { Instrumentation } from 'next';
+
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME === 'nodejs') await (await import('./server/start-check')).checkStart();
 }
+
+export const onRequestError: Instrumentation.onRequestError = async (error, request, context) => {
+  if (process.env.NEXT_RUNTIME !== 'nodejs') return;
+  const { log } = await import('./server/log');
+  const headers = request.headers as Record<string, string | string[] | undefined>;
+  log.error(
+    { err: error, requestId: headers['x-request-id'], digest: (error as { digest?: string }).digest, route: context.routePath, routeType: context.routeType, method: request.method },
+    'error while rendering',
+  );
+};

@@ -34,10 +34,12 @@ const themeScript = `try{var t=localStorage.getItem('crankprint-theme');if(!t)t=
 
 /** Every page renders per request: its scripts carry that request's CSP nonce (proxy.ts). */
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
-  const nonce = (await headers()).get('x-nonce') ?? undefined;
+  const h = await headers();
+  const nonce = h.get('x-nonce') ?? undefined;
   return (
     <html lang="en" className={`${text.variable} ${figures.variable}`} suppressHydrationWarning>
       <head>
+        <meta name="crankprint-request" content={h.get('x-request-id') ?? ''} />
         <script nonce={nonce} dangerouslySetInnerHTML={{ __html: themeScript }} />
       </head>
       <body className="min-h-screen font-sans text-base antialiased">

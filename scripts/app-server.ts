@@ -7,13 +7,15 @@ import { type ChildProcess, spawn } from 'node:child_process';
 export interface AppServer {
   child: ChildProcess;
   base: string;
+  /** Its standard output, line by line, when started with `logs: true`. */
+  lines: string[];
 }
 
-export function startApp(port: number, env: Record<string, string>, options: { detached?: boolean } = {}): AppServer {
+export function startApp(port: number, env: Record<string, string>, options: { detached?: boolean; logs?: boolean } = {}): AppServer {
   const base = `http://127.0.0.1:${port}`;
   const child = spawn(process.execPath, ['scripts/serve.mjs'], {
     detached: options.detached,
-    stdio: ['ignore', 'ignore', 'pipe'],
+    stdio: ['ignore', options.logs ? 'pipe' : 'ignore', 'pipe'],
     env: {
       ...process.env,
       CRANKPRINT_DEMO: '1',
@@ -26,7 +28,14 @@ export function startApp(port: number, env: Record<string, string>, options: { d
     },
   });
   child.stderr!.on('data', () => {});
-  return { child, base };
+  const lines: string[] = [];
+  let rest = '';
+  child.stdout?.on('data', (d) => {
+    const parts = (rest + String(d)).split('\n');
+    rest = parts.pop() ?? '';
+    lines.push(...parts);
+  });
+  return { child, base, lines };
 }
 
 /** Resolves once /api/health answers 200, which means the database opened. */

@@ -10,6 +10,7 @@ import { organization } from 'better-auth/plugins';
 import { getDb } from '@/db/client';
 import * as schema from '@/db/schema';
 import { recordAudit } from '@/db/queries/audit';
+import { log } from './log';
 import { sendMail } from './mail';
 import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
 import { ac, roles } from './permissions';
@@ -33,7 +34,7 @@ const SERVER_ONLY_PATHS = [
 const LOOPBACK = /^http:\/\/(127\.0\.0\.1|localhost|\[::1\])(:\d+)?\/?$/;
 const SECURE_COOKIES = APP_URL.startsWith('https:') || (process.env.NODE_ENV === 'production' && !LOOPBACK.test(APP_URL));
 if (SECURE_COOKIES && !APP_URL.startsWith('https:')) {
-  console.warn(`BETTER_AUTH_URL is ${APP_URL}: sign-in cookies are marked Secure in production and browsers send them only over HTTPS; serve Crankprint over HTTPS.`);
+  log.warn(`BETTER_AUTH_URL is ${APP_URL}: sign-in cookies are marked Secure in production and browsers send them only over HTTPS; serve Crankprint over HTTPS.`);
 }
 
 function build(db: Awaited<ReturnType<typeof getDb>>) {

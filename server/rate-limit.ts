@@ -9,6 +9,7 @@ import { getDb } from '@/db/client';
 import { rateLimits } from '@/db/schema';
 import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
 import { HttpError } from './http';
+import { log } from './log';
 
 /** CRANKPRINT_RATE_LIMIT_SCALE multiplies every budget (the browser tests share one loopback address). */
 const scale = Math.max(1, Number(process.env.CRANKPRINT_RATE_LIMIT_SCALE) || 1);
@@ -42,7 +43,7 @@ export function clientOf(headers: Headers): string {
   if (process.env.CRANKPRINT_SERVED === '1') return headers.get(CLIENT_HEADER) || 'unknown';
   if (!warned) {
     warned = true;
-    console.warn('Crankprint is running without its server (npm start): every client shares one rate-limit budget.');
+    log.warn('Crankprint is running without its server (npm start): every client shares one rate-limit budget.');
   }
   return 'unserved';
 }

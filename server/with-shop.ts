@@ -11,6 +11,7 @@ import { members, organizations } from '@/db/schema';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { rememberMembership } from './membership-cache';
+import { log, requestIdOf, shortId } from './log';
 import { findNul, readLimited } from './request-body';
 import { checkOrigin } from './origin';
 import { can, type Permission, type RoleName } from './permissions';
@@ -121,21 +122,31 @@ function describe(permission: Permission): string {
  * the typed error body. With `rawBody` the handler streams the body itself and may stop part-way: on an error
  * the rest is let go and the connection closed, so the client hears the answer.
  */
-async function respond(req: NextRequest, work: () => Promise<unknown>, rawBody = false): Promise<Response> {
+async function respond(req: NextRequest, work: (seen: Seen) => Promise<unknown>, rawBody = false): Promise<Response> {
+  const started = performance.now();
+  const seen: Seen = { requestId: requestIdOf(req.headers) };
+  let res: Response;
   try {
     admit(req);
-    const out = await work();
-    if (out instanceof Response) return out;
-    return NextResponse.json(out ?? { ok: true }, { headers: { 'cache-control': 'no-store' } });
+    const out = await work(seen);
+    res = out instanceof Response ? out : NextResponse.json(out ?? { ok: true }, { headers: { 'cache-control': 'no-store' } });
   } catch (e) {
-    const res = handleError(e);
+    res = handleError(e, seen);
     res.headers.set('cache-control', 'no-store');
     if (rawBody) {
       await req.body?.cancel().catch(() => {});
       res.headers.set('connection', 'close');
     }
-    return res;
   }
+  log.info({ requestId: seen.requestId, method: req.method, route: req.nextUrl.pathname, status: res.status, ms: Math.round(performance.now() - started), shopId: seen.shopId, memberId: seen.memberId }, 'request');
+  return res;
+}
+
+/** What the wrapper learnt about a request, for its log line. */
+interface Seen {
+  requestId: string;
+  shopId?: string;
+  memberId?: string;
 }
 
 /** Before any work: a request from another site is refused, and none is started while the server stops. */
@@ -144,10 +155,12 @@ function admit(req: Request): void {
   checkOrigin(req);
 }
 
-function handleError(e: unknown): Response {
+function handleError(e: unknown, seen: Seen): Response {
   if (e instanceof HttpError) return errorResponse(e);
-  console.error(e);
-  return errorResponse(new HttpError(500, 'INTERNAL', 'Something went wrong on the server; try again, and tell your shop owner if it keeps happening.'));
+  log.error({ err: e, requestId: seen.requestId, shopId: seen.shopId, memberId: seen.memberId }, 'unhandled error');
+  const err = new HttpError(500, 'INTERNAL', `Something went wrong on the server; try again, and if it keeps happening tell your shop owner the reference ${shortId(seen.requestId)}.`);
+  err.detail = { requestId: seen.requestId };
+  return errorResponse(err);
 }
 
 /**
@@ -158,9 +171,11 @@ export function withShop<S extends z.ZodType>(permission: Permission, schema: S,
   return (req: NextRequest, context: { params: Params }): Promise<Response> =>
     respond(
       req,
-      async () => {
+      async (seen) => {
         const session = await requireSession(req);
         const m = await resolveMembership(session);
+        seen.shopId = m.shopId;
+        seen.memberId = m.memberId;
         const role = m.role as RoleName;
         if (!can(role, permission)) {
           throw new HttpError(403, 'FORBIDDEN', `Your role (${role}) cannot ${describe(permission)}; ask your shop owner.`);

@@ -54,7 +54,7 @@ test.beforeAll(async () => {
   const env: Record<string, string> = { CRANKPRINT_DATA_DIR: DATA, CRANKPRINT_RATE_LIMIT_SCALE: '1', CRANKPRINT_TRUSTED_PROXIES: PROXY };
   // The PostgreSQL pass: the counts live in the database, as several instances would share them.
   if (process.env.CRANKPRINT_TEST_PG_URL) env.DATABASE_URL = await createDatabase(process.env.CRANKPRINT_TEST_PG_URL, 'limits');
-  server = startApp(PORT, env);
+  server = startApp(PORT, env, { logs: true });
   await waitReady(server);
 });
 
@@ -99,4 +99,33 @@ test('behind the trusted proxy, each forwarded client has its own budget; the pr
   // What that client wrote to the left of the proxy's hop does not make it someone else.
   expect((await hit(PROXY, 'POST', '/api/auth/sign-in/email', { json: wrongPassword, headers: { 'x-forwarded-for': '192.0.2.1, 198.51.100.7' } })).status).toBe(429);
   expect((await hit(PROXY, 'POST', '/api/auth/sign-in/email', { json: wrongPassword, headers: { 'x-forwarded-for': '198.51.100.8' } })).status).toBe(401);
+});
+
+test('every API request is one JSON log line with its request id, route, status, duration, shop and member; no secret', async () => {
+  const cookie = await new Promise<string>((resolve, reject) => {
+    const req = httpRequest(`${BASE}/api/auth/sign-in/email`, { method: 'POST', localAddress: '127.0.0.6', headers: { origin: BASE, 'content-type': 'application/json' } }, (res) => {
+      res.resume();
+      resolve((res.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; '));
+    });
+    req.on('error', reject);
+    req.end(JSON.stringify({ ...wrongPassword, password: 'crank-demo-2026' }));
+  });
+  const res = await fetch(`${BASE}/api/jobs?q=RO`, { headers: { cookie } });
+  expect(res.status).toBe(200);
+  const id = res.headers.get('x-request-id');
+  expect(id).toMatch(/^[0-9a-f-]{36}$/);
+  await expect.poll(() => server.lines.some((l) => l.includes(id!)), { timeout: 5_000 }).toBe(true);
+  const line = JSON.parse(server.lines.find((l) => l.includes(id!))!);
+  expect(line).toMatchObject({ requestId: id, method: 'GET', route: '/api/jobs', status: 200, msg: 'request' });
+  expect(typeof line.ms).toBe('number');
+  expect(line.shopId).toBeTruthy();
+  expect(line.memberId).toBeTruthy();
+  // Nothing of the session reaches the log.
+  const token = cookie.split(';').map((c) => c.trim().split('=')[1]).filter(Boolean);
+  for (const t of token) expect(server.lines.join('\n')).not.toContain(t.slice(0, 20));
+  // A refused request is logged too, with no shop.
+  const anon = await fetch(`${BASE}/api/jobs`);
+  const anonId = anon.headers.get('x-request-id')!;
+  await expect.poll(() => server.lines.some((l) => l.includes(anonId)), { timeout: 5_000 }).toBe(true);
+  expect(JSON.parse(server.lines.find((l) => l.includes(anonId))!)).toMatchObject({ status: 401, route: '/api/jobs' });
 });

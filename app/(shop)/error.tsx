@@ -1,0 +1,4 @@
+'use client';
+import { ErrorNotice } from '@/components/errors/error-notice';
+
+export default ErrorNotice;
