@@ -8,7 +8,7 @@ const common = [
 ];
 
 const nextConfig = {
-  serverExternalPackages: ['@electric-sql/pglite', '@react-pdf/renderer', 'rate-limiter-flexible', 'pino', 'pino-pretty'],
+  serverExternalPackages: ['@electric-sql/pglite', '@react-pdf/renderer', 'rate-limiter-flexible', 'pino', 'pino-pretty', 'piscina'],
   poweredByHeader: false,
   async headers() {
     return [

@@ -25,15 +25,25 @@ export async function insertChunks(db: Pick<Db, 'insert'>, captureId: string, ch
 
 /** Reads and decompresses a capture's bytes into one array of `size` bytes. */
 export async function readChunks(db: Pick<Db, 'select'>, captureId: string, size: number): Promise<Uint8Array> {
+  return unpackPieces(await readPackedChunks(db, captureId), size);
+}
+
+/** A capture's compressed pieces, in order, as stored (the engine's thread pool unpacks them). */
+export async function readPackedChunks(db: Pick<Db, 'select'>, captureId: string): Promise<Uint8Array[]> {
   const rows = await db
     .select({ b64: sql<string>`encode(${captureChunks.data}, 'base64')` })
     .from(captureChunks)
     .where(eq(captureChunks.captureId, captureId))
     .orderBy(asc(captureChunks.seq));
+  return rows.map((r) => Buffer.from(r.b64, 'base64'));
+}
+
+/** One array of `size` bytes from gzip pieces in order. */
+export function unpackPieces(gz: Uint8Array[], size: number): Uint8Array {
   const out = new Uint8Array(size);
   let o = 0;
-  for (const r of rows) {
-    const part = gunzipSync(Buffer.from(r.b64, 'base64'));
+  for (const piece of gz) {
+    const part = gunzipSync(piece);
     out.set(part, o);
     o += part.length;
   }

@@ -46,7 +46,7 @@ export async function openDatabase(o: OpenOptions = {}): Promise<Database> {
     await migratePglite(db, { migrationsFolder: MIGRATIONS_FOLDER });
     return { db, kind: 'pglite', close: () => client.close() };
   }
-  const dir = resolve(o.dataDir);
+  const dir = resolve(/*turbopackIgnore: true*/ o.dataDir);
   mkdirSync(/*turbopackIgnore: true*/ dir, { recursive: true });
   const release = acquireLock(join(dir, 'pglite.lock'), dir);
   try {

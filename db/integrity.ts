@@ -27,7 +27,8 @@ export interface IntegrityReport {
   ok: boolean;
 }
 
-export async function checkIntegrity(db: Db): Promise<IntegrityReport> {
+/** `onProgress` hears (captures checked, captures in all) as the check goes. */
+export async function checkIntegrity(db: Db, onProgress?: (done: number, total: number) => void): Promise<IntegrityReport> {
   const rows = await db
     .select({
       id: captures.id,
@@ -43,6 +44,7 @@ export async function checkIntegrity(db: Db): Promise<IntegrityReport> {
   for (const r of rows) {
     const problem = await captureProblem(db, r);
     checks.push({ id: r.id, fileName: r.fileName, sha256: r.sha256, chunkCount: r.chunkCount, chunksFound: r.chunksFound, ok: !problem, problem });
+    onProgress?.(checks.length, rows.length);
   }
   const saved = await db.select({ id: analyses.id, captureId: analyses.captureId, fileSha256: analyses.fileSha256 }).from(analyses);
   const byId = new Map(checks.map((c) => [c.id, c]));

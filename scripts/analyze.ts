@@ -1,6 +1,7 @@
 /** Command line: analyse one capture file and print the per-cylinder result (or JSON with --json). */
 import { readFileSync, statSync } from 'node:fs';
 import { parseArgs } from 'node:util';
+import { progress } from './progress';
 import {
   analyzeBytes,
   type AnalysisSettings,
@@ -117,7 +118,10 @@ function main() {
       highLimitPercent: highLimit,
       rotation: Number(values.rotation) || 0,
     };
+    const line = progress(file);
+    line.step(`analysing ${(bytes.length / 1048576).toFixed(1)} MB`);
     const { result } = analyzeBytes(bytes, settings, { sampleRateHz: sampleRate });
+    line.done();
     if (json) {
       process.stdout.write(`${JSON.stringify(result)}\n`);
       return;

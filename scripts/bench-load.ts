@@ -2,7 +2,8 @@
  * npm run bench:load — a bounded load test on loopback against `next start` (build first), on the embedded
  * database and, when PostgreSQL's server programs are installed, on a throwaway PostgreSQL server:
  *   1. GET /api/health and GET /api/jobs (signed in), the same way: 50 connections for 30 s each (autocannon);
- *   2. 10 concurrent 10 MB uploads, three times.
+ *   2. 10 concurrent 10 MB uploads, three times;
+ *   3. (embedded) /api/health p99 at rest and while three analyses of a 10M-sample capture run (LOAD_BIG=0 skips).
  * Prints p50/p95/p99 latency, requests per second and errors, then one line with, per database, both routes'
  * throughput and p95 and the ratios jobs/health (targets: throughput ratio >= 0.5, p95 ratio <= 2.5), the
  * upload p95 (the slower database) and the error count. LOAD_SECONDS shortens part 1 and LOAD_UPLOADS=0
@@ -86,10 +87,56 @@ async function uploadLoad(cookie: string, body: string): Promise<Figures> {
   return figures(latencies, errors, (Date.now() - t0) / 1000);
 }
 
+/** Sequential health checks for `ms`, one every 50 ms: the latencies. */
+async function healthSamples(ms: number): Promise<number[]> {
+  const out: number[] = [];
+  const until = Date.now() + ms;
+  while (Date.now() < until) {
+    const t0 = performance.now();
+    await fetch(`${BASE}/api/health`).then((r) => r.arrayBuffer(), () => null);
+    out.push(performance.now() - t0);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  return out.sort((a, b) => a - b);
+}
+
+/**
+ * /api/health while three analyses of a 10M-sample capture run (saves, in the engine's thread pool), against
+ * the same checks at rest: the request thread must stay free.
+ */
+async function healthDuringAnalysis(cookie: string, big: string): Promise<{ restP99: number; busyP99: number; saves: number; saveMs: number }> {
+  const jobs = (await (await fetch(`${BASE}/api/jobs`, { headers: { cookie } })).json()).jobs as { id: string }[];
+  const up = await fetch(`${BASE}/api/jobs/${jobs[0].id}/captures`, { method: 'POST', headers: { cookie, origin: BASE, 'content-type': 'text/csv', 'x-file-name': 'ten-million.csv' }, body: big });
+  if (up.status !== 200) throw new Error(`the 10M-sample upload answered ${up.status}: ${await up.text()}`);
+  const captureId = (await up.json()).capture.id as string;
+  const rest = await healthSamples(3_000);
+  let stop = false;
+  let saves = 0;
+  const saveTimes: number[] = [];
+  const saver = async () => {
+    while (!stop) {
+      const t0 = performance.now();
+      const r = await fetch(`${BASE}/api/captures/${captureId}/analyses`, { method: 'POST', headers: { cookie, origin: BASE, 'content-type': 'application/json' }, body: JSON.stringify({ settings: { engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] } } }) });
+      await r.arrayBuffer();
+      if (r.status === 200) {
+        saves++;
+        saveTimes.push(performance.now() - t0);
+      }
+    }
+  };
+  const savers = [saver(), saver(), saver()];
+  await new Promise((r) => setTimeout(r, 500));
+  const busy = await healthSamples(15_000);
+  stop = true;
+  await Promise.all(savers);
+  saveTimes.sort((a, b) => a - b);
+  return { restP99: percentile(rest, 99), busyP99: percentile(busy, 99), saves, saveMs: percentile(saveTimes, 50) };
+}
+
 const fmt = (f: Figures) =>
   `p50 ${f.p50.toFixed(0)} ms  p95 ${f.p95.toFixed(0)} ms  p99 ${f.p99.toFixed(0)} ms  ${f.rps.toFixed(1)} req/s  ${f.requests} requests  ${f.errors} errors`;
 
-async function run(label: string, env: Record<string, string>, body: string) {
+async function run(label: string, env: Record<string, string>, body: string, big?: string) {
   const server = startApp(PORT, { ...env, CRANKPRINT_RATE_LIMIT_SCALE: '100' });
   try {
     await waitReady(server);
@@ -101,7 +148,12 @@ async function run(label: string, env: Record<string, string>, body: string) {
     console.log(`${label}: GET /api/jobs (signed in), ${CONNECTIONS} connections, ${SECONDS} s: ${fmt(jobs)}`);
     const upload = process.env.LOAD_UPLOADS === '0' ? figures([], 0, 1) : await uploadLoad(cookie, body);
     if (upload.requests) console.log(`${label}: ${UPLOADS} concurrent ${(body.length / 1048576).toFixed(1)} MB uploads × ${UPLOAD_ROUNDS}: ${fmt(upload)}`);
-    return { health, jobs, upload };
+    let during: Awaited<ReturnType<typeof healthDuringAnalysis>> | undefined;
+    if (big) {
+      during = await healthDuringAnalysis(cookie, big);
+      console.log(`${label}: /api/health p99 ${during.restP99.toFixed(0)} ms at rest, ${during.busyP99.toFixed(0)} ms during three 10M-sample analyses (${during.saves} saves, median ${(during.saveMs / 1000).toFixed(1)} s each)`);
+    }
+    return { health, jobs, upload, during };
   } finally {
     server.child.kill('SIGTERM');
     await exited(server.child);
@@ -115,12 +167,14 @@ if (!existsSync('.next/BUILD_ID')) {
 // A 10 MB capture: 4 cylinders, starter current and sync at 80 kHz for 6.1 s.
 const sim = simulateCranking({ engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] }, leakPerS: [0, 2, 0, 0], channels: ['current', 'sync'], sampleRateHz: 80_000, durationS: 6.1, seed: 31 });
 const body = simToCsv(sim, { channels: ['current', 'sync'], timeUnit: 's' });
-console.log(`load: ${CONNECTIONS} connections × ${SECONDS} s; uploads of ${(body.length / 1048576).toFixed(1)} MB; node ${process.version}`);
+// 10M samples (1 MHz for 10 s): the capture three analyses run on while the health check is timed (embedded only).
+const big = process.env.LOAD_BIG === '0' ? undefined : simToCsv(simulateCranking({ engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] }, leakPerS: [0, 2, 0, 0], channels: ['current'], sampleRateHz: 1_000_000, durationS: 10, seed: 32 }), { channels: ['current'], timeUnit: 's' });
+console.log(`load: ${CONNECTIONS} connections × ${SECONDS} s; uploads of ${(body.length / 1048576).toFixed(1)} MB; analyses on ${big ? (big.length / 1048576).toFixed(0) : 'no'} MB; node ${process.version}`);
 
 const dir = mkdtempSync(join(tmpdir(), 'crankprint-load-'));
 const results: Record<string, Awaited<ReturnType<typeof run>>> = {};
 try {
-  results.pglite = await run('embedded (PGlite)', { CRANKPRINT_DATA_DIR: dir }, body);
+  results.pglite = await run('embedded (PGlite)', { CRANKPRINT_DATA_DIR: dir }, body, big);
 } finally {
   rmSync(dir, { recursive: true, force: true });
 }
@@ -142,5 +196,6 @@ const ratio = (a: number | undefined, b: number | undefined) => (a === undefined
 const parts = Object.entries(results).map(
   ([db, r]) => `${db}_jobs_rps=${n(r.jobs.rps)} ${db}_health_rps=${n(r.health.rps)} ${db}_jobs_p95_ms=${n(r.jobs.p95)} ${db}_health_p95_ms=${n(r.health.p95)} ${db}_rps_ratio=${ratio(r.jobs.rps, r.health.rps)} ${db}_p95_ratio=${ratio(r.jobs.p95, r.health.p95)}`,
 );
-console.log(`load: ${parts.join(' ')} upload_p95_ms=${n(uploadP95)} errors=${errors}`);
+const during = results.pglite?.during;
+console.log(`load: ${parts.join(' ')} upload_p95_ms=${n(uploadP95)} health_p99_at_rest_ms=${n(during?.restP99)} health_p99_during_analysis_ms=${n(during?.busyP99)} errors=${errors}`);
 process.exit(errors === 0 ? 0 : 1);

@@ -3,6 +3,7 @@ import { spawnSync } from 'node:child_process';
 import { backupEmbedded } from '../db/backup';
 import { dataDir } from '../db/client';
 import { cliArgs } from './cli-args';
+import { progress } from './progress';
 
 const { positionals } = cliArgs(
   `Usage: npm run db:backup -- [FILE]
@@ -20,9 +21,15 @@ if (process.env.DATABASE_URL) {
   const r = spawnSync('pg_dump', ['--format=custom', `--file=${file}`, process.env.DATABASE_URL], { stdio: 'inherit' });
   process.exit(r.status ?? 1);
 }
+const line = progress('Backing up');
+line.step(`copying ${dataDir()} (this takes a while for a large database)`);
 backupEmbedded(dataDir(), file)
-  .then((bytes) => console.log(`Backed up ${dataDir()} to ${file} (${(bytes / 1048576).toFixed(1)} MB).`))
+  .then((bytes) => {
+    line.done();
+    console.log(`Backed up ${dataDir()} to ${file} (${(bytes / 1048576).toFixed(1)} MB).`);
+  })
   .catch((e) => {
+    line.done();
     console.error((e as Error).message);
     process.exit(2);
   });

@@ -5,6 +5,7 @@
 import { dataDir, openDatabase } from '../db/client';
 import { checkIntegrity } from '../db/integrity';
 import { cliArgs } from './cli-args';
+import { progress } from './progress';
 
 const { values } = cliArgs(
   `Usage: npm run db:check -- [--json]
@@ -18,14 +19,18 @@ upload. Exit 0 when all is whole, 1 when something is not, 2 when the database c
   0,
 );
 const json = !!values.json;
+const line = progress('Checking captures');
+line.step('opening the database');
 let d;
 try {
   d = await openDatabase(process.env.DATABASE_URL ? { url: process.env.DATABASE_URL } : { dataDir: dataDir() });
 } catch (e) {
+  line.done();
   console.error(`The database could not be opened: ${(e as Error).message}`);
   process.exit(2);
 }
-const report = await checkIntegrity(d.db);
+const report = await checkIntegrity(d.db, line.update);
+line.done();
 await d.close();
 if (json) {
   console.log(JSON.stringify(report));

@@ -3,6 +3,7 @@ import { spawnSync } from 'node:child_process';
 import { restoreEmbedded } from '../db/backup';
 import { dataDir } from '../db/client';
 import { cliArgs } from './cli-args';
+import { progress } from './progress';
 
 const { positionals } = cliArgs(
   `Usage: npm run db:restore -- FILE
@@ -24,9 +25,15 @@ if (process.env.DATABASE_URL) {
   const r = spawnSync('pg_restore', ['--clean', '--if-exists', `--dbname=${process.env.DATABASE_URL}`, file], { stdio: 'inherit' });
   process.exit(r.status ?? 1);
 }
+const line = progress('Restoring');
+line.step(`unpacking ${file} into ${dataDir()}`);
 restoreEmbedded(file, dataDir())
-  .then(() => console.log(`Restored ${file} into ${dataDir()}.`))
+  .then(() => {
+    line.done();
+    console.log(`Restored ${file} into ${dataDir()}.`);
+  })
   .catch((e) => {
+    line.done();
     console.error((e as Error).message);
     process.exit(2);
   });

@@ -62,8 +62,8 @@ delete base.CRANKPRINT_TEST_PG_URL;
 vitest('embedded', [], base);
 
 // The browser tests run against `next start`: build first when the build is missing or older than the code.
-if (!existsSync('.next/BUILD_ID') || statSync('.next/BUILD_ID').mtimeMs < newestSource()) {
-  const build = spawnSync('npx', ['next', 'build'], {
+if (!existsSync('.next/BUILD_ID') || !existsSync('.engine/thread.mjs') || statSync('.next/BUILD_ID').mtimeMs < newestSource()) {
+  const build = spawnSync('npm', ['run', 'build'], {
     stdio: 'inherit',
     env: {
       ...base,

@@ -1,16 +1,17 @@
 /**
  * Reads an uploaded capture from the request stream: refuses what is too large (413), compressed or not text
- * (415), hashes it (SHA-256), compresses it into 1 MB chunk pieces, and imports every byte as the analysis
+ * (415), hashes it (SHA-256) in 1 MB pieces, and has the engine's thread pool import every byte as the analysis
  * will, so a file that cannot be read — or holds nothing to analyse for this engine — is refused (422) before
- * anything is stored.
+ * anything is stored; the pool also compresses the pieces for storage.
  */
 import 'server-only';
 import { createHash } from 'node:crypto';
-import { CHUNK_BYTES, compressPiece } from '@/db/chunks';
+import { CHUNK_BYTES } from '@/db/chunks';
 import { pastCutOff } from '@/db/client';
 import type { EngineSpec } from '@/db/schema';
-import { engineSettings, settingsForEngine } from '@/db/validators/analysis';
-import { analyzeCapture, type CaptureError, CaptureImporter, isCaptureError, MAX_CAPTURE_BYTES, refusalFor } from '@/signal';
+import { settingsForEngine } from '@/db/validators/analysis';
+import { type CaptureError, isCaptureError, MAX_CAPTURE_BYTES } from '@/signal';
+import { screenUpload } from './engine/pool';
 import { HttpError } from './http';
 
 const TEXT_TYPES = /^(text\/(csv|plain|tab-separated-values)|application\/(csv|vnd\.ms-excel|octet-stream))\b/i;
@@ -57,24 +58,26 @@ export function checkUploadHeaders(headers: Headers): { length: number; contentT
   return { length, contentType };
 }
 
-export async function receiveCapture(body: ReadableStream<Uint8Array>, length: number, contentType: string, engine: EngineSpec): Promise<ReceivedCapture> {
+/**
+ * Streams the body: checks its first bytes, counts and hashes every piece on the request thread; then the
+ * engine's thread pool imports and analyses the whole file (refusing what holds nothing to analyse) and
+ * compresses the pieces for storage. `signal` cancels that work when the client goes away.
+ */
+export async function receiveCapture(body: ReadableStream<Uint8Array>, length: number, contentType: string, engine: EngineSpec, signal?: AbortSignal): Promise<ReceivedCapture> {
   const hash = createHash('sha256');
-  const chunks: Uint8Array[] = [];
+  const pieces: Uint8Array[] = [];
   let size = 0;
   let pending: Uint8Array[] = [];
   let pendingBytes = 0;
-  let importer: CaptureImporter | null = null;
   const flush = () => {
     if (pendingBytes === 0) return;
     const piece = Buffer.concat(pending, pendingBytes);
-    if (!importer) {
+    if (pieces.length === 0) {
       const kind = binaryKind(piece);
       if (kind) throw notText(kind);
-      importer = new CaptureImporter(piece, Math.max(length, piece.length));
     }
-    importer.push(piece);
     hash.update(piece);
-    chunks.push(compressPiece(piece));
+    pieces.push(piece);
     pending = [];
     pendingBytes = 0;
   };
@@ -91,15 +94,16 @@ export async function receiveCapture(body: ReadableStream<Uint8Array>, length: n
       if (pendingBytes >= CHUNK_BYTES) flush();
     }
     flush();
-    if (size === 0 || !importer) throw new HttpError(400, 'EMPTY_FILE', 'The file is empty; export the capture again.');
-    const imported = (importer as CaptureImporter).finish();
-    const result = analyzeCapture(imported.columns, engineSettings(settingsForEngine(engine)), imported.warnings);
-    const refusal = refusalFor(imported, result);
-    if (refusal) throw refusal;
   } catch (e) {
     await reader.cancel().catch(() => {});
+    throw e;
+  }
+  if (size === 0 || pieces.length === 0) throw new HttpError(400, 'EMPTY_FILE', 'The file is empty; export the capture again.');
+  try {
+    const { chunks } = await screenUpload(pieces, length, settingsForEngine(engine), signal);
+    return { contentType, sizeBytes: size, sha256: hash.digest('hex'), chunks };
+  } catch (e) {
     if (isCaptureError(e)) throw new UnreadableCaptureError(e);
     throw e;
   }
-  return { contentType, sizeBytes: size, sha256: hash.digest('hex'), chunks };
 }

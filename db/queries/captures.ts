@@ -4,7 +4,7 @@
  */
 import 'server-only';
 import { and, desc, eq } from 'drizzle-orm';
-import { insertChunks, readChunks } from '../chunks';
+import { insertChunks, readChunks, readPackedChunks } from '../chunks';
 import { getDb } from '../client';
 import { analyses, captures, jobs } from '../schema';
 
@@ -72,6 +72,13 @@ export async function readCaptureBytes(shopId: string, captureId: string): Promi
   const capture = await getCapture(shopId, captureId);
   if (!capture) return null;
   return readChunks(await getDb(), captureId, capture.sizeBytes);
+}
+
+/** A capture's stored gzip pieces and size, for the engine's thread pool; null for another shop's capture. */
+export async function readCapturePacked(shopId: string, captureId: string): Promise<{ gz: Uint8Array[]; size: number } | null> {
+  const capture = await getCapture(shopId, captureId);
+  if (!capture) return null;
+  return { gz: await readPackedChunks(await getDb(), captureId), size: capture.sizeBytes };
 }
 
 export async function saveAnalysis(

@@ -2,10 +2,12 @@
 import 'server-only';
 import { CAUTIONS } from '@/components/analysis/cautions';
 import { TEST_LIMITS } from '@/components/report/wording';
-import { readCaptureBytes } from '@/db/queries/captures';
+import { readCapturePacked } from '@/db/queries/captures';
+import type { AnalysisSettingsValues } from '@/db/validators/analysis';
+import { storedTraceExcerpt } from '../engine/pool';
 import type { ReportBundle } from '@/db/queries/reports';
 import type { AnalysisResult } from '@/signal';
-import { conditionRows, NR, traceExcerpt } from './format';
+import { conditionRows, NR } from './format';
 import type { PdfTrace, ReportPdfData } from './report-document';
 
 export { renderReportPdf } from './render';
@@ -16,11 +18,11 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const analyses = [];
   for (const a of b.analyses) {
     const result = a.analysis.result as AnalysisResult;
-    const bytes = a === b.analyses[0] ? await readCaptureBytes(b.shop.id, a.capture.id) : null;
-    const settings = a.analysis.settings as { mapping?: never; sampleRateHz?: number };
+    // The first analysis's trace excerpt, drawn in the engine's thread pool from the stored capture.
+    const packed = a === b.analyses[0] ? await readCapturePacked(b.shop.id, a.capture.id) : null;
     let trace: PdfTrace | undefined;
     try {
-      trace = bytes ? traceExcerpt(bytes, result, { mapping: settings.mapping, sampleRateHz: settings.sampleRateHz }) : undefined;
+      trace = packed ? ((await storedTraceExcerpt(packed.gz, packed.size, result, a.analysis.settings as AnalysisSettingsValues)) ?? undefined) : undefined;
     } catch {
       trace = undefined;
     }

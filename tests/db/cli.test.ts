@@ -26,3 +26,33 @@ describe('database scripts', () => {
     expect(stray.status).toBe(2);
   });
 });
+
+describe('progress on long work', () => {
+  // util-linux's `script` runs the command on a pseudo-terminal, as a person at a terminal would.
+  // Run from the project (the migrations live there) on a data directory of the test's own.
+  const env = (dir: string) => ({ ...process.env, CRANKPRINT_DATA_DIR: join(dir, 'data') });
+  const onTerminal = (command: string, dir: string) => spawnSync('script', ['-qec', command, '/dev/null'], { cwd: root, encoding: 'utf8', env: env(dir) });
+
+  it('db:check shows a progress line on a terminal and nothing extra when piped', () => {
+    const cwd = mkdtempSync(join(tmpdir(), 'cp-progress-'));
+    const piped = spawnSync(join(root, 'node_modules', '.bin', 'tsx'), [join(root, 'scripts', 'db-check.ts')], { cwd: root, encoding: 'utf8', env: env(cwd) });
+    expect(piped.status).toBe(0);
+    expect(piped.stderr).toBe('');
+    expect(piped.stdout).not.toContain('\r');
+    const tty = onTerminal(`${join(root, 'node_modules', '.bin', 'tsx')} ${join(root, 'scripts', 'db-check.ts')}`, cwd);
+    expect(tty.status).toBe(0);
+    expect(tty.stdout).toContain('Checking captures: opening the database');
+    expect(tty.stdout).toMatch(/All \d+ captures are whole/);
+  });
+
+  it('the analysis command line shows its step on a terminal only', () => {
+    const cwd = mkdtempSync(join(tmpdir(), 'cp-progress-'));
+    const sample = join(root, 'samples', 'i4-burnt-valve-current-sync.csv');
+    const args = `${sample} --cylinders 4 --firing-order 1-3-4-2`;
+    const tty = onTerminal(`${join(root, 'node_modules', '.bin', 'tsx')} ${join(root, 'scripts', 'analyze.ts')} ${args}`, cwd);
+    expect(tty.stdout).toMatch(/analysing \d+\.\d MB/);
+    const piped = spawnSync(join(root, 'node_modules', '.bin', 'tsx'), [join(root, 'scripts', 'analyze.ts'), ...args.split(' ')], { cwd: root, encoding: 'utf8', env: env(cwd) });
+    expect(piped.status).toBe(0);
+    expect(piped.stderr).not.toContain('analysing');
+  });
+});

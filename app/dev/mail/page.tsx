@@ -22,7 +22,7 @@ export default function DevMailPage() {
   const messages: Kept[] = existsSync(/*turbopackIgnore: true*/ dir)
     ? readdirSync(/*turbopackIgnore: true*/ dir)
         .filter((f) => f.endsWith('.json'))
-        .map((f) => JSON.parse(readFileSync(/*turbopackIgnore: true*/ join(dir, f), 'utf8')) as Kept)
+        .map((f) => JSON.parse(readFileSync(join(/*turbopackIgnore: true*/ dir, f), 'utf8')) as Kept)
         .sort((a, b) => b.receivedAt.localeCompare(a.receivedAt))
     : [];
   return (

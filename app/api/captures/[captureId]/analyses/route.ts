@@ -1,14 +1,14 @@
 /**
- * Saving an analysis: the server re-runs the same engine on the stored raw file with the given settings and
+ * Saving an analysis: the server re-runs the same engine (in its thread pool) on the stored raw file with the given settings and
  * stores settings, engine version, file SHA-256 and results. Nothing is overwritten; each save adds one.
  * A file the engine cannot read answers 422 with the engine's error code, line and column.
  */
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
-import { getCapture, listAnalyses, readCaptureBytes, saveAnalysis } from '@/db/queries/captures';
+import { getCapture, listAnalyses, readCapturePacked, saveAnalysis } from '@/db/queries/captures';
 import { analysisSettingsSchema } from '@/db/validators/analysis';
 import { notFound } from '@/server/http';
-import { runAnalysis } from '@/server/run-analysis';
+import { analyzeStored } from '@/server/engine/pool';
 import { withShop } from '@/server/with-shop';
 import { isCaptureError } from '@/signal';
 
@@ -17,13 +17,14 @@ export const GET = withShop({ analysis: ['read'] }, z.object({ captureId: z.stri
   return { analyses: await listAnalyses(shop.id, input.captureId) };
 });
 
-export const POST = withShop({ analysis: ['save'] }, z.object({ captureId: z.string(), settings: analysisSettingsSchema }), async ({ input, shop, user }) => {
+export const POST = withShop({ analysis: ['save'] }, z.object({ captureId: z.string(), settings: analysisSettingsSchema }), async ({ input, shop, user, req }) => {
   const capture = await getCapture(shop.id, input.captureId);
-  const bytes = capture && (await readCaptureBytes(shop.id, capture.id));
-  if (!capture || !bytes) throw notFound('That capture');
+  const packed = capture && (await readCapturePacked(shop.id, capture.id));
+  if (!capture || !packed) throw notFound('That capture');
   let result;
   try {
-    result = runAnalysis(bytes, input.settings);
+    // In the engine's thread pool: the request thread stays free for everyone else.
+    result = await analyzeStored(packed.gz, packed.size, input.settings, req.signal);
   } catch (e) {
     if (isCaptureError(e)) {
       return Response.json(

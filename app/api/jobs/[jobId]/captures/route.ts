@@ -26,7 +26,7 @@ export const POST = withShop(
     if (!req.body) throw new HttpError(400, 'EMPTY_FILE', 'The upload was empty; choose the capture file again.');
     const rawName = req.headers.get('x-file-name');
     const fileName = fileNameFromHeader(rawName);
-    const file = await receiveCapture(req.body, length, contentType, job.vehicle.engine);
+    const file = await receiveCapture(req.body, length, contentType, job.vehicle.engine, req.signal);
     try {
       const capture = await createCapture(shop.id, { jobId: input.jobId, fileName, uploadedBy: user.id, ...file });
       if (!capture) throw notFound('That job');

@@ -1,0 +1,77 @@
+/**
+ * A bounded pool of worker threads (piscina) for the engine's work, sized to the machine's cores; the request
+ * thread only streams, hashes and stores. A full queue answers 503 at once with a sentence; a task whose
+ * request is aborted is cancelled. In production the thread runs the bundle `npm run build` makes
+ * (.engine/thread.mjs, scripts/build-engine.mjs); elsewhere it runs the TypeScript source through tsx.
+ */
+import 'server-only';
+import { availableParallelism } from 'node:os';
+import { resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { Piscina } from 'piscina';
+import { CaptureError, type AnalysisResult } from '@/signal';
+import type { AnalysisSettingsValues } from '@/db/validators/analysis';
+import type { PdfTrace } from '../pdf/report-document';
+import { HttpError } from '../http';
+import type { EngineAnswer, EngineTask } from './thread';
+
+export const THREADS = Math.max(1, Math.min(4, availableParallelism()));
+/** Tasks that may wait for a thread before new ones are turned away. */
+export const MAX_QUEUE = THREADS * 4;
+
+const BUILT = resolve(/*turbopackIgnore: true*/ process.cwd(), '.engine/thread.mjs');
+const SOURCE = resolve(/*turbopackIgnore: true*/ process.cwd(), 'server/engine/thread.ts');
+
+function build(): Piscina {
+  const production = process.env.NODE_ENV === 'production';
+  return new Piscina({
+    filename: pathToFileURL(production ? BUILT : SOURCE).href,
+    execArgv: production ? [] : ['--import', 'tsx'],
+    minThreads: 1,
+    maxThreads: THREADS,
+    maxQueue: MAX_QUEUE,
+    idleTimeout: 60_000,
+  });
+}
+
+const g = globalThis as unknown as { __crankprintEnginePool?: Piscina };
+const pool = (): Piscina => (g.__crankprintEnginePool ??= build());
+
+/** Runs one task; a capture error comes back as the engine's CaptureError, a full queue as a 503. */
+async function runTask<T>(task: EngineTask, signal?: AbortSignal, transfer: ArrayBufferLike[] = []): Promise<T> {
+  const p = pool();
+  if (p.queueSize >= MAX_QUEUE) throw busy();
+  let answer: EngineAnswer<T>;
+  try {
+    answer = await p.run(task, { signal, transferList: transfer as ArrayBuffer[] });
+  } catch (e) {
+    if (e instanceof Error && /queue is at limit/i.test(e.message)) throw busy();
+    if (signal?.aborted) throw new HttpError(499, 'CANCELLED', 'The request was cancelled before the analysis finished.');
+    throw e;
+  }
+  if (!answer.ok) throw new CaptureError(answer.error.code, answer.error.message, answer.error);
+  return answer.value;
+}
+
+const busy = () => new HttpError(503, 'BUSY', 'The server is busy analysing other captures; try again in a minute.');
+
+/** Imports and analyses an upload's pieces, refusing what holds nothing to analyse; returns the gzip pieces to store. */
+export function screenUpload(pieces: Uint8Array[], length: number, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<{ chunks: Uint8Array[] }> {
+  return runTask({ kind: 'screen-upload', pieces, length, settings }, signal);
+}
+
+/** The engine on a stored capture (its gzip pieces) with the given settings. */
+export function analyzeStored(gz: Uint8Array[], size: number, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<AnalysisResult> {
+  return runTask({ kind: 'analyze', gz, size, settings }, signal);
+}
+
+/** The report's trace excerpt from a stored capture, or null when it has no channel to draw. */
+export function storedTraceExcerpt(gz: Uint8Array[], size: number, result: AnalysisResult, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<PdfTrace | null> {
+  return runTask({ kind: 'trace', gz, size, result, settings }, signal);
+}
+
+/** What the pool is doing (for the health check and the benchmark). */
+export function poolLoad(): { threads: number; queued: number; running: number } {
+  const p = g.__crankprintEnginePool;
+  return { threads: THREADS, queued: p?.queueSize ?? 0, running: p ? p.utilization : 0 };
+}

@@ -1,0 +1,53 @@
+/**
+ * The engine's work on the server, run in a worker thread of the pool (server/engine/pool.ts), never on the
+ * request thread: screening an upload (import every byte, analyse, refuse what holds nothing to analyse,
+ * compress the pieces for storage), analysing a stored capture, and drawing a stored capture's trace excerpt.
+ * Capture errors come back as data (a class does not cross threads).
+ */
+import { compressPiece, unpackPieces } from '@/db/chunks';
+import { type AnalysisSettingsValues, engineSettings } from '@/db/validators/analysis';
+import type { AnalysisResult, CaptureError } from '@/signal';
+import { analyzeBytes, analyzeCapture, CaptureImporter, isCaptureError, refusalFor } from '@/signal';
+import { traceExcerpt } from '../pdf/format';
+
+export type EngineTask =
+  | { kind: 'screen-upload'; pieces: Uint8Array[]; length: number; settings: AnalysisSettingsValues }
+  | { kind: 'analyze'; gz: Uint8Array[]; size: number; settings: AnalysisSettingsValues }
+  | { kind: 'trace'; gz: Uint8Array[]; size: number; result: AnalysisResult; settings: AnalysisSettingsValues };
+
+export interface EngineFailure {
+  ok: false;
+  error: { code: CaptureError['code']; message: string; line?: number; column?: number };
+}
+export type EngineAnswer<T> = { ok: true; value: T } | EngineFailure;
+
+function screenUpload(t: Extract<EngineTask, { kind: 'screen-upload' }>): { chunks: Uint8Array[] } {
+  const importer = new CaptureImporter(t.pieces[0], Math.max(t.length, t.pieces[0].length));
+  for (const piece of t.pieces) importer.push(piece);
+  const imported = importer.finish();
+  const result = analyzeCapture(imported.columns, engineSettings(t.settings), imported.warnings);
+  const refusal = refusalFor(imported, result);
+  if (refusal) throw refusal;
+  return { chunks: t.pieces.map(compressPiece) };
+}
+
+function run(task: EngineTask): unknown {
+  switch (task.kind) {
+    case 'screen-upload':
+      return screenUpload(task);
+    case 'analyze':
+      return analyzeBytes(unpackPieces(task.gz, task.size), engineSettings(task.settings), { mapping: task.settings.mapping, sampleRateHz: task.settings.sampleRateHz }).result;
+    case 'trace':
+      return traceExcerpt(unpackPieces(task.gz, task.size), task.result, { mapping: task.settings.mapping, sampleRateHz: task.settings.sampleRateHz }) ?? null;
+  }
+}
+
+/** The pool calls this with each task. */
+export default function engineThread(task: EngineTask): EngineAnswer<unknown> {
+  try {
+    return { ok: true, value: run(task) };
+  } catch (e) {
+    if (isCaptureError(e)) return { ok: false, error: e.toJSON() };
+    throw e;
+  }
+}

@@ -1,0 +1,67 @@
+/**
+ * The engine's thread pool: the same engine, run in another thread, must give what it gives on this one
+ * (the reference is the engine called in-process on the same bytes); stored pieces must unpack to the
+ * uploaded bytes (SHA-256); a full queue is a prompt 503; an aborted request cancels its task.
+ */
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { afterAll, describe, expect, it } from 'vitest';
+import { unpackPieces } from '@/db/chunks';
+import { engineSettings, settingsForEngine } from '@/db/validators/analysis';
+import { analyzeBytes, isCaptureError, refusalFor } from '@/signal';
+import { analyzeStored, MAX_QUEUE, screenUpload, THREADS } from '@/server/engine/pool';
+import { HttpError } from '@/server/http';
+
+const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
+const I4 = settingsForEngine({ cylinders: 4, layout: 'inline', firingOrder: [1, 3, 4, 2] });
+const pieces = (b: Buffer, size = 1 << 18) => Array.from({ length: Math.ceil(b.length / size) }, (_, k) => new Uint8Array(b.subarray(k * size, (k + 1) * size)));
+const sha = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
+
+afterAll(async () => {
+  await (globalThis as unknown as { __crankprintEnginePool?: { destroy(): Promise<void> } }).__crankprintEnginePool?.destroy();
+});
+
+describe('engine thread pool', () => {
+  it('screens an upload in a thread and hands back gzip pieces that unpack to the same bytes', async () => {
+    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
+    expect(chunks.length).toBe(Math.ceil(SAMPLE.length / (1 << 18)));
+    expect(sha(unpackPieces(chunks, SAMPLE.length))).toBe(sha(SAMPLE));
+  });
+
+  it('analyses a stored capture exactly as the engine does on this thread', async () => {
+    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
+    const there = await analyzeStored(chunks, SAMPLE.length, I4);
+    const here = analyzeBytes(new Uint8Array(SAMPLE), engineSettings(I4), {}).result;
+    expect(there).toEqual(JSON.parse(JSON.stringify(here)));
+  });
+
+  it('refuses a file with nothing to analyse with the engine’s own error, as it would on this thread', async () => {
+    const flat = Buffer.from(`Time (s),Current (A)\n${Array.from({ length: 4000 }, (_, i) => `${(i / 1000).toFixed(3)},5`).join('\n')}\n`);
+    const local = analyzeBytes(new Uint8Array(flat), engineSettings(I4), {});
+    const expected = refusalFor(local.capture, local.result);
+    expect(expected).not.toBeNull();
+    const e = await screenUpload(pieces(flat), flat.length, I4).catch((x: unknown) => x);
+    expect(isCaptureError(e)).toBe(true);
+    expect(e).toMatchObject({ code: expected!.code, message: expected!.message });
+  });
+
+  it('turns work away with a 503 at once when the queue is full', async () => {
+    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
+    const tasks = Array.from({ length: THREADS + MAX_QUEUE + 3 }, () => analyzeStored(chunks, SAMPLE.length, I4).then(() => 'done', (e: unknown) => e));
+    const answers = await Promise.all(tasks);
+    const busy = answers.filter((a) => a instanceof HttpError && a.status === 503);
+    expect(busy.length).toBeGreaterThan(0);
+    expect((busy[0] as HttpError).message).toMatch(/busy/);
+    expect(answers.filter((a) => a === 'done').length).toBeGreaterThanOrEqual(MAX_QUEUE);
+  });
+
+  it('cancels a task when its request is aborted', async () => {
+    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
+    const ac = new AbortController();
+    const run = analyzeStored(chunks, SAMPLE.length, I4, ac.signal).catch((e: unknown) => e);
+    ac.abort();
+    const e = await run;
+    expect(e).toBeInstanceOf(HttpError);
+    expect((e as HttpError).code).toBe('CANCELLED');
+  });
+});
