@@ -2,7 +2,7 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['node_modules', '.next', '.data', 'samples', 'test-results', 'playwright-report', 'artifacts', 'next-env.d.ts'] },
+  { ignores: ['.engine/**', 'node_modules', '.next', '.data', 'samples', 'test-results', 'playwright-report', 'artifacts', 'next-env.d.ts'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -11,7 +11,7 @@ import { analyzeBytes } from '../signal';
 import { compressPiece, insertChunks } from './chunks';
 import { engineSettings, settingsForEngine } from './validators/analysis';
 import type { Db } from './client';
-import { accounts, analyses, captures, jobs, members, organizations, users, vehicles, type EngineSpec } from './schema';
+import { accounts, analyses, captures, jobs, members, organizations, shopSettings, users, vehicles, type EngineSpec } from './schema';
 import { vinCheckDigit } from './validators/vin';
 
 export const DEMO_PASSWORD = 'crank-demo-2026';
@@ -60,6 +60,8 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
   await db.transaction(async (tx) => {
     const shopId = crypto.randomUUID();
     await tx.insert(organizations).values({ id: shopId, name: 'Demo Engine Clinic', slug: 'demo-engine-clinic' });
+    // The demo shop keeps its dates in a US zone and its temperatures in °F, to show both conversions.
+    await tx.insert(shopSettings).values({ shopId, timeZone: 'America/Chicago', temperatureUnit: 'F' });
     const ids: string[] = [];
     for (const a of DEMO_ACCOUNTS) {
       const userId = crypto.randomUUID();

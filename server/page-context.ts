@@ -5,12 +5,13 @@
 import 'server-only';
 import { headers } from 'next/headers';
 import { redirect } from 'next/navigation';
+import type { ShopSettings } from '@/domain/shop-settings';
 import { HttpError } from './http';
 import { can, type Permission, type RoleName } from './permissions';
 import { requireSession, resolveMembership, type SessionContext } from './with-shop';
 
 export interface PageMember extends SessionContext {
-  shop: { id: string; name: string };
+  shop: { id: string; name: string; settings: ShopSettings };
   member: { id: string; role: RoleName };
   can: (p: Permission) => boolean;
 }
@@ -35,5 +36,5 @@ export async function pageMember(path = '/jobs'): Promise<PageMember> {
     throw e;
   }
   const role = m.role as RoleName;
-  return { ...s, shop: { id: m.shopId, name: m.shopName }, member: { id: m.memberId, role }, can: (p) => can(role, p) };
+  return { ...s, shop: { id: m.shopId, name: m.shopName, settings: m.settings }, member: { id: m.memberId, role }, can: (p) => can(role, p) };
 }

@@ -7,7 +7,8 @@ import { and, asc, eq } from 'drizzle-orm';
 import { type NextRequest, NextResponse } from 'next/server';
 import { z } from 'zod';
 import { getDb, shuttingDown } from '@/db/client';
-import { members, organizations } from '@/db/schema';
+import { members, organizations, shopSettings } from '@/db/schema';
+import { DEFAULT_SHOP_SETTINGS, type ShopSettings, type TemperatureUnit } from '@/domain/shop-settings';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { rememberMembership } from './membership-cache';
@@ -24,7 +25,7 @@ export interface SessionContext {
 }
 
 export interface ShopContext<I> extends SessionContext {
-  shop: { id: string; name: string };
+  shop: { id: string; name: string; settings: ShopSettings };
   member: { id: string; role: RoleName };
   input: I;
   req: NextRequest;
@@ -62,6 +63,7 @@ interface Membership {
   role: string;
   shopId: string;
   shopName: string;
+  settings: ShopSettings;
 }
 
 /** The member's shop: the session's active shop, else their first membership; a 403 when they have none. */
@@ -72,13 +74,25 @@ export function resolveMembership(s: SessionContext): Promise<Membership> {
 async function lookUpMembership(s: SessionContext): Promise<Membership> {
   const db = await getDb();
   const rows = await db
-    .select({ memberId: members.id, role: members.role, shopId: organizations.id, shopName: organizations.name })
+    .select({ memberId: members.id, role: members.role, shopId: organizations.id, shopName: organizations.name, timeZone: shopSettings.timeZone, temperatureUnit: shopSettings.temperatureUnit })
     .from(members)
     .innerJoin(organizations, eq(members.organizationId, organizations.id))
+    .leftJoin(shopSettings, eq(shopSettings.shopId, organizations.id))
     .where(s.activeShopId ? and(eq(members.userId, s.user.id), eq(members.organizationId, s.activeShopId)) : eq(members.userId, s.user.id))
     .orderBy(asc(members.createdAt))
     .limit(1);
-  const row: Membership | undefined = rows[0] ?? (s.activeShopId ? await lookUpMembership({ ...s, activeShopId: null }) : undefined);
+  const found = rows[0];
+  const row: Membership | undefined = found
+    ? {
+        memberId: found.memberId,
+        role: found.role,
+        shopId: found.shopId,
+        shopName: found.shopName,
+        settings: { timeZone: found.timeZone ?? DEFAULT_SHOP_SETTINGS.timeZone, temperatureUnit: (found.temperatureUnit as TemperatureUnit | null) ?? DEFAULT_SHOP_SETTINGS.temperatureUnit },
+      }
+    : s.activeShopId
+      ? await lookUpMembership({ ...s, activeShopId: null })
+      : undefined;
   if (!row) throw new HttpError(403, 'NO_SHOP', 'You are not a member of a shop yet: create one, or accept an invitation from your shop owner.');
   return row;
 }
@@ -182,7 +196,7 @@ export function withShop<S extends z.ZodType>(permission: Permission, schema: S,
         }
         const params = (await context.params) ?? {};
         const input = await parseInput(schema, req, params, options.rawBody);
-        return handler({ ...session, shop: { id: m.shopId, name: m.shopName }, member: { id: m.memberId, role }, input, req, params });
+        return handler({ ...session, shop: { id: m.shopId, name: m.shopName, settings: m.settings }, member: { id: m.memberId, role }, input, req, params });
       },
       options.rawBody,
     );

@@ -1,4 +1,5 @@
 import { Wordmark } from '@/components/brand/logo';
+import { ShopSettingsProvider } from '@/components/shop/shop-settings-context';
 import { pageMember } from '@/server/page-context';
 import { NavLinks } from './_components/nav-links';
 import { UserMenu } from './_components/user-menu';
@@ -19,7 +20,9 @@ export default async function ShopLayout({ children }: { children: React.ReactNo
           <UserMenu name={m.user.name} role={m.member.role} />
         </div>
       </header>
-      <main className="mx-auto max-w-7xl px-4 py-6">{children}</main>
+      <main className="mx-auto max-w-7xl px-4 py-6">
+        <ShopSettingsProvider settings={m.shop.settings}>{children}</ShopSettingsProvider>
+      </main>
     </div>
   );
 }

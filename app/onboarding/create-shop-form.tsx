@@ -17,7 +17,8 @@ export function CreateShopForm() {
         e.preventDefault();
         setBusy(true);
         try {
-          await api('/api/shops', { method: 'POST', json: { name } });
+          // The shop's dates start in this browser's time zone; the owner can change it on the shop page.
+          await api('/api/shops', { method: 'POST', json: { name, timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone } });
           router.push('/jobs');
           router.refresh();
         } catch (err) {

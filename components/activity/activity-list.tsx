@@ -1,4 +1,5 @@
 /** Who did what and when, newest first: the shop's audit trail in plain words. */
+import { formatWhen } from '@/domain/time';
 import { actorLabel, describeEvent } from './describe';
 
 export interface ActivityItem {
@@ -9,14 +10,14 @@ export interface ActivityItem {
   actorName?: string | null;
 }
 
-export function ActivityList({ items, empty = 'Nothing recorded yet.' }: { items: ActivityItem[]; empty?: string }) {
+export function ActivityList({ items, timeZone, empty = 'Nothing recorded yet.' }: { items: ActivityItem[]; timeZone: string; empty?: string }) {
   if (items.length === 0) return <p className="text-muted">{empty}</p>;
   return (
     <ul className="mt-2 flex flex-col gap-1" data-testid="activity">
       {items.map((a) => (
         <li key={a.id} className="text-sm">
           <time className="figures text-muted" dateTime={a.createdAt.toISOString()}>
-            {a.createdAt.toLocaleString()}
+            {formatWhen(a.createdAt, timeZone)}
           </time>{' '}
           — <span className="font-bold">{actorLabel(a)}</span> {describeEvent(a)}
         </li>

@@ -2,13 +2,8 @@
 import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../client';
-import { invitations, members, organizations, users } from '../schema';
-
-export async function getShop(shopId: string) {
-  const db = await getDb();
-  const [shop] = await db.select().from(organizations).where(eq(organizations.id, shopId));
-  return shop ?? null;
-}
+import { DEFAULT_SHOP_SETTINGS, type ShopSettings } from '@/domain/shop-settings';
+import { invitations, members, shopSettings, users } from '../schema';
 
 export async function listMembers(shopId: string) {
   const db = await getDb();
@@ -57,4 +52,20 @@ export async function getInvitation(shopId: string, invitationId: string) {
   const db = await getDb();
   const [i] = await db.select().from(invitations).where(and(eq(invitations.organizationId, shopId), eq(invitations.id, invitationId)));
   return i ?? null;
+}
+
+/** Sets the shop's time zone and temperature unit (one row per shop, created on first save). */
+export async function saveShopSettings(shopId: string, settings: ShopSettings) {
+  const db = await getDb();
+  await db
+    .insert(shopSettings)
+    .values({ shopId, ...settings })
+    .onConflictDoUpdate({ target: shopSettings.shopId, set: { ...settings, updatedAt: new Date() } });
+}
+
+/** The shop's settings, or the defaults when its owner has not chosen any. */
+export async function getShopSettings(shopId: string): Promise<ShopSettings> {
+  const db = await getDb();
+  const [row] = await db.select({ timeZone: shopSettings.timeZone, temperatureUnit: shopSettings.temperatureUnit }).from(shopSettings).where(eq(shopSettings.shopId, shopId));
+  return row ? { timeZone: row.timeZone, temperatureUnit: row.temperatureUnit as ShopSettings['temperatureUnit'] } : DEFAULT_SHOP_SETTINGS;
 }

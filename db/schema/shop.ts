@@ -207,3 +207,13 @@ export const approvals = pgTable(
 
 export type ShareLink = typeof shareLinks.$inferSelect;
 export type Approval = typeof approvals.$inferSelect;
+
+/** The shop's conventions (domain/shop-settings.ts); a shop without a row uses the defaults. */
+export const shopSettings = pgTable('shop_settings', {
+  shopId: text()
+    .primaryKey()
+    .references(() => organizations.id, { onDelete: 'cascade' }),
+  timeZone: text().notNull().default('UTC'),
+  temperatureUnit: text().notNull().default('C'),
+  updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});

@@ -9,7 +9,7 @@ const optionalText = (max: number) =>
 export const THROTTLE = ['closed', 'wide-open'] as const;
 
 export const conditionsSchema = z.object({
-  coolantTempC: optionalNumber(-40, 150, 'Coolant temperature is in °C, between −40 and 150.'),
+  coolantTempC: optionalNumber(-40, 150, 'Coolant temperature must be between −40 and 150 °C (−40 and 302 °F).'),
   batteryRestV: optionalNumber(0, 30, 'Battery rest voltage is in volts, for example 12.6.'),
   lowestCrankingV: optionalNumber(0, 30, 'Lowest cranking voltage is in volts, for example 10.2.'),
   throttle: z.preprocess((v) => (v === '' ? undefined : v), z.enum(THROTTLE, { message: 'Choose closed or wide open.' }).optional()),

@@ -3,6 +3,8 @@ import 'server-only';
 import { CAUTIONS } from '@/components/analysis/cautions';
 import { TEST_LIMITS } from '@/components/report/wording';
 import { readCapturePacked } from '@/db/queries/captures';
+import { getShopSettings } from '@/db/queries/shops';
+import { formatWhen } from '@/domain/time';
 import type { AnalysisSettingsValues } from '@/db/validators/analysis';
 import { storedTraceExcerpt } from '../engine/pool';
 import type { ReportBundle } from '@/db/queries/reports';
@@ -15,6 +17,7 @@ export { renderReportPdf } from './render';
 export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const v = b.vehicle;
   const e = v.engine;
+  const { timeZone, temperatureUnit } = await getShopSettings(b.shop.id);
   const analyses = [];
   for (const a of b.analyses) {
     const result = a.analysis.result as AnalysisResult;
@@ -26,7 +29,7 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
     } catch {
       trace = undefined;
     }
-    analyses.push({ label: `${a.jobRepairOrder} · ${a.capture.fileName} · saved ${a.analysis.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`, result, fileSha256: a.analysis.fileSha256, savedAtMs: a.analysis.createdAt.getTime(), trace });
+    analyses.push({ label: `${a.jobRepairOrder} · ${a.capture.fileName} · saved ${formatWhen(a.analysis.createdAt, timeZone)}`, result, fileSha256: a.analysis.fileSha256, savedAtMs: a.analysis.createdAt.getTime(), trace });
   }
   return {
     shopName: b.shop.name,
@@ -36,9 +39,9 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
     status: b.report.status === 'signed' ? 'signed' : 'draft',
     // The signature is the signing member's, from the signing record; a typed name is only "prepared by".
     signedBy: b.signerName ? `${b.signerName}${b.signerEmail ? ` <${b.signerEmail}>` : ''}` : null,
-    signedAt: b.report.signedAt ? `${b.report.signedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC` : null,
+    signedAt: b.report.signedAt ? formatWhen(b.report.signedAt, timeZone) : null,
     preparedBy: b.content.technicianName ?? null,
-    generatedAt: new Date().toISOString().slice(0, 16).replace('T', ' ') + ' UTC',
+    generatedAt: formatWhen(new Date(), timeZone),
     vehicle: {
       description: [v.year, v.make, v.model].filter(Boolean).join(' '),
       vin: v.vin ?? NR,
@@ -46,7 +49,7 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
       odometer: b.job.odometer !== null ? `${b.job.odometer.toLocaleString('en-US')} ${b.job.odometerUnit}` : NR,
     },
     concern: b.job.concern,
-    conditions: conditionRows(b.content.conditions, analyses[0]?.result),
+    conditions: conditionRows(b.content.conditions, analyses[0]?.result, temperatureUnit),
     interpretation: b.content.interpretation,
     nextSteps: b.content.nextSteps,
     analyses,

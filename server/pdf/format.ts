@@ -1,14 +1,17 @@
 /** Pure formatting for the report PDF: condition rows ("not recorded", never invented) and the trace excerpt. */
 import type { Conditions } from '@/db/validators/report';
+import type { TemperatureUnit } from '@/domain/shop-settings';
+import { temperatureText } from '@/domain/units';
 import { type AnalysisResult, decimateMinMax, identityWords, importCapture, indexAtTime } from '@/signal';
 import type { PdfTrace } from './report-document';
 
 export const NR = 'not recorded';
 
-export function conditionRows(c: Conditions, r?: AnalysisResult): [string, string][] {
+/** The test conditions as report rows; the coolant temperature in the shop's unit (stored in °C). */
+export function conditionRows(c: Conditions, r?: AnalysisResult, unit: TemperatureUnit = 'C'): [string, string][] {
   const v = (x: number | undefined, unit: string) => (x === undefined ? NR : `${x} ${unit}`);
   return [
-    ['Coolant temperature', v(c.coolantTempC, '°C')],
+    ['Coolant temperature', c.coolantTempC === undefined ? NR : temperatureText(c.coolantTempC, unit)],
     ['Battery rest voltage', v(c.batteryRestV, 'V')],
     ['Lowest cranking voltage', v(c.lowestCrankingV, 'V')],
     ['Mean cranking speed', r ? `${r.crankingRpm} rpm (measured)` : NR],

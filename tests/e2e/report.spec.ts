@@ -13,7 +13,8 @@ test('sign, e-mail, share, approve, revoke; the old revision stays readable', as
   await page.getByRole('link', { name: 'RO-24104' }).click();
   await page.getByRole('link', { name: /Write the report|Open the report/ }).click();
   await expect(page.getByRole('heading', { name: 'Analyses to include' }).or(page.getByText('Analyses to include'))).toBeVisible();
-  await page.getByLabel('Coolant (°C)').fill('85');
+  // The demo shop reads temperatures in °F: 185 °F is stored as 85 °C.
+  await page.getByLabel('Coolant (°F)').fill('185');
   await page.getByLabel('Battery at rest (V)').fill('12.6');
   await page.getByRole('button', { name: 'Save draft' }).click();
   await expect(page.getByText(/Draft saved as revision 1/)).toBeVisible();

@@ -3,6 +3,7 @@ import { ActivityList } from '@/components/activity/activity-list';
 import { listShopActivity } from '@/db/queries/audit';
 import { pageMember } from '@/server/page-context';
 import { ShopMembers } from './_components/shop-members';
+import { ShopSettingsForm } from './_components/shop-settings-form';
 
 export const metadata: Metadata = { title: 'Shop' };
 
@@ -13,6 +14,14 @@ export default async function ShopPage() {
   return (
     <div className="flex max-w-4xl flex-col gap-4">
       <h1 className="text-2xl font-bold">{m.shop.name}</h1>
+      {isOwner && (
+        <section aria-labelledby="shop-settings" className="rounded-2xl border border-line bg-surface p-5">
+          <h2 id="shop-settings" className="text-lg font-bold">
+            Dates and units
+          </h2>
+          <ShopSettingsForm settings={m.shop.settings} />
+        </section>
+      )}
       <ShopMembers isOwner={isOwner} selfMemberId={m.member.id} />
       {isOwner && (
         <section aria-labelledby="shop-activity" className="rounded-2xl border border-line bg-surface p-5">
@@ -20,7 +29,7 @@ export default async function ShopPage() {
             Activity in this shop
           </h2>
           <p className="text-sm text-muted">The last 100 sign-ins, uploads, saves, reports sent and changes to members, newest first.</p>
-          <ActivityList items={activity} />
+          <ActivityList items={activity} timeZone={m.shop.settings.timeZone} />
         </section>
       )}
     </div>

@@ -5,6 +5,8 @@ import { notFound } from 'next/navigation';
 import { LogoMark } from '@/components/brand/logo';
 import { CylinderBars } from '@/components/analysis/cylinder-bars';
 import { findShareLink, reportBundle } from '@/db/queries/reports';
+import { getShopSettings } from '@/db/queries/shops';
+import { formatWhen } from '@/domain/time';
 import { withinBudget } from '@/server/rate-limit';
 import type { AnalysisResult } from '@/signal';
 import { DecisionForm } from './decision-form';
@@ -60,7 +62,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
         </ol>
         <DecisionForm token={token} revision={b.report.revision} />
       </section>
-      <p className="text-sm text-muted">Report revision {b.report.revision}. This page expires on {link.expiresAt.toLocaleDateString('en-US', { dateStyle: 'long' })}.</p>
+      <p className="text-sm text-muted">Report revision {b.report.revision}. This page expires on {formatWhen(link.expiresAt, (await getShopSettings(link.shopId)).timeZone)}.</p>
     </main>
   );
 }

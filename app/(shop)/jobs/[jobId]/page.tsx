@@ -1,3 +1,4 @@
+import { formatWhen } from '@/domain/time';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
@@ -86,7 +87,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
                     <span className="flex-1">
                       <span className="figures block font-bold">{c.fileName}</span>
                       <span className="figures block text-sm text-muted">
-                        {(c.sizeBytes / 1024).toFixed(0)} KB · {c.createdAt.toLocaleString()} {r ? `· ${r.verdict}` : ''}
+                        {(c.sizeBytes / 1024).toFixed(0)} KB · {formatWhen(c.createdAt, m.shop.settings.timeZone)} {r ? `· ${r.verdict}` : ''}
                       </span>
                     </span>
                   </Link>
@@ -115,7 +116,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
         <h2 id="activity" className="text-lg font-bold">
           Activity
         </h2>
-        <ActivityList items={activity} />
+        <ActivityList items={activity} timeZone={m.shop.settings.timeZone} />
       </section>
     </div>
   );

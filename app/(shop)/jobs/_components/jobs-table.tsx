@@ -1,5 +1,7 @@
 'use client';
 /** The jobs table: quick filters and search kept in the URL, sortable columns, pages of 20. */
+import { useShopSettings } from '@/components/shop/shop-settings-context';
+import { formatWhen } from '@/domain/time';
 import { type ColumnDef, flexRender, getCoreRowModel, getPaginationRowModel, getSortedRowModel, type SortingState, useReactTable } from '@tanstack/react-table';
 import Link from 'next/link';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
@@ -48,9 +50,15 @@ const columns: ColumnDef<JobRow>[] = [
   {
     accessorKey: 'updatedAt',
     header: 'Updated',
-    cell: (c) => <span className="figures text-sm">{new Date(c.row.original.updatedAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}</span>,
+    cell: (c) => <UpdatedAt at={c.row.original.updatedAt} />,
   },
 ];
+
+/** In the shop's time zone, with the zone named, as on every page. */
+function UpdatedAt({ at }: { at: string }) {
+  const { timeZone } = useShopSettings();
+  return <span className="figures text-sm">{formatWhen(at, timeZone)}</span>;
+}
 
 export function JobsTable() {
   const params = useSearchParams();

@@ -1,3 +1,4 @@
+import { formatDay, formatWhen } from '@/domain/time';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
@@ -35,7 +36,7 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
               return (
                 <figure key={t.id}>
                   <figcaption className="font-bold">
-                    {i === 0 ? 'Before' : 'After'}: <span className="figures">{t.repairOrder}</span> · {new Date(t.createdAt).toLocaleDateString()} · {t.fileName}
+                    {i === 0 ? 'Before' : 'After'}: <span className="figures">{t.repairOrder}</span> · {formatDay(t.createdAt, m.shop.settings.timeZone)} · {t.fileName}
                   </figcaption>
                   <CylinderBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} highLimit={r.settings.highLimitPercent} />
                 </figure>
@@ -62,7 +63,7 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
             {tests.map((t) => (
               <li key={t.id} className="flex flex-wrap items-center gap-3 py-2">
                 <span className="figures flex-1">
-                  {t.repairOrder} · {t.fileName} · {new Date(t.createdAt).toLocaleString()} · {t.verdict}
+                  {t.repairOrder} · {t.fileName} · {formatWhen(t.createdAt, m.shop.settings.timeZone)} · {t.verdict}
                 </span>
                 <Link className="font-bold text-brand underline" href={`/vehicles/${v.id}?a=${t.id}&b=${after?.id ?? ''}`}>
                   Compare as before

@@ -1,4 +1,6 @@
 /** The customer approves or declines the recommended next step through the share link (no account). */
+import { getShopSettings } from '@/db/queries/shops';
+import { formatWhen } from '@/domain/time';
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { findShareLink, recordApproval, reportBundle } from '@/db/queries/reports';
@@ -17,7 +19,7 @@ export const POST = withPublic(
     if (!link || !b) throw new HttpError(404, 'NOT_FOUND', 'This link does not open a report; ask the shop for a new one.');
     const { created: a, earlier } = await recordApproval(link, b.report.revision, input.decision, input.typedName);
     if (!a) {
-      const when = earlier ? ` on ${earlier.createdAt.toISOString().slice(0, 10)}` : '';
+      const when = earlier ? ` on ${formatWhen(earlier.createdAt, (await getShopSettings(link.shopId)).timeZone)}` : '';
       throw new HttpError(409, 'ALREADY_ANSWERED', `An answer${earlier ? ` (${earlier.decision})` : ''} was already given through this link for this revision${when}; it stands. Ask the shop if it should change.`);
     }
     await recordAudit(link.shopId, null, `report.${input.decision}`, { type: 'report', id: link.reportId }, { jobId: b.job.id, typedName: input.typedName, revision: b.report.revision });

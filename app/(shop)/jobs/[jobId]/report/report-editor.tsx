@@ -4,6 +4,9 @@
  * and next steps, sign-off; then send by e-mail or share a customer link. A signed revision is frozen: saving
  * starts the next one.
  */
+import { useShopSettings } from '@/components/shop/shop-settings-context';
+import { formatWhen } from '@/domain/time';
+import { temperatureFrom, temperatureIn } from '@/domain/units';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
@@ -41,6 +44,7 @@ const errorText = (e: unknown) => (e instanceof ApiError ? e.message : 'That did
 
 export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defaultName: string; can: { edit: boolean; sign: boolean; send: boolean; share: boolean } }) {
   const qc = useQueryClient();
+  const { timeZone, temperatureUnit } = useShopSettings();
   const key = ['report', jobId];
   const q = useQuery({ queryKey: key, queryFn: () => api<ReportData>(`/api/jobs/${jobId}/report`), refetchInterval: 15_000 });
   const latest = q.data?.revisions[0];
@@ -133,7 +137,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
                 onChange={(e) => set({ analysisIds: e.target.checked ? [...c.analysisIds, a.id] : c.analysisIds.filter((x) => x !== a.id) })}
               />
               <span>
-                <span className="figures font-bold">{a.repairOrder}</span> · {a.fileName} · {new Date(a.createdAt).toLocaleString()} · <span className="font-bold">{a.verdict}</span>
+                <span className="figures font-bold">{a.repairOrder}</span> · {a.fileName} · {formatWhen(a.createdAt, timeZone)} · <span className="font-bold">{a.verdict}</span>
               </span>
             </label>
           ))}
@@ -141,8 +145,14 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
         </fieldset>
         <fieldset disabled={readOnly} className="grid gap-x-3 rounded-2xl border border-line bg-surface p-4 md:grid-cols-3">
           <legend className="px-1 text-lg font-bold">Test conditions</legend>
-          <Field id="coolant" label="Coolant (°C)">
-            <Input id="coolant" inputMode="decimal" className="figures" value={c.conditions.coolantTempC ?? ''} onChange={(e) => setCond({ coolantTempC: e.target.value === '' ? undefined : Number(e.target.value) })} />
+          <Field id="coolant" label={`Coolant (°${temperatureUnit})`}>
+            <Input
+              id="coolant"
+              inputMode="decimal"
+              className="figures"
+              value={c.conditions.coolantTempC === undefined ? '' : temperatureIn(c.conditions.coolantTempC, temperatureUnit)}
+              onChange={(e) => setCond({ coolantTempC: e.target.value === '' ? undefined : temperatureFrom(Number(e.target.value), temperatureUnit) })}
+            />
           </Field>
           <Field id="rest" label="Battery at rest (V)">
             <Input id="rest" inputMode="decimal" className="figures" value={c.conditions.batteryRestV ?? ''} onChange={(e) => setCond({ batteryRestV: e.target.value === '' ? undefined : Number(e.target.value) })} />
@@ -236,7 +246,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
                   {data.shareLinks.map((l) => (
                     <li key={l.id} className="flex items-center gap-2 text-sm">
                       <span className="flex-1">
-                        Revision {l.revision} link: {l.revokedAt ? 'withdrawn' : new Date(l.expiresAt) < new Date() ? 'expired' : `open until ${new Date(l.expiresAt).toLocaleDateString()}`}
+                        Revision {l.revision} link: {l.revokedAt ? 'withdrawn' : new Date(l.expiresAt) < new Date() ? 'expired' : `open until ${formatWhen(l.expiresAt, timeZone)}`}
                       </span>
                       {!l.revokedAt && (
                         <Button variant="ghost" onClick={() => revoke.mutate(l.id)}>
@@ -258,7 +268,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
             <ul>
               {data.approvals.map((a) => (
                 <li key={a.id}>
-                  <span className="font-bold">{a.decision === 'approve' ? 'Approved' : 'Declined'}</span> by {a.typedName}, revision {a.revision}, {new Date(a.createdAt).toLocaleString()}
+                  <span className="font-bold">{a.decision === 'approve' ? 'Approved' : 'Declined'}</span> by {a.typedName}, revision {a.revision}, {formatWhen(a.createdAt, timeZone)}
                 </li>
               ))}
             </ul>
@@ -273,7 +283,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
                   <a className="font-bold text-brand underline" href={`/api/reports/${r.id}/pdf`} target="_blank" rel="noreferrer">
                     Revision {r.revision}
                   </a>{' '}
-                  · {r.status === 'signed' ? `signed ${r.signedAt ? new Date(r.signedAt).toLocaleDateString() : ''}` : 'draft'}
+                  · {r.status === 'signed' ? `signed ${r.signedAt ? formatWhen(r.signedAt, timeZone) : ''}` : 'draft'}
                 </li>
               ))}
             </ul>

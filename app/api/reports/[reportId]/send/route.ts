@@ -3,6 +3,7 @@
  * the recipient. Sends are limited per member and per shop over the last hour (counted in the audit log, so
  * every instance sees the same count).
  */
+import { formatWhen } from '@/domain/time';
 import { z } from 'zod';
 import { countRecentActions, recordAudit } from '@/db/queries/audit';
 import { reportBundle } from '@/db/queries/reports';
@@ -37,7 +38,7 @@ export const POST = withShop(
     await sendMail({
       to: input.to,
       subject: `${b.shop.name}: compression test report for ${b.job.repairOrder}`,
-      text: `${input.note ? `${input.note}\n\n` : ''}The relative compression report for ${[b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ')} (${b.job.repairOrder}) is attached.\nSent by ${user.name}, ${b.shop.name}.`,
+      text: `${input.note ? `${input.note}\n\n` : ''}The relative compression report for ${[b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ')} (${b.job.repairOrder}) is attached (revision ${b.report.revision}${b.report.signedAt ? `, signed ${formatWhen(b.report.signedAt, shop.settings.timeZone)}` : ', a draft'}).\nSent by ${user.name}, ${b.shop.name}, ${formatWhen(new Date(), shop.settings.timeZone)}.`,
       attachments: [{ filename: name, content: pdf, contentType: 'application/pdf' }],
     });
     await recordAudit(shop.id, user.id, 'report.send', { type: 'report', id: b.report.id }, { jobId: b.job.id, to: input.to, revision: b.report.revision });

@@ -1,3 +1,4 @@
+import { formatWhen } from '@/domain/time';
 import type { Metadata } from 'next';
 import { JobBreadcrumb } from '@/components/ui/job-breadcrumb';
 import { notFound } from 'next/navigation';
@@ -47,7 +48,7 @@ export default async function CapturePage({ params }: { params: Promise<{ jobId:
           <ul className="mt-2 flex flex-col divide-y divide-line">
             {history.map((a) => (
               <li key={a.id} className="figures py-2 text-sm">
-                {a.createdAt.toLocaleString()} · verdict {a.verdict} · {a.crankingRpm?.toFixed(0)} rpm · engine {a.engineVersion} · file {a.fileSha256.slice(0, 12)}…
+                {formatWhen(a.createdAt, m.shop.settings.timeZone)} · verdict {a.verdict} · {a.crankingRpm?.toFixed(0)} rpm · engine {a.engineVersion} · file {a.fileSha256.slice(0, 12)}…
               </li>
             ))}
           </ul>
