@@ -72,6 +72,7 @@ const ROWS: Row[] = [
   { file: 'vehicles', method: 'GET', call: (c) => c.get('/api/vehicles'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
   { file: 'vehicles', method: 'POST', call: (c) => c.post('/api/vehicles', { data: job('x').vehicle }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 200 } },
   { file: 'vehicles/[vehicleId]', method: 'GET', call: (c, f) => c.get(`/api/vehicles/${f.vehicleId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
+  { file: 'openapi.json', method: 'GET', call: (c) => c.get('/api/openapi.json'), expect: { anon: 200, owner: 200, technician: 200, advisor: 200, other: 200 } },
   { file: 'shop', method: 'GET', call: (c) => c.get('/api/shop'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
   // The demo shop's own settings again, so other tests see no change.
   { file: 'shop', method: 'PATCH', call: (c) => c.patch('/api/shop', { data: { timeZone: 'America/Chicago', temperatureUnit: 'F' } }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import Link from 'next/link';
 import { ActivityList } from '@/components/activity/activity-list';
 import { listShopActivity } from '@/db/queries/audit';
 import { pageMember } from '@/server/page-context';
@@ -13,7 +14,14 @@ export default async function ShopPage() {
   const activity = isOwner ? await listShopActivity(m.shop.id, 100) : [];
   return (
     <div className="flex max-w-4xl flex-col gap-4">
-      <h1 className="text-2xl font-bold">{m.shop.name}</h1>
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h1 className="text-2xl font-bold">{m.shop.name}</h1>
+        {isOwner && (
+          <Link className="font-bold text-brand underline" href="/shop/api">
+            API reference for integrations
+          </Link>
+        )}
+      </div>
       {isOwner && (
         <section aria-labelledby="shop-settings" className="rounded-2xl border border-line bg-surface p-5">
           <h2 id="shop-settings" className="text-lg font-bold">

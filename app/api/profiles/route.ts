@@ -1,8 +1,8 @@
 /** Engine profiles: the built-in library (TRADE.md firing orders) and the shop's own; owners add their own. */
+import { createProfileInput } from '@/server/api/inputs';
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { createProfile, listProfiles } from '@/db/queries/profiles';
-import { engineSchema } from '@/db/validators/vehicle';
 import { engineSpec } from '@/db/queries/vehicles';
 import { withShop } from '@/server/with-shop';
 import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
@@ -14,7 +14,7 @@ export const GET = withShop({ profile: ['read'] }, z.object({}), async ({ shop }
 
 export const POST = withShop(
   { profile: ['create'] },
-  z.object({ label: z.string().trim().min(2, 'Name the profile, for example "Shop V8 bank-by-bank".').max(80), engine: engineSchema }),
+  createProfileInput,
   async ({ input, shop, user }) => {
     const profile = await createProfile(shop.id, input.label, engineSpec(input.engine));
     await recordAudit(shop.id, user.id, 'profile.create', { type: 'profile', id: profile.id });

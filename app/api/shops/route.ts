@@ -1,17 +1,18 @@
 /** Create a shop (the signed-in user becomes its owner; its dates start in the creator's time zone) and list the user's shops. */
+import { createShopInput } from '@/server/api/inputs';
 import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import { getDb } from '@/db/client';
 import { recordAudit } from '@/db/queries/audit';
 import { saveShopSettings } from '@/db/queries/shops';
-import { DEFAULT_SHOP_SETTINGS, timeZoneSchema } from '@/domain/shop-settings';
+import { DEFAULT_SHOP_SETTINGS } from '@/domain/shop-settings';
 import { members, organizations } from '@/db/schema';
 import { getAuth } from '@/server/auth';
 import { forgetMemberships } from '@/server/membership-cache';
 import { withSession } from '@/server/with-shop';
 
 export const POST = withSession(
-  z.object({ name: z.string().trim().min(2, 'Enter the shop name.').max(80, 'Keep the shop name under 80 characters.'), timeZone: timeZoneSchema.optional() }),
+  createShopInput,
   async ({ input, req, user }) => {
     const auth = await getAuth();
     const slug = `${input.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'shop'}-${crypto.randomUUID().slice(0, 8)}`;

@@ -1,18 +1,14 @@
 /** The customer approves or declines the recommended next step through the share link (no account). */
+import { decisionInput } from '@/server/api/inputs';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { findShareLink, recordApproval, reportBundle } from '@/db/queries/reports';
 import { HttpError } from '@/server/http';
 import { withPublic } from '@/server/with-shop';
 
 export const POST = withPublic(
-  z.object({
-    token: z.string().max(100),
-    decision: z.enum(['approve', 'decline'], { message: 'Choose approve or decline.' }),
-    typedName: z.string().trim().min(2, 'Type your name to sign your answer.').max(120),
-  }),
+  decisionInput,
   async ({ input }) => {
     const link = await findShareLink(input.token);
     const b = link && (await reportBundle(link.shopId, link.reportId));

@@ -1,5 +1,5 @@
 /** Owners invite by e-mail with a role; better-auth stores the invitation and sends the link. */
-import { z } from 'zod';
+import { inviteInput } from '@/server/api/inputs';
 import { recordAudit } from '@/db/queries/audit';
 import { getAuth } from '@/server/auth';
 import { HttpError } from '@/server/http';
@@ -7,10 +7,7 @@ import { withShop } from '@/server/with-shop';
 
 export const POST = withShop(
   { invitation: ['create'] },
-  z.object({
-    email: z.string().trim().toLowerCase().email('Enter an e-mail address such as name@example.com.'),
-    role: z.enum(['owner', 'technician', 'advisor'], { message: 'Choose owner, technician or advisor.' }),
-  }),
+  inviteInput,
   async ({ input, shop, user, req }) => {
     const auth = await getAuth();
     try {

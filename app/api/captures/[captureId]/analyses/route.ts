@@ -3,10 +3,10 @@
  * stores settings, engine version, file SHA-256 and results. Nothing is overwritten; each save adds one.
  * A file the engine cannot read answers 422 with the engine's error code, line and column.
  */
+import { saveAnalysisInput } from '@/server/api/inputs';
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getCapture, listAnalyses, readCapturePacked, saveAnalysis } from '@/db/queries/captures';
-import { analysisSettingsSchema } from '@/db/validators/analysis';
 import { notFound } from '@/server/http';
 import { analyzeStored } from '@/server/engine/pool';
 import { withShop } from '@/server/with-shop';
@@ -17,7 +17,7 @@ export const GET = withShop({ analysis: ['read'] }, z.object({ captureId: z.stri
   return { analyses: await listAnalyses(shop.id, input.captureId) };
 });
 
-export const POST = withShop({ analysis: ['save'] }, z.object({ captureId: z.string(), settings: analysisSettingsSchema }), async ({ input, shop, user, req }) => {
+export const POST = withShop({ analysis: ['save'] }, saveAnalysisInput.extend({ captureId: z.string() }), async ({ input, shop, user, req }) => {
   const capture = await getCapture(shop.id, input.captureId);
   const packed = capture && (await readCapturePacked(shop.id, capture.id));
   if (!capture || !packed) throw notFound('That capture');

@@ -3,6 +3,7 @@
  * the recipient. Sends are limited per member and per shop over the last hour (counted in the audit log, so
  * every instance sees the same count).
  */
+import { sendReportInput } from '@/server/api/inputs';
 import { formatWhen } from '@/domain/time';
 import { z } from 'zod';
 import { countRecentActions, recordAudit } from '@/db/queries/audit';
@@ -18,11 +19,7 @@ const SENDS_PER_SHOP_HOUR = 40;
 
 export const POST = withShop(
   { report: ['send'] },
-  z.object({
-    reportId: z.string(),
-    to: z.string().trim().toLowerCase().email('Enter the e-mail address to send the report to.'),
-    note: z.string().trim().max(1000, 'Keep the note under 1,000 characters.').optional(),
-  }),
+  sendReportInput.extend({ reportId: z.string() }),
   async ({ input, shop, user }) => {
     const hourAgo = new Date(Date.now() - 3_600_000);
     if ((await countRecentActions(shop.id, 'report.send', hourAgo, user.id)) >= SENDS_PER_MEMBER_HOUR) {

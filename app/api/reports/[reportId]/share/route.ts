@@ -1,4 +1,5 @@
 /** Customer share links for a signed report: random 256-bit tokens, stored hashed, expiring (14 days by default). */
+import { shareInput } from '@/server/api/inputs';
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { createShareLink, getReport, listShareLinks } from '@/db/queries/reports';
@@ -13,7 +14,7 @@ export const GET = withShop({ report: ['share'] }, z.object({ reportId: z.string
 
 export const POST = withShop(
   { report: ['share'] },
-  z.object({ reportId: z.string(), days: z.coerce.number().int().min(1, 'A link lasts at least a day.').max(60, 'A link lasts at most 60 days.').default(14) }),
+  shareInput.extend({ reportId: z.string() }),
   async ({ input, shop, user }) => {
     const r = await getReport(shop.id, input.reportId);
     if (!r) throw notFound('That report');

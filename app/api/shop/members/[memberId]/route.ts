@@ -1,4 +1,5 @@
 /** Owners change a member's role or remove them; the last owner can be neither demoted nor removed. */
+import { memberRoleInput } from '@/server/api/inputs';
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { countOwners, getMember, removeMember, setMemberRole } from '@/db/queries/shops';
@@ -8,7 +9,7 @@ import { withShop } from '@/server/with-shop';
 
 export const PATCH = withShop(
   { member: ['update'] },
-  z.object({ memberId: z.string(), role: z.enum(['owner', 'technician', 'advisor'], { message: 'Choose owner, technician or advisor.' }) }),
+  memberRoleInput.extend({ memberId: z.string() }),
   async ({ input, shop, user }) => {
     const m = await getMember(shop.id, input.memberId);
     if (!m) throw notFound('That member');

@@ -1,0 +1,34 @@
+/**
+ * Route inputs that are not an entity's schema (those live in db/validators and domain/): one zod schema per
+ * route, used by the route and by the published API description (server/api/description.ts).
+ */
+import { z } from 'zod';
+import { analysisSettingsSchema } from '@/db/validators/analysis';
+import { engineSchema } from '@/db/validators/vehicle';
+import { timeZoneSchema } from '@/domain/shop-settings';
+
+export const ROLES = ['owner', 'technician', 'advisor'] as const;
+const role = z.enum(ROLES, { message: 'Choose owner, technician or advisor.' });
+
+export const saveAnalysisInput = z.object({ settings: analysisSettingsSchema });
+export const signReportInput = z.object({ reportId: z.string() });
+export const createProfileInput = z.object({ label: z.string().trim().min(2, 'Name the profile, for example "Shop V8 bank-by-bank".').max(80), engine: engineSchema });
+export const createShopInput = z.object({
+  name: z.string().trim().min(2, 'Enter the shop name.').max(80, 'Keep the shop name under 80 characters.'),
+  timeZone: timeZoneSchema.optional(),
+});
+export const memberRoleInput = z.object({ role });
+export const inviteInput = z.object({ email: z.string().trim().toLowerCase().email('Enter an e-mail address such as name@example.com.'), role });
+export const shareInput = z.object({ days: z.coerce.number().int().min(1, 'A link lasts at least a day.').max(60, 'A link lasts at most 60 days.').default(14) });
+export const sendReportInput = z.object({
+  to: z.string().trim().toLowerCase().email('Enter the e-mail address to send the report to.'),
+  note: z.string().trim().max(1000, 'Keep the note under 1,000 characters.').optional(),
+});
+export const decisionInput = z.object({
+  token: z.string().max(100),
+  decision: z.enum(['approve', 'decline'], { message: 'Choose approve or decline.' }),
+  typedName: z.string().trim().min(2, 'Type your name to sign your answer.').max(120),
+});
+
+/** Route parameters: a record id from the path. */
+export const idParam = (name: string) => z.object({ [name]: z.string() });
