@@ -11,7 +11,7 @@ import { DEMO, signIn, signUpVerified, unique, waitForMail } from './helpers';
 const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
 
 
-test('a new shop starts in the creator’s zone; the owner sets Berlin and °C; the PDF and e-mail follow', async () => {
+test('a new shop starts in the creator’s zone; the owner sets Berlin and °F; the PDF and e-mail follow', async () => {
   const owner = await signUpVerified(unique('zone-owner'), 'Zone Owner');
   const created = await owner.post('/api/shops', { data: { name: 'Zone Test Garage', timeZone: 'Asia/Kolkata' } });
   expect(created.status(), await created.text()).toBe(200);
