@@ -1,8 +1,8 @@
 /**
  * A bounded pool of worker threads (piscina) for the engine's work, sized to the machine's cores; the request
  * thread only streams, hashes and stores. A full queue answers 503 at once with a sentence; a task whose
- * request is aborted is cancelled. In production the thread runs the bundle `npm run build` makes
- * (.engine/thread.mjs, scripts/build-engine.mjs); elsewhere it runs the TypeScript source through tsx.
+ * request is aborted is cancelled. The thread is one bundled ES module (scripts/build-engine.mjs): in production
+ * the one `npm run build` made (.engine/thread.mjs); in development and tests the pool bundles it itself first.
  */
 import 'server-only';
 import { availableParallelism } from 'node:os';
@@ -11,7 +11,7 @@ import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
 import { CaptureError, type AnalysisResult } from '@/signal';
 import type { AnalysisSettingsValues } from '@/db/validators/analysis';
-import type { PdfTrace } from '../pdf/report-document';
+import type { PdfTrace, ReportPdfData } from '../pdf/report-document';
 import { HttpError } from '../http';
 import type { EngineAnswer, EngineTask } from './thread';
 
@@ -20,13 +20,17 @@ export const THREADS = Math.max(1, Math.min(4, availableParallelism()));
 export const MAX_QUEUE = THREADS * 4;
 
 const BUILT = resolve(/*turbopackIgnore: true*/ process.cwd(), '.engine/thread.mjs');
-const SOURCE = resolve(/*turbopackIgnore: true*/ process.cwd(), 'server/engine/thread.ts');
+const DEV_BUILT = resolve(/*turbopackIgnore: true*/ process.cwd(), '.engine/thread.dev.mjs');
+const BUILDER = pathToFileURL(resolve(/*turbopackIgnore: true*/ process.cwd(), 'scripts/build-engine.mjs')).href;
 
-function build(): Piscina {
-  const production = process.env.NODE_ENV === 'production';
+async function build(): Promise<Piscina> {
+  let file = BUILT;
+  if (process.env.NODE_ENV !== 'production') {
+    const { buildEngine } = (await import(/*turbopackIgnore: true*/ /* @vite-ignore */ BUILDER)) as { buildEngine: (out: string) => Promise<string> };
+    file = await buildEngine(DEV_BUILT);
+  }
   return new Piscina({
-    filename: pathToFileURL(production ? BUILT : SOURCE).href,
-    execArgv: production ? [] : ['--import', 'tsx'],
+    filename: pathToFileURL(file).href,
     minThreads: 1,
     maxThreads: THREADS,
     maxQueue: MAX_QUEUE,
@@ -34,12 +38,16 @@ function build(): Piscina {
   });
 }
 
-const g = globalThis as unknown as { __crankprintEnginePool?: Piscina };
-const pool = (): Piscina => (g.__crankprintEnginePool ??= build());
+const g = globalThis as unknown as { __crankprintEnginePool?: Promise<Piscina>; __crankprintEnginePoolReady?: Piscina };
+const pool = (): Promise<Piscina> =>
+  (g.__crankprintEnginePool ??= build().then((p) => (g.__crankprintEnginePoolReady = p), (e) => {
+    g.__crankprintEnginePool = undefined;
+    throw e;
+  }));
 
 /** Runs one task; a capture error comes back as the engine's CaptureError, a full queue as a 503. */
 async function runTask<T>(task: EngineTask, signal?: AbortSignal, transfer: ArrayBufferLike[] = []): Promise<T> {
-  const p = pool();
+  const p = await pool();
   if (p.queueSize >= MAX_QUEUE) throw busy();
   let answer: EngineAnswer<T>;
   try {
@@ -70,8 +78,13 @@ export function storedTraceExcerpt(gz: Uint8Array[], size: number, result: Analy
   return runTask({ kind: 'trace', gz, size, result, settings }, signal);
 }
 
+/** A report PDF from its data (@react-pdf/renderer in a thread). */
+export async function renderPdf(data: ReportPdfData, signal?: AbortSignal): Promise<Buffer> {
+  return Buffer.from(await runTask<Uint8Array>({ kind: 'pdf', data }, signal));
+}
+
 /** What the pool is doing (for the health check and the benchmark). */
 export function poolLoad(): { threads: number; queued: number; running: number } {
-  const p = g.__crankprintEnginePool;
+  const p = g.__crankprintEnginePoolReady;
   return { threads: THREADS, queued: p?.queueSize ?? 0, running: p ? p.utilization : 0 };
 }

@@ -1,7 +1,8 @@
 /**
  * The engine's work on the server, run in a worker thread of the pool (server/engine/pool.ts), never on the
  * request thread: screening an upload (import every byte, analyse, refuse what holds nothing to analyse,
- * compress the pieces for storage), analysing a stored capture, and drawing a stored capture's trace excerpt.
+ * compress the pieces for storage), analysing a stored capture, drawing a stored capture's trace excerpt, and
+ * rendering a report PDF.
  * Capture errors come back as data (a class does not cross threads).
  */
 import { compressPiece, unpackPieces } from '@/db/chunks';
@@ -9,11 +10,14 @@ import { type AnalysisSettingsValues, engineSettings } from '@/db/validators/ana
 import type { AnalysisResult, CaptureError } from '@/signal';
 import { analyzeBytes, analyzeCapture, CaptureImporter, isCaptureError, refusalFor } from '@/signal';
 import { traceExcerpt } from '../pdf/format';
+import type { ReportPdfData } from '../pdf/report-document';
+import { renderReportPdf } from '../pdf/render';
 
 export type EngineTask =
   | { kind: 'screen-upload'; pieces: Uint8Array[]; length: number; settings: AnalysisSettingsValues }
   | { kind: 'analyze'; gz: Uint8Array[]; size: number; settings: AnalysisSettingsValues }
-  | { kind: 'trace'; gz: Uint8Array[]; size: number; result: AnalysisResult; settings: AnalysisSettingsValues };
+  | { kind: 'trace'; gz: Uint8Array[]; size: number; result: AnalysisResult; settings: AnalysisSettingsValues }
+  | { kind: 'pdf'; data: ReportPdfData };
 
 export interface EngineFailure {
   ok: false;
@@ -31,8 +35,10 @@ function screenUpload(t: Extract<EngineTask, { kind: 'screen-upload' }>): { chun
   return { chunks: t.pieces.map(compressPiece) };
 }
 
-function run(task: EngineTask): unknown {
+async function run(task: EngineTask): Promise<unknown> {
   switch (task.kind) {
+    case 'pdf':
+      return new Uint8Array(await renderReportPdf(task.data));
     case 'screen-upload':
       return screenUpload(task);
     case 'analyze':
@@ -43,9 +49,9 @@ function run(task: EngineTask): unknown {
 }
 
 /** The pool calls this with each task. */
-export default function engineThread(task: EngineTask): EngineAnswer<unknown> {
+export default async function engineThread(task: EngineTask): Promise<EngineAnswer<unknown>> {
   try {
-    return { ok: true, value: run(task) };
+    return { ok: true, value: await run(task) };
   } catch (e) {
     if (isCaptureError(e)) return { ok: false, error: e.toJSON() };
     throw e;

@@ -12,8 +12,6 @@ import type { AnalysisResult } from '@/signal';
 import { conditionRows, NR } from './format';
 import type { PdfTrace, ReportPdfData } from './report-document';
 
-export { renderReportPdf } from './render';
-
 export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const v = b.vehicle;
   const e = v.engine;

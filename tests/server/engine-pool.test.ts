@@ -9,7 +9,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { unpackPieces } from '@/db/chunks';
 import { engineSettings, settingsForEngine } from '@/db/validators/analysis';
 import { analyzeBytes, isCaptureError, refusalFor } from '@/signal';
-import { analyzeStored, MAX_QUEUE, screenUpload, THREADS } from '@/server/engine/pool';
+import { analyzeStored, MAX_QUEUE, renderPdf, screenUpload, THREADS } from '@/server/engine/pool';
+import { sampleReportData } from '../report/sample-report';
 import { HttpError } from '@/server/http';
 
 const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
@@ -18,7 +19,7 @@ const pieces = (b: Buffer, size = 1 << 18) => Array.from({ length: Math.ceil(b.l
 const sha = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
 
 afterAll(async () => {
-  await (globalThis as unknown as { __crankprintEnginePool?: { destroy(): Promise<void> } }).__crankprintEnginePool?.destroy();
+  await (globalThis as unknown as { __crankprintEnginePoolReady?: { destroy(): Promise<void> } }).__crankprintEnginePoolReady?.destroy();
 });
 
 describe('engine thread pool', () => {
@@ -53,6 +54,12 @@ describe('engine thread pool', () => {
     expect(busy.length).toBeGreaterThan(0);
     expect((busy[0] as HttpError).message).toMatch(/busy/);
     expect(answers.filter((a) => a === 'done').length).toBeGreaterThanOrEqual(MAX_QUEUE);
+  });
+
+  it('renders a report PDF in a thread', async () => {
+    const pdf = await renderPdf(sampleReportData());
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(pdf.length).toBeGreaterThan(10_000);
   });
 
   it('cancels a task when its request is aborted', async () => {

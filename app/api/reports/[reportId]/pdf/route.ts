@@ -3,13 +3,14 @@ import { z } from 'zod';
 import { reportBundle } from '@/db/queries/reports';
 import { dispositionFor } from '@/server/file-name';
 import { notFound } from '@/server/http';
-import { pdfDataFor, renderReportPdf } from '@/server/pdf/build-report';
+import { renderPdf } from '@/server/engine/pool';
+import { pdfDataFor } from '@/server/pdf/build-report';
 import { withShop } from '@/server/with-shop';
 
-export const GET = withShop({ report: ['read'] }, z.object({ reportId: z.string() }), async ({ input, shop }) => {
+export const GET = withShop({ report: ['read'] }, z.object({ reportId: z.string() }), async ({ input, shop, req }) => {
   const b = await reportBundle(shop.id, input.reportId);
   if (!b) throw notFound('That report');
-  const pdf = await renderReportPdf(await pdfDataFor(b));
+  const pdf = await renderPdf(await pdfDataFor(b), req.signal);
   return new Response(new Uint8Array(pdf), {
     headers: {
       'content-type': 'application/pdf',

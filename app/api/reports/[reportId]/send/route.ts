@@ -10,7 +10,8 @@ import { countRecentActions, recordAudit } from '@/db/queries/audit';
 import { reportBundle } from '@/db/queries/reports';
 import { HttpError, notFound } from '@/server/http';
 import { sendMail } from '@/server/mail';
-import { pdfDataFor, renderReportPdf } from '@/server/pdf/build-report';
+import { renderPdf } from '@/server/engine/pool';
+import { pdfDataFor } from '@/server/pdf/build-report';
 import { withShop } from '@/server/with-shop';
 
 /** Sends allowed in an hour. */
@@ -20,7 +21,7 @@ const SENDS_PER_SHOP_HOUR = 40;
 export const POST = withShop(
   { report: ['send'] },
   sendReportInput.extend({ reportId: z.string() }),
-  async ({ input, shop, user }) => {
+  async ({ input, shop, user, req }) => {
     const hourAgo = new Date(Date.now() - 3_600_000);
     if ((await countRecentActions(shop.id, 'report.send', hourAgo, user.id)) >= SENDS_PER_MEMBER_HOUR) {
       throw new HttpError(429, 'TOO_MANY_SENDS', `You have sent ${SENDS_PER_MEMBER_HOUR} reports in the last hour, the most one member may; try again later, or ask a colleague.`);
@@ -30,7 +31,7 @@ export const POST = withShop(
     }
     const b = await reportBundle(shop.id, input.reportId);
     if (!b) throw notFound('That report');
-    const pdf = await renderReportPdf(await pdfDataFor(b));
+    const pdf = await renderPdf(await pdfDataFor(b), req.signal);
     const name = `${b.job.repairOrder}-rev${b.report.revision}.pdf`;
     await sendMail({
       to: input.to,
