@@ -51,7 +51,6 @@ export const advisor = ac.newRole({
 
 export const roles = { owner, technician, advisor };
 export type RoleName = keyof typeof roles;
-export const ROLE_NAMES = Object.keys(roles) as RoleName[];
 
 type Statements = typeof statements;
 export type Permission = { [K in keyof Statements]?: Statements[K][number][] };
@@ -61,8 +60,4 @@ export function can(role: string, permission: Permission): boolean {
   const r = roles[role as RoleName];
   if (!r) return false;
   return r.authorize(permission as never).success;
-}
-
-export function isRole(value: string): value is RoleName {
-  return value in roles;
 }

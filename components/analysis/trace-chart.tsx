@@ -28,7 +28,6 @@ export interface TraceData {
 export interface TraceHandle {
   resetZoom(): void;
   zoom(factor: number): void;
-  pan(fraction: number): void;
   centreOn(timeS: number): void;
 }
 
@@ -66,13 +65,6 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
       const mid = (min + max) / 2;
       const half = ((max - min) / 2) * factor;
       u.setScale('x', { min: Math.max(live.current.range[0], mid - half), max: Math.min(live.current.range[1], mid + half) });
-    },
-    pan: (fraction) => {
-      const u = plot.current;
-      if (!u) return;
-      const { min = 0, max = 1 } = u.scales.x;
-      const d = (max - min) * fraction;
-      u.setScale('x', { min: min + d, max: max + d });
     },
     centreOn: (t) => {
       const u = plot.current;

@@ -4,7 +4,7 @@
  * and every setting change re-runs the engine at once. Settings live in the URL, so a reload or a hand-over
  * keeps them. Saving asks the server to re-run the same engine on the stored file.
  */
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
@@ -56,7 +56,6 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   const router = useRouter();
   const path = usePathname();
   const params = useSearchParams();
-  const qc = useQueryClient();
   const settings = useMemo(() => settingsFromUrl(params.get('s'), initialSettings), [params, initialSettings]);
   const setSettings = useCallback(
     (s: AnalysisSettingsValues) => {
@@ -121,7 +120,8 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
 
   const save = useMutation({
     mutationFn: () => api<{ analysis: { id: string; result: AnalysisResult } }>(`/api/captures/${captureId}/analyses`, { method: 'POST', json: { settings } }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ['captures', captureId] }),
+    // The saved-analyses list is rendered on the server: refresh it.
+    onSuccess: () => router.refresh(),
   });
 
   const events = result?.events ?? [];

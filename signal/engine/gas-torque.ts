@@ -22,27 +22,6 @@ export const GENERIC_GAS: GasModel = { compressionRatio: 10, rodRatio: 3.3, ivcA
 /** Samples per degree in the tabulated shape. */
 export const TORQUE_TABLE_STEPS_PER_DEG = 2;
 
-/**
- * Tabulates the torque shape over ψ ∈ [−360°, 360°) (ψ = 0 at compression TDC), negative while compressing.
- * Index i holds ψ = −360 + i / TORQUE_TABLE_STEPS_PER_DEG.
- */
-export function gasTorqueTable(model: GasModel = GENERIC_GAS): Float64Array {
-  const size = 720 * TORQUE_TABLE_STEPS_PER_DEG;
-  const table = new Float64Array(size);
-  const rad = Math.PI / 180;
-  const ivc = -180 + model.ivcAbdcDeg;
-  const evo = 180 - model.evoBbdcDeg;
-  const vIvc = volumeRatio(model.compressionRatio, model.rodRatio, ivc * rad);
-  for (let i = 0; i < size; i++) {
-    const psi = -360 + i / TORQUE_TABLE_STEPS_PER_DEG;
-    if (psi < ivc || psi > evo) continue;
-    const v = volumeRatio(model.compressionRatio, model.rodRatio, psi * rad);
-    const pRel = Math.pow(vIvc / v, model.n);
-    table[i] = (pRel - 1) * volumeRatioSlope(model.compressionRatio, model.rodRatio, psi * rad);
-  }
-  return table;
-}
-
 /** Looks up the table at ψ degrees (any value; wrapped into the 720° cycle), linearly interpolated. */
 export function torqueAt(table: Float64Array, psiDeg: number): number {
   let x = (psiDeg + 360) % 720;
