@@ -2,7 +2,7 @@
 /** The cautions, before a capture is analysed; dismissed per user on this device. */
 import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { CAUTIONS } from './cautions';
+import { CAUTIONS } from '@/domain/cautions';
 
 export function CautionsGate({ userId, children }: { userId: string; children: React.ReactNode }) {
   const key = `crankprint-cautions-read-${userId}`;

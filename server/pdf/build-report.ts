@@ -1,7 +1,7 @@
 /** From a stored report revision to the PDF: formats conditions ("not recorded", never invented) and a trace excerpt. */
 import 'server-only';
-import { CAUTIONS } from '@/components/analysis/cautions';
-import { TEST_LIMITS } from '@/components/report/wording';
+import { CAUTIONS } from '@/domain/cautions';
+import { TEST_LIMITS } from '@/domain/report-wording';
 import { readCapturePacked } from '@/db/queries/captures';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';

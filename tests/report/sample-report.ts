@@ -1,7 +1,7 @@
 /** A report's PDF data built from a sample capture, for the PDF test and the benchmark (no database). */
 import { readFileSync } from 'node:fs';
-import { CAUTIONS } from '@/components/analysis/cautions';
-import { interpretationFor, nextStepsFor, TEST_LIMITS } from '@/components/report/wording';
+import { CAUTIONS } from '@/domain/cautions';
+import { interpretationFor, nextStepsFor, TEST_LIMITS } from '@/domain/report-wording';
 import { conditionRows, traceExcerpt } from '@/server/pdf/format';
 import type { ReportPdfData } from '@/server/pdf/report-document';
 import { analyzeBytes } from '@/signal';

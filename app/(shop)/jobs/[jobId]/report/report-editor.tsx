@@ -12,7 +12,7 @@ import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
-import { interpretationFor, nextStepsFor } from '@/components/report/wording';
+import { interpretationFor, nextStepsFor } from '@/domain/report-wording';
 import type { ReportContent } from '@/db/validators/report';
 import type { AnalysisResult } from '@/signal';
 
