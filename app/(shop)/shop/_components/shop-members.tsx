@@ -1,5 +1,6 @@
 'use client';
 /** Members and invitations: owners invite by e-mail with a role, change roles and remove members. */
+import { shopKeys } from '@/components/data/shop/keys';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
@@ -16,13 +17,13 @@ const ROLES = ['owner', 'technician', 'advisor'] as const;
 
 export function ShopMembers({ isOwner, selfMemberId }: { isOwner: boolean; selfMemberId: string }) {
   const qc = useQueryClient();
-  const shop = useQuery({ queryKey: ['shop'], queryFn: () => api<ShopData>('/api/shop') });
+  const shop = useQuery({ queryKey: shopKeys.current, queryFn: () => api<ShopData>('/api/shop') });
   const [email, setEmail] = useState('');
   const [role, setRole] = useState<string>('technician');
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const done = (text: string) => {
     setMessage({ tone: 'ok', text });
-    return qc.invalidateQueries({ queryKey: ['shop'] });
+    return qc.invalidateQueries({ queryKey: shopKeys.current });
   };
   const fail = (e: unknown) => setMessage({ tone: 'error', text: e instanceof ApiError ? e.message : 'That did not work; try again.' });
 

@@ -4,6 +4,7 @@
  * and next steps, sign-off; then send by e-mail or share a customer link. A signed revision is frozen: saving
  * starts the next one.
  */
+import { reportKeys } from '@/components/data/reports/keys';
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { formatWhen } from '@/domain/time';
 import { temperatureFrom, temperatureIn } from '@/domain/units';
@@ -45,7 +46,7 @@ const errorText = (e: unknown) => (e instanceof ApiError ? e.message : 'That did
 export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defaultName: string; can: { edit: boolean; sign: boolean; send: boolean; share: boolean } }) {
   const qc = useQueryClient();
   const { timeZone, temperatureUnit } = useShopSettings();
-  const key = ['report', jobId];
+  const key = reportKeys.forJob(jobId);
   const q = useQuery({ queryKey: key, queryFn: () => api<ReportData>(`/api/jobs/${jobId}/report`), refetchInterval: 15_000 });
   const latest = q.data?.revisions[0];
   const [c, setC] = useState<ReportContent>(EMPTY);
