@@ -82,12 +82,16 @@ const ERRORS: Record<number, string> = {
 
 const json = (schema: z.ZodType) => ({ content: { 'application/json': { schema } } });
 
-function operation(e: Entry): ZodOpenApiOperationObject {
+/** The reference groups routes by their first segment: jobs, captures, reports, shop, auth… */
+const tagOf = (path: string) => path.split('/')[2]?.replace(/\.json$/, '') ?? 'api';
+
+function operation(path: string, e: Entry): ZodOpenApiOperationObject {
   const responses: Record<string, ZodOpenApiResponseObject> = {
     '200': typeof e.ok === 'string' ? { description: 'The file.', content: { [e.ok]: { schema: z.string().meta({ format: 'binary' }) } } } : { description: 'Done.', ...json(e.ok) },
   };
   for (const status of [400, 401, 403, 404, 429, 500, ...(e.errors ?? [])]) responses[String(status)] = { description: ERRORS[status], ...json(errorBody) };
   return {
+    tags: [tagOf(path)],
     summary: e.summary,
     description: `Who: ${e.who}.`,
     ...(e.path || e.query ? { requestParams: { ...(e.path ? { path: e.path } : {}), ...(e.query ? { query: e.query } : {}) } } : {}),
@@ -188,7 +192,7 @@ let cached: ReturnType<typeof createDocument> | undefined;
 export function apiDescription(serverUrl: string): ReturnType<typeof createDocument> {
   const paths: ZodOpenApiPathsObject = {};
   for (const [path, methods] of Object.entries(API)) {
-    paths[path] = Object.fromEntries(Object.entries(methods).map(([m, e]) => [m, operation(e)]));
+    paths[path] = Object.fromEntries(Object.entries(methods).map(([m, e]) => [m, operation(path, e)]));
   }
   cached ??= createDocument({
     openapi: '3.1.0',

@@ -50,3 +50,20 @@ test('the demo shop’s pages show dates in its zone, named', async ({ page }) =
   await expect(page.getByRole('heading', { name: 'Jobs' })).toBeVisible();
   await expect(page.getByRole('table').getByText(/\d{2}:\d{2} C[SD]T/).first()).toBeVisible();
 });
+
+test('owners read the API reference drawn from /api/openapi.json; others are not shown it', async ({ page }) => {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto('/sign-in');
+  await page.getByRole('button', { name: /owner/i }).click();
+  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+  await expect(page.getByRole('heading', { name: 'Jobs' })).toBeVisible();
+  await page.goto('/shop');
+  await page.getByRole('link', { name: 'API reference for integrations' }).click();
+  await expect(page.getByRole('heading', { name: 'API reference' })).toBeVisible();
+  await expect(page.getByTestId('api-reference').getByText('/api/jobs/{jobId}/captures').first()).toBeVisible({ timeout: 30_000 });
+  await page.screenshot({ path: 'artifacts/screens/api-reference.png' });
+  expect(errors).toEqual([]);
+  const tech = await signIn(DEMO.technician);
+  expect((await tech.get('/shop/api')).status()).toBe(404);
+});

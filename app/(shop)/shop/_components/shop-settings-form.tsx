@@ -30,7 +30,7 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
       })}
     >
       <Field id="time-zone" label="Time zone" error={formState.errors.timeZone?.message} hint={`Pages, e-mail and report PDFs show dates in ${zone || 'UTC'}, with the zone named.`}>
-        <Select id="time-zone" {...register('timeZone')}>
+        <Select id="time-zone" defaultValue={settings.timeZone} {...register('timeZone')}>
           {timeZoneNames().map((z) => (
             <option key={z} value={z}>
               {z}
@@ -39,7 +39,7 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
         </Select>
       </Field>
       <Field id="temperature-unit" label="Temperature" error={formState.errors.temperatureUnit?.message}>
-        <Select id="temperature-unit" {...register('temperatureUnit')}>
+        <Select id="temperature-unit" defaultValue={settings.temperatureUnit} {...register('temperatureUnit')}>
           <option value="C">°C (degrees Celsius)</option>
           <option value="F">°F (degrees Fahrenheit)</option>
         </Select>
