@@ -1,5 +1,5 @@
-// The Content Security Policy, written once: pages get a fresh script nonce per request (proxy.ts); the API and
-// the PDF (next.config.mjs) run no script at all. Our own origin only; no framing except our PDF preview.
+// The Content Security Policy, written once: pages get a fresh script nonce per request (proxy.ts); the API runs
+// no script at all (next.config.mjs). Our own origin only; no framing except our PDF preview.
 
 /** @param {{ nonce?: string, frameAncestors?: string, dev?: boolean }} o */
 export function contentSecurityPolicy({ nonce, frameAncestors = "'none'", dev = false } = {}) {
