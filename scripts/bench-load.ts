@@ -1,5 +1,5 @@
 /**
- * npm run bench:load — a bounded load test on loopback against `next start` (build first), on the embedded
+ * npm run bench:load — a bounded load test on loopback against `npm start` (build first), on the embedded
  * database and, when PostgreSQL's server programs are installed, on a throwaway PostgreSQL server:
  *   1. GET /api/health and GET /api/jobs (signed in), the same way: 50 connections for 30 s each (autocannon);
  *   2. 10 concurrent 10 MB uploads, three times;

@@ -1,5 +1,5 @@
 // The README's test command. First pass, on the embedded database: unit and integration tests (vitest), then
-// the browser tests (Playwright) against `next start`. Second pass, when PostgreSQL's server programs are
+// the browser tests (Playwright) against `npm start`. Second pass, when PostgreSQL's server programs are
 // installed (CI installs them): a throwaway PostgreSQL server, and every test that touches a database again
 // with DATABASE_URL on it. Ends with one line "N passed, N failed".
 import { spawnSync } from 'node:child_process';
@@ -61,7 +61,7 @@ delete base.CRANKPRINT_TEST_PG_URL;
 
 vitest('embedded', [], base);
 
-// The browser tests run against `next start`: build first when the build is missing or older than the code.
+// The browser tests run against `npm start`: build first when the build is missing or older than the code.
 if (!existsSync('.next/BUILD_ID') || !existsSync('.engine/thread.mjs') || statSync('.next/BUILD_ID').mtimeMs < newestSource()) {
   const build = spawnSync('npm', ['run', 'build'], {
     stdio: 'inherit',
