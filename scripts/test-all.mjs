@@ -50,8 +50,8 @@ function newestSource() {
       else newest = Math.max(newest, st.mtimeMs);
     }
   };
-  for (const d of ['app', 'components', 'db', 'server', 'signal', 'workers']) walk(d);
-  for (const f of ['next.config.mjs', 'tailwind.config.ts', 'package-lock.json']) if (existsSync(f)) newest = Math.max(newest, statSync(f).mtimeMs);
+  for (const d of ['app', 'components', 'db', 'domain', 'server', 'signal', 'workers']) walk(d);
+  for (const f of ['next.config.mjs', 'proxy.ts', 'instrumentation.ts', 'scripts/build-engine.mjs', 'package-lock.json']) if (existsSync(f)) newest = Math.max(newest, statSync(f).mtimeMs);
   return newest;
 }
 
