@@ -28,3 +28,11 @@ export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 
 /** Until an owner chooses: coordinated universal time and degrees Celsius. */
 export const DEFAULT_SHOP_SETTINGS: ShopSettings = { timeZone: 'UTC', temperatureUnit: 'C' };
+
+/** A shop's settings from its stored row (null columns or no row: the defaults). */
+export function shopSettingsFrom(row: { timeZone: string | null; temperatureUnit: string | null } | undefined): ShopSettings {
+  return {
+    timeZone: row?.timeZone ?? DEFAULT_SHOP_SETTINGS.timeZone,
+    temperatureUnit: (row?.temperatureUnit as TemperatureUnit | null | undefined) ?? DEFAULT_SHOP_SETTINGS.temperatureUnit,
+  };
+}

@@ -8,7 +8,7 @@ import { type NextRequest, NextResponse } from 'next/server';
 import { z } from 'zod';
 import { getDb, shuttingDown } from '@/db/client';
 import { members, organizations, shopSettings } from '@/db/schema';
-import { DEFAULT_SHOP_SETTINGS, type ShopSettings, type TemperatureUnit } from '@/domain/shop-settings';
+import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { rememberMembership } from './membership-cache';
@@ -88,7 +88,7 @@ async function lookUpMembership(s: SessionContext): Promise<Membership> {
         role: found.role,
         shopId: found.shopId,
         shopName: found.shopName,
-        settings: { timeZone: found.timeZone ?? DEFAULT_SHOP_SETTINGS.timeZone, temperatureUnit: (found.temperatureUnit as TemperatureUnit | null) ?? DEFAULT_SHOP_SETTINGS.temperatureUnit },
+        settings: shopSettingsFrom(found),
       }
     : s.activeShopId
       ? await lookUpMembership({ ...s, activeShopId: null })

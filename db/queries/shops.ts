@@ -2,7 +2,7 @@
 import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../client';
-import { DEFAULT_SHOP_SETTINGS, type ShopSettings } from '@/domain/shop-settings';
+import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';
 import { invitations, members, shopSettings, users } from '../schema';
 
 export async function listMembers(shopId: string) {
@@ -67,5 +67,5 @@ export async function saveShopSettings(shopId: string, settings: ShopSettings) {
 export async function getShopSettings(shopId: string): Promise<ShopSettings> {
   const db = await getDb();
   const [row] = await db.select({ timeZone: shopSettings.timeZone, temperatureUnit: shopSettings.temperatureUnit }).from(shopSettings).where(eq(shopSettings.shopId, shopId));
-  return row ? { timeZone: row.timeZone, temperatureUnit: row.temperatureUnit as ShopSettings['temperatureUnit'] } : DEFAULT_SHOP_SETTINGS;
+  return shopSettingsFrom(row);
 }
