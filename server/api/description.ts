@@ -190,11 +190,16 @@ let cached: ReturnType<typeof createDocument> | undefined;
 
 /** The OpenAPI 3.1 document (built once per process). */
 export function apiDescription(serverUrl: string): ReturnType<typeof createDocument> {
+  cached ??= build(serverUrl);
+  return cached;
+}
+
+function build(serverUrl: string): ReturnType<typeof createDocument> {
   const paths: ZodOpenApiPathsObject = {};
   for (const [path, methods] of Object.entries(API)) {
     paths[path] = Object.fromEntries(Object.entries(methods).map(([m, e]) => [m, operation(path, e)]));
   }
-  cached ??= createDocument({
+  return createDocument({
     openapi: '3.1.0',
     info: {
       title: 'Crankprint API',
@@ -207,5 +212,4 @@ export function apiDescription(serverUrl: string): ReturnType<typeof createDocum
     security: [{ session: [] }],
     paths,
   });
-  return cached;
 }

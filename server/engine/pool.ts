@@ -48,11 +48,11 @@ const pool = (): Promise<Piscina> =>
 /** Runs one task; a capture error comes back as the engine's CaptureError, a full queue as a 503. */
 async function runTask<T>(task: EngineTask, signal?: AbortSignal, transfer: ArrayBufferLike[] = []): Promise<T> {
   const p = await pool();
-  if (p.queueSize >= MAX_QUEUE) throw busy();
   let answer: EngineAnswer<T>;
   try {
     answer = await p.run(task, { signal, transferList: transfer as ArrayBuffer[] });
   } catch (e) {
+    // piscina refuses a task beyond maxQueue with this error.
     if (e instanceof Error && /queue is at limit/i.test(e.message)) throw busy();
     if (signal?.aborted) throw new HttpError(499, 'CANCELLED', 'The request was cancelled before the analysis finished.');
     throw e;
