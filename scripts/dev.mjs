@@ -5,25 +5,24 @@
 import { spawn } from 'node:child_process';
 import { createServer } from 'node:net';
 
-/** The port if it is free on 127.0.0.1, else a free one the system picks (said aloud). */
-function freePort(wanted, what) {
-  const tryPort = (p) => new Promise((resolve) => {
+/** Listens on `port` (0: any) on 127.0.0.1 for a moment: the port it got, or null when it is taken. */
+function listenOn(port) {
+  return new Promise((resolve) => {
     const s = createServer();
     s.once('error', () => resolve(null));
-    s.listen(p, '127.0.0.1', () => s.close(() => resolve(s.address()?.port ?? p)));
-  });
-  return tryPort(wanted).then(async (p) => {
-    if (p !== null) return wanted;
-    const other = await new Promise((resolve) => {
-      const s = createServer();
-      s.listen(0, '127.0.0.1', () => {
-        const { port } = s.address();
-        s.close(() => resolve(port));
-      });
+    s.listen(port, '127.0.0.1', () => {
+      const got = s.address().port;
+      s.close(() => resolve(got));
     });
-    console.log(`Crankprint: port ${wanted} (${what}) is in use; using ${other} instead.`);
-    return other;
   });
+}
+
+/** The port if it is free on 127.0.0.1, else a free one the system picks (said aloud). */
+async function freePort(wanted, what) {
+  if ((await listenOn(wanted)) !== null) return wanted;
+  const other = await listenOn(0);
+  console.log(`Crankprint: port ${wanted} (${what}) is in use; using ${other} instead.`);
+  return other;
 }
 
 const appPort = await freePort(Number(process.env.PORT || 3000), 'the app');

@@ -28,6 +28,12 @@ const app = next({ dev, hostname, port });
 const handle = app.getRequestHandler();
 await app.prepare();
 
+/** A 503 in the app's error shape, closing the connection. */
+function restarting(res, message, headers = {}) {
+  res.writeHead(503, { 'content-type': 'application/json', 'cache-control': 'no-store', connection: 'close', ...headers });
+  res.end(JSON.stringify({ error: { code: 'RESTARTING', message } }));
+}
+
 const open = new Set();
 let allDone = null;
 
@@ -35,8 +41,7 @@ const server = createServer((req, res) => {
   const id = randomUUID();
   res.setHeader('X-Request-Id', id);
   if (life.stopping) {
-    res.writeHead(503, { 'content-type': 'application/json', 'cache-control': 'no-store', 'retry-after': '5', connection: 'close' });
-    res.end(JSON.stringify({ error: { code: 'RESTARTING', message: 'The server is restarting; try again in a few seconds.' } }));
+    restarting(res, 'The server is restarting; try again in a few seconds.', { 'retry-after': '5' });
     return;
   }
   delete req.headers[CLIENT_HEADER];
@@ -73,10 +78,7 @@ async function stop(signal) {
   await settled(CUTOFF_MS / 2);
   // Still running after that (a store or an analysis): the client hears a 503 before the database closes.
   for (const res of open) {
-    if (!res.headersSent) {
-      res.writeHead(503, { 'content-type': 'application/json', 'cache-control': 'no-store', connection: 'close' });
-      res.end(JSON.stringify({ error: { code: 'RESTARTING', message: 'The server restarted before this finished; check the job, and send it again if it is not there.' } }));
-    }
+    if (!res.headersSent) restarting(res, 'The server restarted before this finished; check the job, and send it again if it is not there.');
   }
   server.close();
   server.closeAllConnections();
