@@ -10,7 +10,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
-import { type AnalysisSettingsValues, analysisSettingsSchema, engineSettings } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, analysisSettingsSchema, engineSettings, importOptions } from '@/db/validators/analysis';
 import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
 import { SURE_MAPPING } from '@/signal/steps/screen';
 import type { TraceChannel, WorkerError } from '@/workers/analysis-api';
@@ -75,7 +75,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
 
   // Load the capture into each worker this page starts (normally one).
   const { generation, open } = w;
-  const loadOptions = useRef({ mapping: settings.mapping, sampleRateHz: settings.sampleRateHz });
+  const loadOptions = useRef(importOptions(settings));
   useEffect(() => {
     if (generation === 0) return;
     const { mapping, sampleRateHz } = loadOptions.current;

@@ -1,6 +1,6 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
-import { type AnalysisSettings, parseWheel } from '../../signal';
+import { type AnalysisSettings, type ImportOptions, parseWheel } from '../../signal';
 import type { EngineSpec } from '../schema/shop';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'ignore'] as const;
@@ -43,6 +43,11 @@ export function settingsForEngine(e: EngineSpec): AnalysisSettingsValues {
   return analysisSettingsSchema.parse({
     engine: { cylinders: e.cylinders, firingOrder: e.firingOrder, intervalsDeg: e.intervalsDeg, layout: e.layout, numbering: e.numbering ?? 'along-crank' },
   });
+}
+
+/** How to read the file, from stored settings (kept apart from the analysis settings by the engine). */
+export function importOptions(s: AnalysisSettingsValues): ImportOptions {
+  return { mapping: s.mapping, sampleRateHz: s.sampleRateHz };
 }
 
 /** The engine's own settings from stored ones: the same call in the worker, on the server and in the seed. */

@@ -6,7 +6,7 @@
  * Capture errors come back as data (a class does not cross threads).
  */
 import { compressPiece, unpackPieces } from '@/db/chunks';
-import { type AnalysisSettingsValues, engineSettings } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/db/validators/analysis';
 import type { AnalysisResult, CaptureError } from '@/signal';
 import { analyzeBytes, analyzeCapture, CaptureImporter, isCaptureError, refusalFor } from '@/signal';
 import { traceExcerpt } from '../pdf/format';
@@ -42,9 +42,9 @@ async function run(task: EngineTask): Promise<unknown> {
     case 'screen-upload':
       return screenUpload(task);
     case 'analyze':
-      return analyzeBytes(unpackPieces(task.gz, task.size), engineSettings(task.settings), { mapping: task.settings.mapping, sampleRateHz: task.settings.sampleRateHz }).result;
+      return analyzeBytes(unpackPieces(task.gz, task.size), engineSettings(task.settings), importOptions(task.settings)).result;
     case 'trace':
-      return traceExcerpt(unpackPieces(task.gz, task.size), task.result, { mapping: task.settings.mapping, sampleRateHz: task.settings.sampleRateHz }) ?? null;
+      return traceExcerpt(unpackPieces(task.gz, task.size), task.result, importOptions(task.settings)) ?? null;
   }
 }
 
