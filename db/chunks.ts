@@ -38,12 +38,13 @@ export async function readPackedChunks(db: Pick<Db, 'select'>, captureId: string
   return rows.map((r) => Buffer.from(r.b64, 'base64'));
 }
 
-/** One array of `size` bytes from gzip pieces in order. */
-export function unpackPieces(gz: Uint8Array[], size: number): Uint8Array {
+/** One array of `size` bytes from pieces in order, gzip-compressed (chunk rows) or plain (an object's). */
+export function unpackPieces(pieces: Uint8Array[], size: number, gzip = true): Uint8Array {
+  if (!gzip && pieces.length === 1 && pieces[0].length === size) return pieces[0];
   const out = new Uint8Array(size);
   let o = 0;
-  for (const piece of gz) {
-    const part = gunzipSync(piece);
+  for (const piece of pieces) {
+    const part = gzip ? gunzipSync(piece) : piece;
     out.set(part, o);
     o += part.length;
   }

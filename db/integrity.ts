@@ -1,12 +1,11 @@
 /**
- * The stored captures checked against themselves: every chunk present, the bytes the stated size, and their
- * SHA-256 the one recorded at upload; every saved analysis pointing at its capture's hash. After a crash or a
- * restore, this is how a shop knows its files are whole.
+ * The stored captures checked against themselves: every chunk row or object present, the bytes the stated
+ * size, and their SHA-256 the one recorded at upload; every saved analysis pointing at its capture's hash. After
+ * a crash or a restore, this is how a shop knows its files are whole.
  */
-import { createHash } from 'node:crypto';
 import { asc, sql } from 'drizzle-orm';
+import { storedProblem } from './capture-store';
 import type { Db } from './client';
-import { readChunks } from './chunks';
 import { analyses, captures } from './schema';
 
 export interface CaptureCheck {
@@ -15,6 +14,8 @@ export interface CaptureCheck {
   sha256: string;
   chunkCount: number;
   chunksFound: number;
+  /** s3://bucket/key when the bytes are in object storage. */
+  storageUrl: string | null;
   ok: boolean;
   problem?: string;
 }
@@ -36,6 +37,7 @@ export async function checkIntegrity(db: Db, onProgress?: (done: number, total: 
       sha256: captures.sha256,
       sizeBytes: captures.sizeBytes,
       chunkCount: captures.chunkCount,
+      storageUrl: captures.storageUrl,
       chunksFound: sql<number>`(select count(*)::int from capture_chunks c where c.capture_id = ${captures.id})`,
     })
     .from(captures)
@@ -43,7 +45,7 @@ export async function checkIntegrity(db: Db, onProgress?: (done: number, total: 
   const checks: CaptureCheck[] = [];
   for (const r of rows) {
     const problem = await captureProblem(db, r);
-    checks.push({ id: r.id, fileName: r.fileName, sha256: r.sha256, chunkCount: r.chunkCount, chunksFound: r.chunksFound, ok: !problem, problem });
+    checks.push({ id: r.id, fileName: r.fileName, sha256: r.sha256, chunkCount: r.chunkCount, chunksFound: r.chunksFound, storageUrl: r.storageUrl, ok: !problem, problem });
     onProgress?.(checks.length, rows.length);
   }
   const saved = await db.select({ id: analyses.id, captureId: analyses.captureId, fileSha256: analyses.fileSha256 }).from(analyses);
@@ -58,13 +60,11 @@ export async function checkIntegrity(db: Db, onProgress?: (done: number, total: 
 }
 
 /** What is wrong with one stored capture, or undefined when it is whole. */
-async function captureProblem(db: Db, r: { id: string; sha256: string; sizeBytes: number; chunkCount: number; chunksFound: number }): Promise<string | undefined> {
+async function captureProblem(db: Db, r: { id: string; sha256: string; sizeBytes: number; chunkCount: number; chunksFound: number; storageUrl: string | null }): Promise<string | undefined> {
   if (r.chunksFound !== r.chunkCount) return `${r.chunksFound} of ${r.chunkCount} chunks are stored`;
   try {
-    const bytes = await readChunks(db, r.id, r.sizeBytes);
-    if (createHash('sha256').update(bytes).digest('hex') !== r.sha256) return 'the stored bytes do not match the SHA-256 recorded at upload';
+    return await storedProblem(db, r);
   } catch (e) {
     return `the stored bytes cannot be read (${(e as Error).message})`;
   }
-  return undefined;
 }

@@ -8,6 +8,7 @@ import { join } from 'node:path';
 import { hashPassword } from 'better-auth/crypto';
 import { sql } from 'drizzle-orm';
 import { analyzeBytes } from '../signal';
+import { traceExcerpt } from '../domain/trace-excerpt';
 import { compressPiece, insertChunks } from './chunks';
 import { engineSettings, settingsForEngine } from './validators/analysis';
 import type { Db } from './client';
@@ -106,8 +107,9 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
       await insertChunks(tx, captureId, chunks);
       const engine = DEMO_VEHICLES[j.vehicle].engine;
       const settings = settingsForEngine(engine);
-      const { result } = analyzeBytes(bytes, engineSettings(settings));
-      await tx.insert(analyses).values({ shopId, captureId, settings, engineVersion: result.engineVersion, fileSha256: sha256, result, verdict: result.verdict, crankingRpm: result.crankingRpm, createdBy: ids[1], createdAt: at });
+      const { capture, result } = analyzeBytes(bytes, engineSettings(settings));
+      const trace = traceExcerpt(capture.columns, result) ?? null;
+      await tx.insert(analyses).values({ shopId, captureId, settings, engineVersion: result.engineVersion, fileSha256: sha256, result, trace, verdict: result.verdict, crankingRpm: result.crankingRpm, createdBy: ids[1], createdAt: at });
     }
   });
   return true;

@@ -2,15 +2,16 @@
  * Reads an uploaded capture from the request stream: refuses what is too large (413), compressed or not text
  * (415), hashes it (SHA-256) in 1 MB pieces, and has the engine's thread pool import every byte as the analysis
  * will, so a file that cannot be read — or holds nothing to analyse for this engine — is refused (422) before
- * anything is stored; the pool also compresses the pieces for storage.
+ * anything is stored; the pool also compresses the pieces for chunk rows (object storage takes them as they are).
  */
 import 'server-only';
 import { createHash } from 'node:crypto';
 import { CHUNK_BYTES } from '@/db/chunks';
 import { pastCutOff } from '@/db/client';
+import { captureStoreTarget } from '@/db/object-store';
 import type { EngineSpec } from '@/db/schema';
 import { settingsForEngine } from '@/db/validators/analysis';
-import { type CaptureError, isCaptureError, MAX_CAPTURE_BYTES } from '@/signal';
+import { type AnalysisResult, type CaptureError, isCaptureError, MAX_CAPTURE_BYTES } from '@/signal';
 import { screenUpload } from './engine/pool';
 import { HttpError } from './http';
 
@@ -20,7 +21,10 @@ export interface ReceivedCapture {
   contentType: string;
   sizeBytes: number;
   sha256: string;
+  pieces: Uint8Array[];
   chunks: Uint8Array[];
+  /** The engine's reading with the job's engine and default settings, made while screening. */
+  screening: AnalysisResult;
 }
 
 /** A 422 carrying the engine's sentence and, when it has one, the line and column. */
@@ -100,8 +104,8 @@ export async function receiveCapture(body: ReadableStream<Uint8Array>, length: n
   }
   if (size === 0 || pieces.length === 0) throw new HttpError(400, 'EMPTY_FILE', 'The file is empty; export the capture again.');
   try {
-    const { chunks } = await screenUpload(pieces, length, settingsForEngine(engine), signal);
-    return { contentType, sizeBytes: size, sha256: hash.digest('hex'), chunks };
+    const { chunks, result } = await screenUpload(pieces, length, settingsForEngine(engine), !captureStoreTarget(), signal);
+    return { contentType, sizeBytes: size, sha256: hash.digest('hex'), pieces, chunks, screening: result };
   } catch (e) {
     if (isCaptureError(e)) throw new UnreadableCaptureError(e);
     throw e;

@@ -30,4 +30,5 @@ export function analyzeBytes(
 }
 export { identityWords, intervalText, METHOD_NAMES, percentText } from './format';
 export { compareResults } from './steps/compare';
+export { toothPeriods } from './teeth/periods';
 export type { CylinderChange } from './steps/compare';

@@ -12,6 +12,7 @@ const WORDS: Record<string, (d: Detail) => string> = {
   'shop.create': () => 'created the shop',
   'job.create': () => 'opened a job',
   'job.update': (d) => (d.status ? `set a job to ${d.status}` : 'changed a job'),
+  'job.delete': (d) => `removed job ${d.repairOrder ?? ''} with ${d.captures ?? 0} capture(s)`.replace('  ', ' '),
   'vehicle.create': () => 'added a vehicle',
   'capture.upload': (d) => `uploaded ${d.fileName ?? 'a capture'}${typeof d.sizeBytes === 'number' ? ` (${(d.sizeBytes / 1048576).toFixed(1)} MB)` : ''}`,
   'analysis.save': (d) => `saved an analysis${d.verdict ? ` (${d.verdict})` : ''}`,

@@ -1,12 +1,16 @@
 /**
- * Captures of one shop: raw bytes gzip-compressed in chunk rows, written in one transaction (a failed or
- * cancelled upload leaves nothing), read back in order. Every function takes the shop id it is scoped to.
+ * Captures of one shop: raw bytes gzip-compressed in chunk rows written in the same transaction as the row, or
+ * (CAPTURE_STORE) one object written before the row and removed again when the row cannot be written, so a
+ * failed or cancelled upload leaves nothing. Every function takes the shop id it is scoped to.
  */
 import 'server-only';
 import { and, desc, eq } from 'drizzle-orm';
-import { insertChunks, readChunks, readPackedChunks } from '../chunks';
+import { readStoredPieces, type StoredPieces, storedStream } from '../capture-store';
+import { insertChunks } from '../chunks';
 import { getDb } from '../client';
+import { captureStoreTarget, deleteObjects, newCaptureUrl, putObject } from '../object-store';
 import { analyses, captures, jobs } from '../schema';
+import type { TraceExcerpt } from '@/domain/trace-excerpt';
 
 export interface NewCapture {
   jobId: string;
@@ -14,7 +18,9 @@ export interface NewCapture {
   contentType: string;
   sizeBytes: number;
   sha256: string;
-  /** gzip-compressed pieces, in order (see db/chunks.ts). */
+  /** The file's bytes in pieces, in order. */
+  pieces: Uint8Array[];
+  /** The same pieces gzip-compressed for chunk rows (see db/chunks.ts); empty when CAPTURE_STORE is set. */
   chunks: Uint8Array[];
   uploadedBy: string;
 }
@@ -39,21 +45,50 @@ const captureColumns = {
 };
 
 /** Stores a capture; throws DuplicateCaptureError when the same file is already on the job. Null when the job is not the shop's. */
-export async function createCapture(shopId: string, c: NewCapture) {
+export async function createCapture(shopId: string, c: NewCapture, signal?: AbortSignal) {
   const db = await getDb();
-  return db.transaction(async (tx) => {
+  const target = captureStoreTarget();
+  const id = crypto.randomUUID();
+  const storageUrl = target ? newCaptureUrl(target, shopId, id) : null;
+  const check = async (tx: Pick<typeof db, 'select'>) => {
     const [job] = await tx.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, c.jobId)));
-    if (!job) return null;
+    if (!job) return false;
     const [dupe] = await tx.select({ id: captures.id }).from(captures).where(and(eq(captures.jobId, c.jobId), eq(captures.sha256, c.sha256)));
     if (dupe) throw new DuplicateCaptureError(dupe.id);
-    const [row] = await tx
-      .insert(captures)
-      .values({ shopId, jobId: c.jobId, fileName: c.fileName, contentType: c.contentType, sizeBytes: c.sizeBytes, sha256: c.sha256, chunkCount: c.chunks.length, uploadedBy: c.uploadedBy })
-      .returning(captureColumns);
-    await insertChunks(tx, row.id, c.chunks);
-    await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, c.jobId));
-    return row;
-  });
+    return true;
+  };
+  if (storageUrl) {
+    // The object first (outside any transaction, which would hold the embedded database for the whole upload).
+    if (!(await check(db))) return null;
+    await putObject(storageUrl, c.pieces, { sha256: c.sha256, contentType: c.contentType }, signal);
+  }
+  try {
+    return await db.transaction(async (tx) => {
+      if (!(await check(tx))) return null;
+      const [row] = await tx
+        .insert(captures)
+        .values({
+          id,
+          shopId,
+          jobId: c.jobId,
+          fileName: c.fileName,
+          contentType: c.contentType,
+          sizeBytes: c.sizeBytes,
+          sha256: c.sha256,
+          compression: storageUrl ? 'none' : 'gzip',
+          chunkCount: storageUrl ? 0 : c.chunks.length,
+          storageUrl,
+          uploadedBy: c.uploadedBy,
+        })
+        .returning(captureColumns);
+      if (!storageUrl) await insertChunks(tx, row.id, c.chunks);
+      await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, c.jobId));
+      return row;
+    });
+  } catch (e) {
+    if (storageUrl) await deleteObjects([storageUrl]).catch(() => {});
+    throw e;
+  }
 }
 
 export async function listCaptures(shopId: string, jobId: string) {
@@ -67,23 +102,30 @@ export async function getCapture(shopId: string, captureId: string) {
   return row ?? null;
 }
 
-/** The capture's raw bytes, decompressed, or null when it is not the shop's. */
-export async function readCaptureBytes(shopId: string, captureId: string): Promise<Uint8Array | null> {
-  const capture = await getCapture(shopId, captureId);
-  if (!capture) return null;
-  return readChunks(await getDb(), captureId, capture.sizeBytes);
+async function storedRef(shopId: string, captureId: string) {
+  const db = await getDb();
+  const [row] = await db
+    .select({ id: captures.id, sizeBytes: captures.sizeBytes, storageUrl: captures.storageUrl })
+    .from(captures)
+    .where(and(eq(captures.shopId, shopId), eq(captures.id, captureId)));
+  return row ?? null;
 }
 
-/** A capture's stored gzip pieces and size, for the engine's thread pool; null for another shop's capture. */
-export async function readCapturePacked(shopId: string, captureId: string): Promise<{ gz: Uint8Array[]; size: number } | null> {
-  const capture = await getCapture(shopId, captureId);
-  if (!capture) return null;
-  return { gz: await readPackedChunks(await getDb(), captureId), size: capture.sizeBytes };
+/** The capture's raw file as a stream, or null when it is not the shop's. */
+export async function readCaptureStream(shopId: string, captureId: string, signal?: AbortSignal): Promise<ReadableStream<Uint8Array> | null> {
+  const ref = await storedRef(shopId, captureId);
+  return ref && storedStream(await getDb(), ref, signal);
+}
+
+/** A capture's stored pieces, for the engine's thread pool; null for another shop's capture. */
+export async function readCapturePacked(shopId: string, captureId: string, signal?: AbortSignal): Promise<StoredPieces | null> {
+  const ref = await storedRef(shopId, captureId);
+  return ref && readStoredPieces(await getDb(), ref, signal);
 }
 
 export async function saveAnalysis(
   shopId: string,
-  a: { captureId: string; settings: unknown; engineVersion: string; fileSha256: string; result: unknown; verdict: string; crankingRpm: number; createdBy: string },
+  a: { captureId: string; settings: unknown; engineVersion: string; fileSha256: string; result: unknown; trace: TraceExcerpt | null; verdict: string; crankingRpm: number; createdBy: string },
 ) {
   const db = await getDb();
   const [row] = await db.insert(analyses).values({ shopId, ...a }).returning();

@@ -2,7 +2,8 @@
 import 'server-only';
 import { and, desc, eq, ilike, or, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
-import { jobs, vehicles } from '../schema';
+import { deleteObjects } from '../object-store';
+import { captures, jobs, vehicles } from '../schema';
 import type { JobValues } from '../validators/job';
 import { engineSpec } from './vehicles';
 
@@ -88,4 +89,24 @@ export async function updateJob(shopId: string, jobId: string, patch: { status?:
     .where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)))
     .returning();
   return row ?? null;
+}
+
+/**
+ * Removes a job with its captures, analyses, report and share links (the rows cascade), then the captures' objects
+ * in object storage. The rows go first: an object left behind by a failed delete costs storage, a row whose
+ * object is gone would be a broken capture. Returns the number of captures removed, or null for another shop's job.
+ */
+export async function deleteJob(shopId: string, jobId: string): Promise<{ captures: number } | null> {
+  const db = await getDb();
+  const removed = await db.transaction(async (tx) => {
+    const [job] = await tx.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+    if (!job) return null;
+    const rows = await tx.select({ storageUrl: captures.storageUrl }).from(captures).where(and(eq(captures.shopId, shopId), eq(captures.jobId, jobId)));
+    await tx.delete(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+    return rows;
+  });
+  if (!removed) return null;
+  const urls = removed.flatMap((r) => (r.storageUrl ? [r.storageUrl] : []));
+  if (urls.length) await deleteObjects(urls);
+  return { captures: removed.length };
 }

@@ -1,5 +1,6 @@
-/** The shop's own records: vehicles, jobs, captures (raw bytes compressed in chunk rows), analyses, reports, audit. */
+/** The shop's own records: vehicles, jobs, captures (raw bytes compressed in chunk rows, or in object storage), analyses, reports, audit. */
 import { customType, index, integer, jsonb, pgTable, primaryKey, real, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import { organizations, users } from './auth';
 
 const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({
@@ -76,6 +77,8 @@ export const captures = pgTable(
     sha256: text().notNull(),
     compression: text().notNull().default('gzip'),
     chunkCount: integer().notNull(),
+    /** s3://bucket/key when the raw bytes live in object storage (CAPTURE_STORE); null when they are chunk rows here. */
+    storageUrl: text(),
     uploadedBy: text().references(() => users.id, { onDelete: 'set null' }),
     createdAt: created(),
   },
@@ -106,6 +109,8 @@ export const analyses = pgTable(
     engineVersion: text().notNull(),
     fileSha256: text().notNull(),
     result: jsonb().notNull(),
+    /** The report's trace excerpt, drawn when the analysis was saved (null for analyses saved before it was kept). */
+    trace: jsonb().$type<TraceExcerpt>(),
     verdict: text().notNull(),
     crankingRpm: real(),
     createdBy: text().references(() => users.id, { onDelete: 'set null' }),

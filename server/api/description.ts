@@ -11,6 +11,7 @@ import { jobSchema, jobUpdateSchema, listQuerySchema } from '@/db/validators/job
 import { reportContentSchema } from '@/db/validators/report';
 import { vehicleSchema } from '@/db/validators/vehicle';
 import { shopSettingsSchema } from '@/domain/shop-settings';
+import { screeningSchema } from '@/domain/screening';
 import {
   createProfileInput,
   createShopInput,
@@ -126,6 +127,12 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
   '/api/jobs/{jobId}': {
     get: { summary: 'One job with its vehicle.', who: MEMBER, path: idParam('jobId'), ok: z.object({ job: job.extend({ vehicle }) }) },
     patch: { summary: 'Changes a job’s status, concern or odometer.', who: EDITORS, path: idParam('jobId'), body: jobUpdateSchema, ok: z.object({ job }), errors: [413, 415] },
+    delete: {
+      summary: 'Removes the job with its captures (and their files in object storage), analyses, report and share links. Audited.',
+      who: OWNERS,
+      path: idParam('jobId'),
+      ok: z.object({ removed: z.object({ jobId: z.string(), captures: z.number().int() }) }),
+    },
   },
   '/api/jobs/{jobId}/captures': {
     get: { summary: 'The job’s captures.', who: MEMBER, path: idParam('jobId'), ok: z.object({ captures: z.array(capture) }) },
@@ -134,7 +141,7 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
       who: EDITORS,
       path: idParam('jobId'),
       body: z.string().meta({ description: 'The capture file (Content-Type text/csv or text/tab-separated-values).' }),
-      ok: z.object({ capture }),
+      ok: z.object({ capture, screening: screeningSchema.meta({ description: 'The engine’s reading with the job’s engine and default settings, made while screening (not saved).' }) }),
       errors: [409, 413, 415, 422, 503],
     },
   },

@@ -10,8 +10,10 @@ import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
 import { CaptureError, type AnalysisResult } from '@/signal';
+import type { StoredPieces } from '@/db/capture-store';
 import type { AnalysisSettingsValues } from '@/db/validators/analysis';
-import type { PdfTrace, ReportPdfData } from '../pdf/report-document';
+import type { TraceExcerpt } from '@/domain/trace-excerpt';
+import type { ReportPdfData } from '../pdf/report-document';
 import { HttpError } from '../http';
 import type { EngineAnswer, EngineTask } from './thread';
 
@@ -63,19 +65,23 @@ async function runTask<T>(task: EngineTask, signal?: AbortSignal, transfer: Arra
 
 const busy = () => new HttpError(503, 'BUSY', 'The server is busy analysing other captures; try again in a minute.');
 
-/** Imports and analyses an upload's pieces, refusing what holds nothing to analyse; returns the gzip pieces to store. */
-export function screenUpload(pieces: Uint8Array[], length: number, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<{ chunks: Uint8Array[] }> {
-  return runTask({ kind: 'screen-upload', pieces, length, settings }, signal);
+/**
+ * Imports and analyses an upload's pieces, refusing what holds nothing to analyse; returns the result with the
+ * job's engine and the gzip pieces for chunk rows (none when `compress` is false: the file goes to object storage
+ * as it is).
+ */
+export function screenUpload(pieces: Uint8Array[], length: number, settings: AnalysisSettingsValues, compress: boolean, signal?: AbortSignal): Promise<{ chunks: Uint8Array[]; result: AnalysisResult }> {
+  return runTask({ kind: 'screen-upload', pieces, length, settings, compress }, signal);
 }
 
-/** The engine on a stored capture (its gzip pieces) with the given settings. */
-export function analyzeStored(gz: Uint8Array[], size: number, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<AnalysisResult> {
-  return runTask({ kind: 'analyze', gz, size, settings }, signal);
+/** The engine on a stored capture with the given settings, and the report's trace excerpt from the same reading. */
+export function analyzeStored(stored: StoredPieces, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<{ result: AnalysisResult; trace: TraceExcerpt | null }> {
+  return runTask({ kind: 'analyze', stored, settings }, signal);
 }
 
-/** The report's trace excerpt from a stored capture, or null when it has no channel to draw. */
-export function storedTraceExcerpt(gz: Uint8Array[], size: number, result: AnalysisResult, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<PdfTrace | null> {
-  return runTask({ kind: 'trace', gz, size, result, settings }, signal);
+/** The report's trace excerpt from a stored capture (for analyses saved before excerpts were kept), or null when it has no channel to draw. */
+export function storedTraceExcerpt(stored: StoredPieces, result: AnalysisResult, settings: AnalysisSettingsValues, signal?: AbortSignal): Promise<TraceExcerpt | null> {
+  return runTask({ kind: 'trace', stored, result, settings }, signal);
 }
 
 /** A report PDF from its data (@react-pdf/renderer in a thread). */

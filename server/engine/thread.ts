@@ -1,22 +1,23 @@
 /**
  * The engine's work on the server, run in a worker thread of the pool (server/engine/pool.ts), never on the
  * request thread: screening an upload (import every byte, analyse, refuse what holds nothing to analyse,
- * compress the pieces for storage), analysing a stored capture, drawing a stored capture's trace excerpt, and
+ * compress the pieces for chunk rows), analysing a stored capture, drawing a stored capture's trace excerpt, and
  * rendering a report PDF.
  * Capture errors come back as data (a class does not cross threads).
  */
+import type { StoredPieces } from '@/db/capture-store';
 import { compressPiece, unpackPieces } from '@/db/chunks';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/db/validators/analysis';
 import type { AnalysisResult, CaptureError } from '@/signal';
 import { analyzeBytes, analyzeCapture, CaptureImporter, isCaptureError, refusalFor } from '@/signal';
-import { traceExcerpt } from '../pdf/format';
+import { type TraceExcerpt, traceExcerpt } from '@/domain/trace-excerpt';
 import type { ReportPdfData } from '../pdf/report-document';
 import { renderReportPdf } from '../pdf/render';
 
 export type EngineTask =
-  | { kind: 'screen-upload'; pieces: Uint8Array[]; length: number; settings: AnalysisSettingsValues }
-  | { kind: 'analyze'; gz: Uint8Array[]; size: number; settings: AnalysisSettingsValues }
-  | { kind: 'trace'; gz: Uint8Array[]; size: number; result: AnalysisResult; settings: AnalysisSettingsValues }
+  | { kind: 'screen-upload'; pieces: Uint8Array[]; length: number; settings: AnalysisSettingsValues; compress: boolean }
+  | { kind: 'analyze'; stored: StoredPieces; settings: AnalysisSettingsValues }
+  | { kind: 'trace'; stored: StoredPieces; result: AnalysisResult; settings: AnalysisSettingsValues }
   | { kind: 'pdf'; data: ReportPdfData };
 
 export interface EngineFailure {
@@ -25,14 +26,22 @@ export interface EngineFailure {
 }
 export type EngineAnswer<T> = { ok: true; value: T } | EngineFailure;
 
-function screenUpload(t: Extract<EngineTask, { kind: 'screen-upload' }>): { chunks: Uint8Array[] } {
+function screenUpload(t: Extract<EngineTask, { kind: 'screen-upload' }>): { chunks: Uint8Array[]; result: AnalysisResult } {
   const importer = new CaptureImporter(t.pieces[0], Math.max(t.length, t.pieces[0].length));
   for (const piece of t.pieces) importer.push(piece);
   const imported = importer.finish();
   const result = analyzeCapture(imported.columns, engineSettings(t.settings), imported.warnings);
   const refusal = refusalFor(imported, result);
   if (refusal) throw refusal;
-  return { chunks: t.pieces.map(compressPiece) };
+  return { chunks: t.compress ? t.pieces.map(compressPiece) : [], result };
+}
+
+const bytesOf = (s: StoredPieces) => unpackPieces(s.pieces, s.size, s.gzip);
+
+/** One import of the stored file: the analysis and, from the same columns, the report's trace excerpt. */
+function analyzeStored(t: Extract<EngineTask, { kind: 'analyze' }>): { result: AnalysisResult; trace: TraceExcerpt | null } {
+  const { capture, result } = analyzeBytes(bytesOf(t.stored), engineSettings(t.settings), importOptions(t.settings));
+  return { result, trace: traceExcerpt(capture.columns, result) ?? null };
 }
 
 async function run(task: EngineTask): Promise<unknown> {
@@ -42,9 +51,11 @@ async function run(task: EngineTask): Promise<unknown> {
     case 'screen-upload':
       return screenUpload(task);
     case 'analyze':
-      return analyzeBytes(unpackPieces(task.gz, task.size), engineSettings(task.settings), importOptions(task.settings)).result;
-    case 'trace':
-      return traceExcerpt(unpackPieces(task.gz, task.size), task.result, importOptions(task.settings)) ?? null;
+      return analyzeStored(task);
+    case 'trace': {
+      const { capture } = analyzeBytes(bytesOf(task.stored), engineSettings(task.settings), importOptions(task.settings));
+      return traceExcerpt(capture.columns, task.result) ?? null;
+    }
   }
 }
 

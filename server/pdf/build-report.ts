@@ -19,13 +19,12 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const analyses = [];
   for (const a of b.analyses) {
     const result = a.analysis.result as AnalysisResult;
-    // The first analysis's trace excerpt, drawn in the engine's thread pool from the stored capture.
-    const packed = a === b.analyses[0] ? await readCapturePacked(b.shop.id, a.capture.id) : null;
-    let trace: PdfTrace | undefined;
-    try {
-      trace = packed ? ((await storedTraceExcerpt(packed.gz, packed.size, result, a.analysis.settings as AnalysisSettingsValues)) ?? undefined) : undefined;
-    } catch {
-      trace = undefined;
+    // The first analysis's trace excerpt, stored when it was saved; drawn from the capture only for an analysis
+    // saved before excerpts were kept.
+    let trace: PdfTrace | undefined = a === b.analyses[0] ? (a.analysis.trace ?? undefined) : undefined;
+    if (a === b.analyses[0] && !a.analysis.trace) {
+      const packed = await readCapturePacked(b.shop.id, a.capture.id);
+      trace = packed ? ((await storedTraceExcerpt(packed, result, a.analysis.settings as AnalysisSettingsValues).catch(() => null)) ?? undefined) : undefined;
     }
     analyses.push({ label: `${a.jobRepairOrder} · ${a.capture.fileName} · saved ${formatWhen(a.analysis.createdAt, timeZone)}`, result, fileSha256: a.analysis.fileSha256, savedAtMs: a.analysis.createdAt.getTime(), trace });
   }

@@ -5,14 +5,10 @@
  */
 import { Document, G, Line, Page, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
 import { type AnalysisResult, compareResults, identityWords, intervalText, METHOD_NAMES, percentText } from '@/signal';
+import type { TraceExcerpt } from '@/domain/trace-excerpt';
 
-export interface PdfTrace {
-  t: number[];
-  v: number[];
-  unit: string;
-  label: string;
-  events: { timeS: number; cylinder: number }[];
-}
+/** The stored trace excerpt (domain/trace-excerpt.ts). */
+export type PdfTrace = TraceExcerpt;
 
 export interface PdfAnalysis {
   label: string;

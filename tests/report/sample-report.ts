@@ -2,7 +2,8 @@
 import { readFileSync } from 'node:fs';
 import { CAUTIONS } from '@/domain/cautions';
 import { interpretationFor, nextStepsFor, TEST_LIMITS } from '@/domain/report-wording';
-import { conditionRows, traceExcerpt } from '@/server/pdf/format';
+import { traceExcerpt } from '@/domain/trace-excerpt';
+import { conditionRows } from '@/server/pdf/format';
 import type { ReportPdfData } from '@/server/pdf/report-document';
 import { analyzeBytes } from '@/signal';
 
@@ -10,7 +11,7 @@ export function sampleReportData(): ReportPdfData {
   const bytes = new Uint8Array(readFileSync('samples/i4-burnt-valve-current-sync.csv'));
   const after = new Uint8Array(readFileSync('samples/i4-healthy-current-sync.csv'));
   const engine = { cylinders: 4, firingOrder: [1, 3, 4, 2], layout: 'inline' as const };
-  const r = analyzeBytes(bytes, { engine }).result;
+  const { capture, result: r } = analyzeBytes(bytes, { engine });
   const r2 = analyzeBytes(after, { engine }).result;
   return {
     shopName: 'Demo Engine Clinic',
@@ -27,7 +28,7 @@ export function sampleReportData(): ReportPdfData {
     interpretation: interpretationFor(r),
     nextSteps: nextStepsFor(r),
     analyses: [
-      { label: 'RO-24101 · before', result: r, fileSha256: 'a'.repeat(64), trace: traceExcerpt(bytes, r) },
+      { label: 'RO-24101 · before', result: r, fileSha256: 'a'.repeat(64), trace: traceExcerpt(capture.columns, r) },
       { label: 'RO-24101 · after', result: r2, fileSha256: 'b'.repeat(64) },
     ],
     cautions: CAUTIONS,

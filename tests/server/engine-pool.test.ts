@@ -12,6 +12,7 @@ import { analyzeBytes, isCaptureError, refusalFor } from '@/signal';
 import { analyzeStored, MAX_QUEUE, renderPdf, screenUpload, THREADS } from '@/server/engine/pool';
 import { sampleReportData } from '../report/sample-report';
 import { HttpError } from '@/server/http';
+import { traceExcerpt } from '@/domain/trace-excerpt';
 
 const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
 const I4 = settingsForEngine({ cylinders: 4, layout: 'inline', firingOrder: [1, 3, 4, 2] });
@@ -22,18 +23,28 @@ afterAll(async () => {
   await (globalThis as unknown as { __crankprintEnginePoolReady?: { destroy(): Promise<void> } }).__crankprintEnginePoolReady?.destroy();
 });
 
+const stored = (chunks: Uint8Array[]) => ({ pieces: chunks, size: SAMPLE.length, gzip: true });
+
 describe('engine thread pool', () => {
-  it('screens an upload in a thread and hands back gzip pieces that unpack to the same bytes', async () => {
-    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
+  it('screens an upload in a thread and hands back gzip pieces that unpack to the same bytes, with the engine’s reading', async () => {
+    const { chunks, result } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4, true);
+    expect(JSON.parse(JSON.stringify(result))).toEqual(JSON.parse(JSON.stringify(analyzeBytes(new Uint8Array(SAMPLE), engineSettings(I4), {}).result)));
     expect(chunks.length).toBe(Math.ceil(SAMPLE.length / (1 << 18)));
     expect(sha(unpackPieces(chunks, SAMPLE.length))).toBe(sha(SAMPLE));
   });
 
-  it('analyses a stored capture exactly as the engine does on this thread', async () => {
-    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
-    const there = await analyzeStored(chunks, SAMPLE.length, I4);
-    const here = analyzeBytes(new Uint8Array(SAMPLE), engineSettings(I4), {}).result;
-    expect(there).toEqual(JSON.parse(JSON.stringify(here)));
+  it('analyses a stored capture exactly as the engine does on this thread, from chunk rows or from an object', async () => {
+    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4, true);
+    const there = await analyzeStored(stored(chunks), I4);
+    const here = analyzeBytes(new Uint8Array(SAMPLE), engineSettings(I4), {});
+    expect(JSON.parse(JSON.stringify(there.result))).toEqual(JSON.parse(JSON.stringify(here.result)));
+    // The report's excerpt comes from the same reading.
+    expect(there.trace).toEqual(traceExcerpt(here.capture.columns, here.result));
+    expect(await analyzeStored({ pieces: pieces(SAMPLE), size: SAMPLE.length, gzip: false }, I4)).toEqual(there);
+  });
+
+  it('hands back no gzip pieces when the file goes to object storage as it is', async () => {
+    expect((await screenUpload(pieces(SAMPLE), SAMPLE.length, I4, false)).chunks).toEqual([]);
   });
 
   it('refuses a file with nothing to analyse with the engine’s own error, as it would on this thread', async () => {
@@ -41,14 +52,14 @@ describe('engine thread pool', () => {
     const local = analyzeBytes(new Uint8Array(flat), engineSettings(I4), {});
     const expected = refusalFor(local.capture, local.result);
     expect(expected).not.toBeNull();
-    const e = await screenUpload(pieces(flat), flat.length, I4).catch((x: unknown) => x);
+    const e = await screenUpload(pieces(flat), flat.length, I4, true).catch((x: unknown) => x);
     expect(isCaptureError(e)).toBe(true);
     expect(e).toMatchObject({ code: expected!.code, message: expected!.message });
   });
 
   it('turns work away with a 503 at once when the queue is full', async () => {
-    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
-    const tasks = Array.from({ length: THREADS + MAX_QUEUE + 3 }, () => analyzeStored(chunks, SAMPLE.length, I4).then(() => 'done', (e: unknown) => e));
+    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4, true);
+    const tasks = Array.from({ length: THREADS + MAX_QUEUE + 3 }, () => analyzeStored(stored(chunks), I4).then(() => 'done', (e: unknown) => e));
     const answers = await Promise.all(tasks);
     const busy = answers.filter((a) => a instanceof HttpError && a.status === 503);
     expect(busy.length).toBeGreaterThan(0);
@@ -63,9 +74,9 @@ describe('engine thread pool', () => {
   });
 
   it('cancels a task when its request is aborted', async () => {
-    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4);
+    const { chunks } = await screenUpload(pieces(SAMPLE), SAMPLE.length, I4, true);
     const ac = new AbortController();
-    const run = analyzeStored(chunks, SAMPLE.length, I4, ac.signal).catch((e: unknown) => e);
+    const run = analyzeStored(stored(chunks), I4, ac.signal).catch((e: unknown) => e);
     ac.abort();
     const e = await run;
     expect(e).toBeInstanceOf(HttpError);

@@ -12,6 +12,7 @@ import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
 import type { AnalysisResult } from '@/signal';
 import { CaptureUpload } from './_components/capture-upload';
 import { MiniBars } from './_components/mini-bars';
+import { RemoveJob } from './_components/remove-job';
 import { pageMember } from '@/server/page-context';
 
 export const metadata: Metadata = { title: 'Job' };
@@ -118,6 +119,14 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
         </h2>
         <ActivityList items={activity} timeZone={m.shop.settings.timeZone} />
       </section>
+      {m.can({ job: ['delete'] }) && (
+        <section aria-labelledby="remove" className="flex flex-col items-start gap-3 rounded-2xl border border-line bg-surface p-5">
+          <h2 id="remove" className="text-lg font-bold">
+            Remove
+          </h2>
+          <RemoveJob jobId={job.id} repairOrder={job.repairOrder} captures={captures.length} />
+        </section>
+      )}
     </div>
   );
 }

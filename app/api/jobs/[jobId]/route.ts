@@ -1,7 +1,7 @@
-/** One job of the shop; another shop's job is a 404. */
+/** One job of the shop; another shop's job is a 404. Owners may remove a job with everything on it. */
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
-import { getJob, updateJob } from '@/db/queries/jobs';
+import { deleteJob, getJob, updateJob } from '@/db/queries/jobs';
 import { jobUpdateSchema } from '@/db/validators/job';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
@@ -18,4 +18,12 @@ export const PATCH = withShop({ job: ['update'] }, jobUpdateSchema.extend({ jobI
   if (!job) throw notFound('That job');
   await recordAudit(shop.id, user.id, 'job.update', { type: 'job', id: job.id }, patch);
   return { job };
+});
+
+export const DELETE = withShop({ job: ['delete'] }, z.object({ jobId: z.string() }), async ({ input, shop, user }) => {
+  const job = await getJob(shop.id, input.jobId);
+  const removed = job && (await deleteJob(shop.id, input.jobId));
+  if (!job || !removed) throw notFound('That job');
+  await recordAudit(shop.id, user.id, 'job.delete', { type: 'job', id: job.id }, { repairOrder: job.repairOrder, captures: removed.captures });
+  return { removed: { jobId: job.id, captures: removed.captures } };
 });

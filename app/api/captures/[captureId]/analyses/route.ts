@@ -1,6 +1,6 @@
 /**
  * Saving an analysis: the server re-runs the same engine (in its thread pool) on the stored raw file with the given settings and
- * stores settings, engine version, file SHA-256 and results. Nothing is overwritten; each save adds one.
+ * stores settings, engine version, file SHA-256, results and the report's trace excerpt. Nothing is overwritten; each save adds one.
  * A file the engine cannot read answers 422 with the engine's error code, line and column.
  */
 import { saveAnalysisInput } from '@/server/api/inputs';
@@ -19,12 +19,12 @@ export const GET = withShop({ analysis: ['read'] }, z.object({ captureId: z.stri
 
 export const POST = withShop({ analysis: ['save'] }, saveAnalysisInput.extend({ captureId: z.string() }), async ({ input, shop, user, req }) => {
   const capture = await getCapture(shop.id, input.captureId);
-  const packed = capture && (await readCapturePacked(shop.id, capture.id));
+  const packed = capture && (await readCapturePacked(shop.id, capture.id, req.signal));
   if (!capture || !packed) throw notFound('That capture');
-  let result;
+  let result, trace;
   try {
     // In the engine's thread pool: the request thread stays free for everyone else.
-    result = await analyzeStored(packed.gz, packed.size, input.settings, req.signal);
+    ({ result, trace } = await analyzeStored(packed, input.settings, req.signal));
   } catch (e) {
     if (isCaptureError(e)) {
       return Response.json(
@@ -47,6 +47,7 @@ export const POST = withShop({ analysis: ['save'] }, saveAnalysisInput.extend({ 
     engineVersion: result.engineVersion,
     fileSha256: capture.sha256,
     result,
+    trace,
     verdict: result.verdict,
     crankingRpm: result.crankingRpm,
     createdBy: user.id,

@@ -1,18 +1,18 @@
-/** The capture's raw file as uploaded (decompressed), for the browser's worker and for integrations. */
+/** The capture's raw file as uploaded, streamed from where it is stored, for the browser's worker and for integrations. */
 import { z } from 'zod';
-import { getCapture, readCaptureBytes } from '@/db/queries/captures';
+import { getCapture, readCaptureStream } from '@/db/queries/captures';
 import { dispositionFor } from '@/server/file-name';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
 
-export const GET = withShop({ capture: ['read'] }, z.object({ captureId: z.string() }), async ({ input, shop }) => {
+export const GET = withShop({ capture: ['read'] }, z.object({ captureId: z.string() }), async ({ input, shop, req }) => {
   const capture = await getCapture(shop.id, input.captureId);
-  const bytes = capture && (await readCaptureBytes(shop.id, capture.id));
-  if (!capture || !bytes) throw notFound('That capture');
-  return new Response(bytes as unknown as BodyInit, {
+  const stream = capture && (await readCaptureStream(shop.id, capture.id, req.signal));
+  if (!capture || !stream) throw notFound('That capture');
+  return new Response(stream, {
     headers: {
       'content-type': 'text/plain; charset=utf-8',
-      'content-length': String(bytes.length),
+      'content-length': String(capture.sizeBytes),
       'content-disposition': dispositionFor(capture.fileName),
       'x-content-sha256': capture.sha256,
       'cache-control': 'private, no-store',

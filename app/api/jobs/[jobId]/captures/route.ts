@@ -10,6 +10,7 @@ import { fileNameFromHeader } from '@/server/file-name';
 import { HttpError, notFound } from '@/server/http';
 import { checkUploadHeaders, receiveCapture } from '@/server/receive-capture';
 import { withShop } from '@/server/with-shop';
+import { screeningSummary } from '@/domain/screening';
 
 export const GET = withShop({ capture: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop }) => {
   if (!(await getJob(shop.id, input.jobId))) throw notFound('That job');
@@ -26,12 +27,13 @@ export const POST = withShop(
     if (!req.body) throw new HttpError(400, 'EMPTY_FILE', 'The upload was empty; choose the capture file again.');
     const rawName = req.headers.get('x-file-name');
     const fileName = fileNameFromHeader(rawName);
-    const file = await receiveCapture(req.body, length, contentType, job.vehicle.engine, req.signal);
+    const { screening, ...file } = await receiveCapture(req.body, length, contentType, job.vehicle.engine, req.signal);
     try {
-      const capture = await createCapture(shop.id, { jobId: input.jobId, fileName, uploadedBy: user.id, ...file });
+      const capture = await createCapture(shop.id, { jobId: input.jobId, fileName, uploadedBy: user.id, ...file }, req.signal);
       if (!capture) throw notFound('That job');
       await recordAudit(shop.id, user.id, 'capture.upload', { type: 'capture', id: capture.id }, { jobId: input.jobId, fileName, sizeBytes: file.sizeBytes, sha256: file.sha256 });
-      return { capture };
+      // The server's own reading with the job's engine: the page compares it with the one the browser made.
+      return { capture, screening: screeningSummary(screening) };
     } catch (e) {
       if (e instanceof DuplicateCaptureError) {
         return Response.json(

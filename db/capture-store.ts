@@ -1,0 +1,60 @@
+/**
+ * Where a capture's raw bytes live, read back the same way wherever that is: gzip chunk rows in the database
+ * (the default, so the embedded database and its backup hold everything), or one object in S3-compatible
+ * storage when CAPTURE_STORE is set (db/object-store.ts). The capture row says which (storage_url).
+ */
+import { createHash } from 'node:crypto';
+import type { Db } from './client';
+import { readPackedChunks, unpackPieces } from './chunks';
+import { headObject, objectStream, readObject } from './object-store';
+
+export interface StoredCaptureRef {
+  id: string;
+  sizeBytes: number;
+  storageUrl: string | null;
+}
+
+/** A capture's bytes as stored: gzip pieces from the database, or the object's plain pieces. */
+export interface StoredPieces {
+  pieces: Uint8Array[];
+  size: number;
+  gzip: boolean;
+}
+
+export async function readStoredPieces(db: Pick<Db, 'select'>, c: StoredCaptureRef, signal?: AbortSignal): Promise<StoredPieces> {
+  if (c.storageUrl) return { pieces: await readObject(c.storageUrl, signal), size: c.sizeBytes, gzip: false };
+  return { pieces: await readPackedChunks(db, c.id), size: c.sizeBytes, gzip: true };
+}
+
+/** The bytes as one array. */
+export function joinStoredPieces(s: StoredPieces): Uint8Array {
+  return unpackPieces(s.pieces, s.size, s.gzip);
+}
+
+/** The raw file as a stream: straight from object storage, or unpacked from the database's chunks. */
+export async function storedStream(db: Pick<Db, 'select'>, c: StoredCaptureRef, signal?: AbortSignal): Promise<ReadableStream<Uint8Array>> {
+  if (c.storageUrl) return (await objectStream(c.storageUrl, signal)).stream;
+  const bytes = joinStoredPieces(await readStoredPieces(db, c));
+  return new Blob([bytes as Uint8Array<ArrayBuffer>]).stream();
+}
+
+/** What is wrong with a stored capture's bytes against its recorded size and SHA-256, or undefined when whole. */
+export async function storedProblem(db: Pick<Db, 'select'>, c: StoredCaptureRef & { sha256: string }): Promise<string | undefined> {
+  const hash = createHash('sha256');
+  let size = 0;
+  if (c.storageUrl) {
+    const head = await headObject(c.storageUrl);
+    if (!head) return `its object ${c.storageUrl} is missing from object storage`;
+    for await (const piece of (await objectStream(c.storageUrl)).stream as unknown as AsyncIterable<Uint8Array>) {
+      hash.update(piece);
+      size += piece.length;
+    }
+  } else {
+    const bytes = joinStoredPieces(await readStoredPieces(db, c));
+    hash.update(bytes);
+    size = bytes.length;
+  }
+  if (size !== c.sizeBytes) return `${size} bytes are stored where ${c.sizeBytes} were uploaded`;
+  if (hash.digest('hex') !== c.sha256) return 'the stored bytes do not match the SHA-256 recorded at upload';
+  return undefined;
+}
