@@ -3,7 +3,7 @@
  * bytea parameter encoding is about 14× slower for megabyte chunks (measured here), and a server takes it alike.
  */
 import { gunzipSync, gzipSync } from 'node:zlib';
-import { asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, lt, sql } from 'drizzle-orm';
 import type { Db } from './client';
 import { captureChunks } from './schema';
 
@@ -28,14 +28,23 @@ export async function readChunks(db: Pick<Db, 'select'>, captureId: string, size
   return unpackPieces(await readPackedChunks(db, captureId), size);
 }
 
+/** Pieces read per query: small batches, so other requests' queries run between them (PGlite works on this thread). */
+const READ_BATCH = 4;
+
 /** A capture's compressed pieces, in order, as stored (the engine's thread pool unpacks them). */
 export async function readPackedChunks(db: Pick<Db, 'select'>, captureId: string): Promise<Uint8Array[]> {
-  const rows = await db
-    .select({ b64: sql<string>`encode(${captureChunks.data}, 'base64')` })
-    .from(captureChunks)
-    .where(eq(captureChunks.captureId, captureId))
-    .orderBy(asc(captureChunks.seq));
-  return rows.map((r) => Buffer.from(r.b64, 'base64'));
+  const out: Uint8Array[] = [];
+  for (;;) {
+    const rows = await db
+      .select({ b64: sql<string>`encode(${captureChunks.data}, 'base64')` })
+      .from(captureChunks)
+      .where(and(eq(captureChunks.captureId, captureId), gte(captureChunks.seq, out.length), lt(captureChunks.seq, out.length + READ_BATCH)))
+      .orderBy(asc(captureChunks.seq));
+    for (const r of rows) out.push(Buffer.from(r.b64, 'base64'));
+    if (rows.length < READ_BATCH) return out;
+    // Let the event loop serve others before the next batch.
+    await new Promise((r) => setImmediate(r));
+  }
 }
 
 /** One array of `size` bytes from pieces in order, gzip-compressed (chunk rows) or plain (an object's). */

@@ -16,6 +16,7 @@ import autocannon from 'autocannon';
 import { simulateCranking } from '../signal/sim/simulate';
 import { simToCsv } from '../signal/sim/to-csv';
 import { exited, signInCookie, startApp, waitReady } from './app-server';
+import { healthDuringAnalysis, percentile } from './bench/served';
 import { createDatabase, startPgServer } from './pg-server.mjs';
 
 const PORT = 3240;
@@ -32,11 +33,6 @@ interface Figures {
   rps: number;
   requests: number;
   errors: number;
-}
-
-function percentile(sorted: number[], p: number): number {
-  if (sorted.length === 0) return NaN;
-  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 }
 
 function figures(latencies: number[], errors: number, seconds: number): Figures {
@@ -87,52 +83,6 @@ async function uploadLoad(cookie: string, body: string): Promise<Figures> {
   return figures(latencies, errors, (Date.now() - t0) / 1000);
 }
 
-/** Sequential health checks for `ms`, one every 50 ms: the latencies. */
-async function healthSamples(ms: number): Promise<number[]> {
-  const out: number[] = [];
-  const until = Date.now() + ms;
-  while (Date.now() < until) {
-    const t0 = performance.now();
-    await fetch(`${BASE}/api/health`).then((r) => r.arrayBuffer(), () => null);
-    out.push(performance.now() - t0);
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  return out.sort((a, b) => a - b);
-}
-
-/**
- * /api/health while three analyses of a 10M-sample capture run (saves, in the engine's thread pool), against
- * the same checks at rest: the request thread must stay free.
- */
-async function healthDuringAnalysis(cookie: string, big: string): Promise<{ restP99: number; busyP99: number; saves: number; saveMs: number }> {
-  const jobs = (await (await fetch(`${BASE}/api/jobs`, { headers: { cookie } })).json()).jobs as { id: string }[];
-  const up = await fetch(`${BASE}/api/jobs/${jobs[0].id}/captures`, { method: 'POST', headers: { cookie, origin: BASE, 'content-type': 'text/csv', 'x-file-name': 'ten-million.csv' }, body: big });
-  if (up.status !== 200) throw new Error(`the 10M-sample upload answered ${up.status}: ${await up.text()}`);
-  const captureId = (await up.json()).capture.id as string;
-  const rest = await healthSamples(3_000);
-  let stop = false;
-  let saves = 0;
-  const saveTimes: number[] = [];
-  const saver = async () => {
-    while (!stop) {
-      const t0 = performance.now();
-      const r = await fetch(`${BASE}/api/captures/${captureId}/analyses`, { method: 'POST', headers: { cookie, origin: BASE, 'content-type': 'application/json' }, body: JSON.stringify({ settings: { engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] } } }) });
-      await r.arrayBuffer();
-      if (r.status === 200) {
-        saves++;
-        saveTimes.push(performance.now() - t0);
-      }
-    }
-  };
-  const savers = [saver(), saver(), saver()];
-  await new Promise((r) => setTimeout(r, 500));
-  const busy = await healthSamples(15_000);
-  stop = true;
-  await Promise.all(savers);
-  saveTimes.sort((a, b) => a - b);
-  return { restP99: percentile(rest, 99), busyP99: percentile(busy, 99), saves, saveMs: percentile(saveTimes, 50) };
-}
-
 const fmt = (f: Figures) =>
   `p50 ${f.p50.toFixed(0)} ms  p95 ${f.p95.toFixed(0)} ms  p99 ${f.p99.toFixed(0)} ms  ${f.rps.toFixed(1)} req/s  ${f.requests} requests  ${f.errors} errors`;
 
@@ -150,7 +100,7 @@ async function run(label: string, env: Record<string, string>, body: string, big
     if (upload.requests) console.log(`${label}: ${UPLOADS} concurrent ${(body.length / 1048576).toFixed(1)} MB uploads × ${UPLOAD_ROUNDS}: ${fmt(upload)}`);
     let during: Awaited<ReturnType<typeof healthDuringAnalysis>> | undefined;
     if (big) {
-      during = await healthDuringAnalysis(cookie, big);
+      during = await healthDuringAnalysis(BASE, cookie, big);
       console.log(`${label}: /api/health p99 ${during.restP99.toFixed(0)} ms at rest, ${during.busyP99.toFixed(0)} ms during three 10M-sample analyses (${during.saves} saves, median ${(during.saveMs / 1000).toFixed(1)} s each)`);
     }
     return { health, jobs, upload, during };

@@ -1,14 +1,20 @@
 /**
  * npm run bench: in one run, the plain parsing baseline and the full import + analysis on generated 1M- and
- * 10M-sample captures (each measurement in a fresh process, medians over repeats), and min/max decimation
- * against one plain pass. Ends with one `bench:` line.
+ * 10M-sample captures (each measurement in a fresh process, medians over repeats), papaparse and csv-parse on
+ * the same 1M file (why the importer is our own), min/max decimation against one plain pass, and the report
+ * PDF. Ends with one `bench:` line.
  */
 import { execFileSync } from 'node:child_process';
-import { mkdirSync } from 'node:fs';
+import { appendFileSync, copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { renderReportPdf } from '../server/pdf/render';
 import { decimateMinMax } from '../signal/dsp/decimate';
 import { sampleReportData } from '../tests/report/sample-report';
 import { generateCapture } from './bench/generate';
+import { chooseToBars, healthDuringAnalysis } from './bench/served';
+import { exited, signInCookie, startApp, waitReady } from './app-server';
 
 const dir = '/tmp/crankprint-bench';
 mkdirSync(dir, { recursive: true });
@@ -50,7 +56,53 @@ function measure(label: string, samples: number, repeats: number): Row {
 }
 
 const r1 = measure('1m', 1_000_000, 7);
+
+// The hand-written importer against two well-known CSV packages, bulk-parsing the same 1M file to numbers.
+const packages = Object.fromEntries(
+  (['papaparse', 'csv-parse'] as const).map((p) => {
+    const ms = median(Array.from({ length: 5 }, () => child(p, `${dir}/capture-1m.csv`).ms as number));
+    console.log(`1m   ${p.padEnd(9)} bulk parse ${ms.toFixed(0).padStart(5)} ms (${(ms / r1.importMs).toFixed(2)}× our import)`);
+    return [p, ms];
+  }),
+);
 const r10 = measure('10m', 10_000_000, 5);
+
+const freePort = () =>
+  new Promise<number>((resolve) => {
+    const srv = createServer().listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as { port: number };
+      srv.close(() => resolve(port));
+    });
+  });
+
+async function measureServed(): Promise<{ barsMs: number; confirmedMs: number; healthP99: number } | null> {
+  if (!existsSync('.next/BUILD_ID')) {
+    console.log('served: no production build (npm run build): choose → bars and health during analysis left out');
+    return null;
+  }
+  const data = mkdtempSync(join(tmpdir(), 'crankprint-bench-served-'));
+  const server = startApp(await freePort(), { CRANKPRINT_DATA_DIR: data, CRANKPRINT_RATE_LIMIT_SCALE: '100' });
+  try {
+    await waitReady(server);
+    const cookie = await signInCookie(server.base, 'tech@demo.crankprint.test');
+    // Five distinct copies of the 1M file (one more line each), so the server stores every one.
+    const copies = Array.from({ length: 5 }, (_, k) => {
+      const copy = `${dir}/choose-${k}.csv`;
+      copyFileSync(`${dir}/capture-1m.csv`, copy);
+      appendFileSync(copy, `${(10 + k / 1000).toFixed(7)},0.00,0.00\n`);
+      return copy;
+    });
+    const { barsMs, confirmedMs } = await chooseToBars(server.base, cookie, copies);
+    console.log(`served: choose → bars (1M samples, headless Chromium) median ${median(barsMs).toFixed(0)} ms [${barsMs.map((x) => x.toFixed(0)).join(', ')}]; → server's reading confirmed ${median(confirmedMs).toFixed(0)} ms`);
+    const health = await healthDuringAnalysis(server.base, cookie, readFileSync(`${dir}/capture-10m.csv`, 'utf8'));
+    console.log(`served: /api/health p99 ${health.restP99.toFixed(0)} ms at rest, ${health.busyP99.toFixed(0)} ms during three 10M-sample analyses (${health.saves} saves)`);
+    return { barsMs: median(barsMs), confirmedMs: median(confirmedMs), healthP99: health.busyP99 };
+  } finally {
+    server.child.kill('SIGTERM');
+    await exited(server.child);
+    rmSync(data, { recursive: true, force: true });
+  }
+}
 
 // Decimation of the full 10M range to 2,000 columns against one plain pass over the same array.
 const n = 10_000_000;
@@ -81,9 +133,16 @@ for (let r = 0; r < 6; r++) {
 }
 console.log(`report PDF: first ${pdfRuns[0].toFixed(0)} ms, then median ${median(pdfRuns.slice(1)).toFixed(0)} ms`);
 
+// Served by the production build (npm run build first): choose → bars in headless Chromium on a 1M-sample file,
+// and /api/health p99 while three 10M-sample analyses run in the engine's thread pool.
+const served = await measureServed();
+
 const f = (v: number, d = 2) => v.toFixed(d);
+const na = (v: number | undefined) => (v === undefined || Number.isNaN(v) ? 'na' : v.toFixed(0));
 console.log(
   `bench: import_ratio_10m=${f(r10.importMs / r10.baselineMs)} analysis_share_10m=${f(r10.analysisMs / r10.importMs)} ` +
     `e2e_1m_ms=${f(r1.importMs + r1.analysisMs, 0)} e2e_10m_ms=${f(r10.importMs + r10.analysisMs, 0)} ` +
-    `peak_mem_ratio_10m=${f(r10.peakRatio)} decimate_ratio_10m=${f(median(dec) / median(pass))} pdf_ms=${f(median(pdfRuns.slice(1)), 0)}`,
+    `peak_mem_ratio_10m=${f(r10.peakRatio)} decimate_ratio_10m=${f(median(dec) / median(pass))} pdf_ms=${f(median(pdfRuns.slice(1)), 0)} ` +
+    `papaparse_1m_ms=${f(packages.papaparse, 0)} csv_parse_1m_ms=${f(packages['csv-parse'], 0)} import_1m_ms=${f(r1.importMs, 0)} ` +
+    `choose_to_bars_1m_ms=${na(served?.barsMs)} choose_to_confirmed_1m_ms=${na(served?.confirmedMs)} health_p99_during_analysis_ms=${na(served?.healthP99)}`,
 );

@@ -72,3 +72,5 @@ export function useAnalysisWorker() {
 
   return { load, open, analyze, decimate, cancel, generation };
 }
+
+export type AnalysisWorkerHandle = ReturnType<typeof useAnalysisWorker>;

@@ -1,9 +1,12 @@
 /**
  * One measurement in a fresh process, so peak memory belongs to it alone: `baseline` (read the bytes in 1 MB
- * pieces and a minimal float parse) or `import` (the streaming importer, then the analysis).
+ * pieces and a minimal float parse), `import` (the streaming importer, then the analysis), or `papaparse` /
+ * `csv-parse` (the whole file parsed to numbers by each package, into the same Float64Array columns).
  * Prints one JSON line.
  */
-import { closeSync, openSync, readSync, statSync } from 'node:fs';
+import { closeSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
+import { parse as csvParse } from 'csv-parse/sync';
+import Papa from 'papaparse';
 import { analyzeCapture, CaptureImporter } from '../../signal';
 
 const [mode, path] = process.argv.slice(2);
@@ -57,9 +60,25 @@ function baseline(): number {
   return n;
 }
 
+/** Rows of numbers (header dropped) into one Float64Array per column, as the importer keeps them. */
+function toColumns(rows: unknown[][]): number {
+  const width = rows[0].length;
+  const cols = Array.from({ length: width }, () => new Float64Array(rows.length));
+  for (let r = 0; r < rows.length; r++) for (let c = 0; c < width; c++) cols[c][r] = Number(rows[r][c]);
+  return rows.length * width;
+}
+
 const before = process.memoryUsage().rss;
 const t0 = performance.now();
-if (mode === 'baseline') {
+if (mode === 'papaparse' || mode === 'csv-parse') {
+  const text = readFileSync(path, 'utf8');
+  const rows =
+    mode === 'papaparse'
+      ? Papa.parse<unknown[]>(text, { dynamicTyping: true, skipEmptyLines: true, fastMode: true }).data.slice(1)
+      : (csvParse(text, { cast: true, fromLine: 2, skipEmptyLines: true }) as unknown[][]);
+  const values = toColumns(rows);
+  console.log(JSON.stringify({ ms: performance.now() - t0, values, peakBytes: process.resourceUsage().maxRSS * 1024 - before }));
+} else if (mode === 'baseline') {
   const values = baseline();
   const ms = performance.now() - t0;
   console.log(JSON.stringify({ ms, values }));

@@ -60,6 +60,28 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
   await page.screenshot({ path: 'artifacts/screens/before-after.png', fullPage: true });
 });
 
+test('the bars of a chosen file show from this device’s reading before its upload ends, and the server’s reading confirms them', async ({ page }) => {
+  // A real recording (../shared/captures-real/README.md: inline four, 1-3-4-2, crank edges) on an inline-four job.
+  const real = '../shared/captures-real/i4-2.4l-crank-edges-plugs-out.csv';
+  await signInAs(page, 'technician');
+  await page.evaluate(() => Object.keys(localStorage).forEach((k) => k.startsWith('crankprint-cautions-read-') && localStorage.removeItem(k)));
+  await openJob(page, 'RO-24101');
+  // Uploads crawl at 512 B/s (Chromium's network emulation), so the 3 KB file takes about six seconds to send.
+  const cdp = await page.context().newCDPSession(page);
+  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 300, downloadThroughput: -1, uploadThroughput: 512 });
+  await upload(page, real);
+  // The cautions come first, on this page as in the workspace.
+  await page.getByRole('button', { name: /I have read this/ }).click();
+  await expect(page.getByTestId('local-bars')).toBeVisible({ timeout: 15_000 });
+  await expect(page.getByTestId('upload-confirmation')).toHaveText(/receiving and checking/);
+  await page.screenshot({ path: 'artifacts/screens/upload-reading.png', fullPage: true });
+  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+  await expect(page.getByTestId('upload-confirmation')).toHaveText(/same figures/, { timeout: 30_000 });
+  await expect(page.getByTestId('upload-differences')).toHaveCount(0);
+  await page.getByRole('link', { name: 'Open the capture' }).click();
+  await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 30_000 });
+});
+
 test('an advisor sees captures but cannot upload, in the page or through the API', async ({ page }) => {
   await signInAs(page, 'advisor');
   await openJob(page, 'RO-24101');
@@ -99,4 +121,26 @@ test('a 1M-sample capture from choosing it to bars on screen (logged, not assert
   await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 60_000 });
   const done = Date.now();
   console.log(`e2e timing: 1M-sample capture, choose → stored ${uploaded - t0} ms, open → bars ${done - uploaded} ms, total ${done - t0} ms`);
+});
+
+test('an owner removes a job only after typing its repair-order number; a technician is not offered it', async ({ page }) => {
+  await signInAs(page, 'owner');
+  const ro = `RM-${Date.now() % 100000} — ü "100%"`.slice(0, 30);
+  const made = await page.request.post('/api/jobs', { data: { repairOrder: ro, concern: 'Created to be removed.', vehicle: { make: 'Test', model: 'Remove', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } } } });
+  expect(made.status()).toBe(200);
+  const { job } = await made.json();
+  await page.goto(`/jobs/${job.id}`);
+  await page.getByRole('button', { name: 'Remove this job…' }).click();
+  const confirm = page.getByRole('button', { name: 'Remove the job' });
+  await expect(confirm).toBeDisabled();
+  await page.getByLabel(/Type the repair-order number/).fill(ro);
+  await expect(confirm).toBeEnabled();
+  await confirm.click();
+  await expect(page).toHaveURL(/\/jobs$/);
+  expect((await page.request.get(`/api/jobs/${job.id}`)).status()).toBe(404);
+
+  await page.context().clearCookies();
+  await signInAs(page, 'technician');
+  await openJob(page, 'RO-24101');
+  await expect(page.getByRole('button', { name: 'Remove this job…' })).toHaveCount(0);
 });

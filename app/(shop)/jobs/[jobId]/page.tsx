@@ -97,7 +97,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
             })}
           </ul>
         )}
-        {canUpload ? <CaptureUpload jobId={job.id} /> : <p className="text-sm text-muted">Your role can read captures but not upload them.</p>}
+        {canUpload ? <CaptureUpload jobId={job.id} engine={job.vehicle.engine} userId={m.user.id} /> : <p className="text-sm text-muted">Your role can read captures but not upload them.</p>}
       </section>
       <section aria-labelledby="report" className="flex flex-wrap items-center justify-between gap-3 rounded-2xl border border-line bg-surface p-5">
         <div>

@@ -1,17 +1,38 @@
 'use client';
-/** Uppy on the job page: drag and drop, several files, progress, cancel; raw text bodies to the captures route. */
+/**
+ * Uppy on the job page: drag and drop, several files, progress, cancel; raw text bodies to the captures route.
+ * The file last chosen is also read on this device while it uploads, so its bars show before the upload ends.
+ */
 import Uppy from '@uppy/core';
 import Dashboard from '@uppy/react/dashboard';
 import XHRUpload from '@uppy/xhr-upload';
 import '@uppy/core/css/style.min.css';
 import '@uppy/dashboard/css/style.min.css';
 import { useRouter } from 'next/navigation';
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
+import { CautionsGate } from '@/components/analysis/cautions-dialog';
 import { rememberUpload } from '@/components/analysis/local-files';
+import { useAnalysisWorker } from '@/components/analysis/use-analysis-worker';
+import type { EngineSpec } from '@/db/schema';
+import { settingsForEngine } from '@/db/validators/analysis';
+import { type Screening } from '@/domain/screening';
+import { type UploadOutcome, UploadReading } from './upload-reading';
 
-export function CaptureUpload({ jobId }: { jobId: string }) {
+interface Chosen {
+  uppyId: string;
+  name: string;
+  file: Blob;
+  outcome: UploadOutcome;
+}
+
+export function CaptureUpload({ jobId, engine, userId }: { jobId: string; engine: EngineSpec; userId: string }) {
   const router = useRouter();
   const [messages, setMessages] = useState<string[]>([]);
+  const [chosen, setChosen] = useState<Chosen | null>(null);
+  const worker = useAnalysisWorker();
+  // By value: a page refresh after an upload hands over an equal engine object, which must not start a new reading.
+  const engineKey = JSON.stringify(engine);
+  const settings = useMemo(() => settingsForEngine(JSON.parse(engineKey) as EngineSpec), [engineKey]);
   const [uppy] = useState(() =>
     new Uppy({
       id: `captures-${jobId}`,
@@ -28,9 +49,15 @@ export function CaptureUpload({ jobId }: { jobId: string }) {
   );
 
   useEffect(() => {
-    const onSuccess = (file: { data?: unknown } | undefined, response: { body?: unknown }) => {
-      const id = (response.body as { capture?: { id: string } } | undefined)?.capture?.id;
+    const onAdded = (file: { id: string; name?: string; data?: unknown }) => {
+      if (file.data instanceof Blob) setChosen({ uppyId: file.id, name: file.name ?? 'capture', file: file.data, outcome: { state: 'sending' } });
+    };
+    const settle = (uppyId: string | undefined, outcome: UploadOutcome) => setChosen((c) => (c && c.uppyId === uppyId ? { ...c, outcome } : c));
+    const onSuccess = (file: { id?: string; data?: unknown } | undefined, response: { body?: unknown }) => {
+      const body = response.body as { capture?: { id: string }; screening?: Screening } | undefined;
+      const id = body?.capture?.id;
       if (id && file?.data instanceof Blob) rememberUpload(id, file.data);
+      if (id && body?.screening) settle(file?.id, { state: 'stored', captureId: id, server: body.screening });
       router.refresh();
     };
     // The server's sentence is in the response body; the network error is the fallback.
@@ -42,18 +69,24 @@ export function CaptureUpload({ jobId }: { jobId: string }) {
         // not JSON: keep the network error's message
       }
       setMessages((m) => [...m, `${file?.name ?? 'A file'}: ${text}`]);
+      settle((file as { id?: string } | undefined)?.id, { state: 'failed' });
     };
+    uppy.on('file-added', onAdded);
     uppy.on('upload-success', onSuccess);
     uppy.on('upload-error', onError);
     return () => {
+      uppy.off('file-added', onAdded);
       uppy.off('upload-success', onSuccess);
       uppy.off('upload-error', onError);
     };
   }, [uppy, router]);
 
+  // Made once: the worker's progress re-renders this component many times a second while a file is read.
+  const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="auto" />, [uppy]);
+
   return (
     <div className="flex flex-col gap-2" data-testid="uploader">
-      <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="auto" />
+      {dashboard}
       {messages.length > 0 && (
         <ul role="alert" className="flex flex-col gap-1" data-testid="upload-errors">
           {messages.map((m, i) => (
@@ -62,6 +95,11 @@ export function CaptureUpload({ jobId }: { jobId: string }) {
             </li>
           ))}
         </ul>
+      )}
+      {chosen && (
+        <CautionsGate userId={userId}>
+          <UploadReading key={chosen.uppyId} worker={worker} jobId={jobId} name={chosen.name} file={chosen.file} settings={settings} outcome={chosen.outcome} />
+        </CautionsGate>
       )}
     </div>
   );
