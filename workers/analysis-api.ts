@@ -64,12 +64,29 @@ export function createAnalysisApi() {
       const size = source instanceof Uint8Array ? source.length : source.size;
       const headBytes = source instanceof Uint8Array ? source.subarray(0, CHUNK) : new Uint8Array(await source.slice(0, CHUNK).arrayBuffer());
       const importer = new CaptureImporter(headBytes, size, options);
-      for (let offset = 0; offset < size; offset += CHUNK) {
-        check();
-        const end = Math.min(size, offset + CHUNK);
-        const chunk = source instanceof Uint8Array ? source.subarray(offset, end) : new Uint8Array(await source.slice(offset, end).arrayBuffer());
-        importer.push(chunk);
-        onProgress?.('parsing', end / size);
+      if (source instanceof Uint8Array) {
+        for (let offset = 0; offset < size; offset += CHUNK) {
+          check();
+          const end = Math.min(size, offset + CHUNK);
+          importer.push(source.subarray(offset, end));
+          onProgress?.('parsing', end / size);
+        }
+      } else {
+        // One stream over the file: a slice per megabyte costs a round trip to the browser each.
+        const reader = source.stream().getReader();
+        let read = 0;
+        let reported = 0;
+        for (;;) {
+          check();
+          const { done, value } = await reader.read();
+          if (done) break;
+          importer.push(value);
+          read += value.length;
+          if (read - reported >= CHUNK || read === size) {
+            reported = read;
+            onProgress?.('parsing', read / size);
+          }
+        }
       }
       capture = importer.finish();
       const t = capture.columns.time ?? capture.columns.toothTimes;
