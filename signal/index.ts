@@ -11,7 +11,7 @@ export { decimateMinMax, indexAtTime } from './dsp/decimate';
 export { CaptureError, isCaptureError } from './errors';
 export { ENGINE_VERSION } from './version';
 export { ENGINE_PROFILES } from './engine/profiles';
-export { parseFiringOrder, checkFiringOrder, areNeighbours } from './engine/firing';
+export { parseFiringOrder, checkFiringOrder, areNeighbours, firingIntervalsProblem, firingOrderProblem } from './engine/firing';
 export type { EngineSetup, BankLayout, Numbering } from './engine/firing';
 export { describeWheel, parseWheel, wheelNotation } from './teeth/wheel';
 export type { ToothWheel } from './teeth/wheel';

@@ -3,6 +3,7 @@
 import { LayoutOptions } from '@/components/ui/engine-options';
 import { Field, Input, Select } from '@/components/ui/field';
 import type { AnalysisSettingsValues } from '@/db/validators/analysis';
+import { firingOrderProblem } from '@/signal';
 
 export interface ProfileOption {
   key: string;
@@ -62,7 +63,7 @@ export function SettingsPanel({
           key={orderText}
           onBlur={(ev) => {
             const order = ev.target.value.split(/[\s,-]+/).filter(Boolean).map(Number);
-            if (order.length === e.cylinders && [...order].sort((a, b) => a - b).every((c, i) => c === i + 1)) setEngine({ firingOrder: order });
+            if (!firingOrderProblem(order, e.cylinders)) setEngine({ firingOrder: order });
             else ev.target.value = orderText;
           }}
         />

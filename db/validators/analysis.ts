@@ -1,6 +1,6 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
-import { type AnalysisSettings, type ImportOptions, parseWheel } from '../../signal';
+import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, parseWheel } from '../../signal';
 import type { EngineSpec } from '../schema/shop';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'ignore'] as const;
@@ -29,10 +29,10 @@ export const analysisSettingsSchema = z
     sampleRateHz: z.number().positive().optional(),
   })
   .superRefine((s, ctx) => {
-    const sorted = [...s.engine.firingOrder].sort((a, b) => a - b);
-    if (sorted.length !== s.engine.cylinders || sorted.some((c, i) => c !== i + 1)) {
-      ctx.addIssue({ code: 'custom', path: ['engine', 'firingOrder'], message: `The firing order must list each cylinder 1 to ${s.engine.cylinders} exactly once.` });
-    }
+    const order = firingOrderProblem(s.engine.firingOrder, s.engine.cylinders);
+    if (order) ctx.addIssue({ code: 'custom', path: ['engine', 'firingOrder'], message: order });
+    const intervals = s.engine.intervalsDeg && firingIntervalsProblem(s.engine.intervalsDeg, s.engine.cylinders);
+    if (intervals) ctx.addIssue({ code: 'custom', path: ['engine', 'intervalsDeg'], message: intervals });
   });
 
 export type AnalysisSettingsInput = z.input<typeof analysisSettingsSchema>;

@@ -1,5 +1,6 @@
 /** One zod schema per entity, shared by the form, the route handler and the seed. */
 import { z } from 'zod';
+import { firingIntervalsProblem, firingOrderProblem } from '../../signal';
 import { vinProblem } from './vin';
 
 const firingOrderText = z
@@ -18,14 +19,10 @@ export const engineSchema = z
     displacementL: z.coerce.number().min(0.05, 'Displacement is in litres, for example 2.0.').max(20, 'Displacement is in litres, for example 2.0.').optional(),
   })
   .superRefine((e, ctx) => {
-    const order = e.firingOrder;
-    const sorted = [...order].sort((a, b) => a - b);
-    if (sorted.length !== e.cylinders || sorted.some((c, i) => c !== i + 1)) {
-      ctx.addIssue({ code: 'custom', path: ['firingOrder'], message: `The firing order must list each cylinder 1 to ${e.cylinders} exactly once.` });
-    }
-    if (e.intervalsDeg && (e.intervalsDeg.length !== e.cylinders || Math.abs(e.intervalsDeg.reduce((a, b) => a + b, 0) - 720) > 0.5)) {
-      ctx.addIssue({ code: 'custom', path: ['intervalsDeg'], message: 'Give one firing interval per cylinder, adding up to 720°.' });
-    }
+    const order = firingOrderProblem(e.firingOrder, e.cylinders);
+    if (order) ctx.addIssue({ code: 'custom', path: ['firingOrder'], message: order });
+    const intervals = e.intervalsDeg && firingIntervalsProblem(e.intervalsDeg, e.cylinders);
+    if (intervals) ctx.addIssue({ code: 'custom', path: ['intervalsDeg'], message: intervals });
   });
 
 const currentYear = new Date().getFullYear();

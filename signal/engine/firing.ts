@@ -25,40 +25,37 @@ export function parseFiringOrder(text: string, cylinders: number): number[] {
   return order;
 }
 
-/** Throws a BAD_SETTINGS error unless `order` holds each of 1…N exactly once. */
-export function checkFiringOrder(order: number[], cylinders: number): void {
-  if (!Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) {
-    throw new CaptureError('BAD_SETTINGS', `The cylinder count must be a whole number from 1 to 16, not ${cylinders}.`);
-  }
+/** What is wrong with a firing order for an engine of `cylinders`, in a sentence, or null when it lists each of 1…N once. */
+export function firingOrderProblem(order: readonly number[], cylinders: number): string | null {
+  if (!Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) return `The cylinder count must be a whole number from 1 to 16, not ${cylinders}.`;
   const seen = new Set<number>();
   for (const c of order) {
-    if (!Number.isInteger(c) || c < 1 || c > cylinders || seen.has(c)) {
-      throw new CaptureError(
-        'BAD_SETTINGS',
-        `The firing order must list each cylinder 1 to ${cylinders} exactly once; "${order.join('-')}" does not.`,
-      );
-    }
+    if (!Number.isInteger(c) || c < 1 || c > cylinders || seen.has(c)) return `The firing order must list each cylinder 1 to ${cylinders} exactly once; "${order.join('-')}" does not.`;
     seen.add(c);
   }
-  if (seen.size !== cylinders) {
-    throw new CaptureError(
-      'BAD_SETTINGS',
-      `The firing order lists ${seen.size} cylinders but the engine has ${cylinders}; list each cylinder once.`,
-    );
-  }
+  if (seen.size !== cylinders) return `The firing order lists ${seen.size} cylinders but the engine has ${cylinders}; list each cylinder once.`;
+  return null;
+}
+
+/** What is wrong with firing intervals for `cylinders`, in a sentence, or null when there is one positive interval per cylinder adding up to 720°. */
+export function firingIntervalsProblem(intervals: readonly number[], cylinders: number): string | null {
+  if (intervals.length !== cylinders || intervals.some((d) => !(d > 0))) return `Give one positive firing interval per cylinder (${cylinders} in all).`;
+  const sum = intervals.reduce((a, b) => a + b, 0);
+  if (Math.abs(sum - 720) > 0.5) return `The firing intervals add up to ${sum}°; a four-stroke cycle is 720°.`;
+  return null;
+}
+
+/** Throws a BAD_SETTINGS error unless `order` holds each of 1…N exactly once. */
+export function checkFiringOrder(order: number[], cylinders: number): void {
+  const problem = firingOrderProblem(order, cylinders);
+  if (problem) throw new CaptureError('BAD_SETTINGS', problem);
 }
 
 /** Firing intervals in crank degrees, checked to sum to 720°. */
 export function firingIntervals(setup: EngineSetup): number[] {
-  const n = setup.cylinders;
-  const iv = setup.intervalsDeg ?? new Array<number>(n).fill(720 / n);
-  if (iv.length !== n || iv.some((d) => !(d > 0))) {
-    throw new CaptureError('BAD_SETTINGS', `Give one positive firing interval per cylinder (${n} in all).`);
-  }
-  const sum = iv.reduce((a, b) => a + b, 0);
-  if (Math.abs(sum - 720) > 0.5) {
-    throw new CaptureError('BAD_SETTINGS', `The firing intervals add up to ${sum}°; a four-stroke cycle is 720°.`);
-  }
+  const iv = setup.intervalsDeg ?? new Array<number>(setup.cylinders).fill(720 / setup.cylinders);
+  const problem = firingIntervalsProblem(iv, setup.cylinders);
+  if (problem) throw new CaptureError('BAD_SETTINGS', problem);
   return iv;
 }
 

@@ -91,7 +91,7 @@ test('the new-job form names each wrong field in words, and nothing is saved', a
   await page.getByRole('button', { name: 'Create job' }).click();
   await expect(page.getByText('Enter the repair-order number.')).toBeVisible();
   await expect(page.getByText('The check digit (9th character) should be X, not 1')).toBeVisible();
-  await expect(page.getByText('The firing order must list each cylinder 1 to 4 exactly once.')).toBeVisible();
+  await expect(page.getByText('The firing order must list each cylinder 1 to 4 exactly once; "1-3-4-4" does not.')).toBeVisible();
   await shot(page, 'new-job-errors');
 });
 

@@ -1,6 +1,8 @@
 // Firing orders, intervals and neighbours against the published tables.
 import { describe, expect, it } from 'vitest';
-import { areNeighbours, firingIntervals, parseFiringOrder, tdcPhasesDeg } from '@/signal/engine/firing';
+import { analysisSettingsSchema } from '@/db/validators/analysis';
+import { engineSchema } from '@/db/validators/vehicle';
+import { areNeighbours, firingIntervals, firingIntervalsProblem, firingOrderProblem, parseFiringOrder, tdcPhasesDeg } from '@/signal/engine/firing';
 import { ENGINE_PROFILES } from '@/signal/engine/profiles';
 import { CaptureError } from '@/signal/errors';
 import { symmetryStep } from '@/signal/steps/identity';
@@ -71,5 +73,29 @@ describe('neighbours come from the layout, never the firing order (TRADE.md, SAE
     const v8 = { cylinders: 8, firingOrder: [1, 5, 4, 8, 6, 3, 7, 2], layout: 'v' as const, numbering: 'bank-by-bank' as const };
     expect(areNeighbours(v8, 1, 2)).toBe(true);
     expect(areNeighbours(v8, 4, 5)).toBe(false);
+  });
+});
+
+// The one rule behind the engine, the vehicle and settings forms and the settings schema.
+describe('firing order and interval rules, written once', () => {
+  it('accepts every shipped profile (common practice orders) and names what is wrong otherwise', () => {
+    for (const p of ENGINE_PROFILES) {
+      expect(firingOrderProblem(p.firingOrder, p.cylinders)).toBeNull();
+      if (p.intervalsDeg) expect(firingIntervalsProblem(p.intervalsDeg, p.cylinders)).toBeNull();
+    }
+    expect(firingOrderProblem([1, 3, 4, 4], 4)).toBe('The firing order must list each cylinder 1 to 4 exactly once; "1-3-4-4" does not.');
+    expect(firingOrderProblem([1, 3, 2], 4)).toMatch(/lists 3 cylinders but the engine has 4/);
+    // A four-stroke cycle is two revolutions, 720° (any engine handbook).
+    expect(firingIntervalsProblem([90, 150, 90, 150, 90, 150], 6)).toBeNull();
+    expect(firingIntervalsProblem([90, 150, 90, 150, 90, 90], 6)).toMatch(/add up to 660°/);
+  });
+
+  it('the settings and vehicle schemas give the same sentence', () => {
+    const bad = { cylinders: 4, firingOrder: [1, 3, 4, 4] };
+    const a = analysisSettingsSchema.safeParse({ engine: bad });
+    const v = engineSchema.safeParse({ ...bad, layout: 'inline' });
+    expect(a.success || v.success).toBe(false);
+    expect(a.error!.issues[0].message).toBe(firingOrderProblem(bad.firingOrder, 4));
+    expect(v.error!.issues[0].message).toBe(firingOrderProblem(bad.firingOrder, 4));
   });
 });
