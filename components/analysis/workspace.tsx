@@ -5,15 +5,15 @@
  * keeps them. Saving asks the server to re-run the same engine on the stored file.
  */
 import { useMutation } from '@tanstack/react-query';
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { useRouter } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
-import { type AnalysisSettingsValues, analysisSettingsSchema, engineSettings, importOptions } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/db/validators/analysis';
 import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
 import { SURE_MAPPING } from '@/signal/steps/screen';
-import type { TraceChannel, WorkerError } from '@/workers/analysis-api';
+import type { WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';
 import { Findings } from './findings';
@@ -22,7 +22,9 @@ import { ResultsTable } from './results-table';
 import { type ProfileOption, SettingsPanel } from './settings-panel';
 import { type TraceData, type TraceHandle, TraceChart, type TraceSeries } from './trace-chart';
 import { localUpload } from './local-files';
+import { CHANNELS } from './trace-channels';
 import { useAnalysisWorker } from './use-analysis-worker';
+import { useUrlSettings } from './use-url-settings';
 
 interface Props {
   captureId: string;
@@ -33,38 +35,9 @@ interface Props {
   canSave: boolean;
 }
 
-const CHANNELS: { channel: TraceChannel; label: string; unit: string; token: string; right?: boolean }[] = [
-  { channel: 'current', label: 'Starter current', unit: 'A', token: 'brand' },
-  { channel: 'crank', label: 'Crank sensor', unit: 'V', token: 'ink' },
-  { channel: 'rpm', label: 'Engine speed', unit: 'rpm', token: 'brand' },
-  { channel: 'toothPeriod', label: 'Tooth period', unit: 'ms', token: 'brand' },
-  { channel: 'battery', label: 'Battery', unit: 'V', token: 'ink' },
-  { channel: 'sync', label: 'Sync', unit: 'V', token: 'sync', right: true },
-];
-
-function settingsFromUrl(raw: string | null, fallback: AnalysisSettingsValues): AnalysisSettingsValues {
-  if (!raw) return fallback;
-  try {
-    const parsed = analysisSettingsSchema.safeParse(JSON.parse(raw));
-    return parsed.success ? parsed.data : fallback;
-  } catch {
-    return fallback;
-  }
-}
-
 export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId, canSave }: Props) {
   const router = useRouter();
-  const path = usePathname();
-  const params = useSearchParams();
-  const settings = useMemo(() => settingsFromUrl(params.get('s'), initialSettings), [params, initialSettings]);
-  const setSettings = useCallback(
-    (s: AnalysisSettingsValues) => {
-      const next = new URLSearchParams(params);
-      next.set('s', JSON.stringify(s));
-      router.replace(`${path}?${next}`, { scroll: false });
-    },
-    [params, path, router],
-  );
+  const [settings, setSettings] = useUrlSettings(initialSettings);
   const w = useAnalysisWorker();
   const [result, setResult] = useState<AnalysisResult | null>(null);
   const [error, setError] = useState<WorkerError | null>(null);
