@@ -2,8 +2,7 @@
  * Captures in object storage (CAPTURE_STORE=s3://…) against a real S3-compatible server started here (s3rver):
  * upload (one request, and multipart for a large file), read back, the SHA-256 check of db:check, a failed
  * row write leaving no object, delete on job removal, and db:backup/db:restore putting a lost object back.
- * Byte checks use SHA-256 (FIPS 180-4, through node:crypto); the small file is a real recording from
- * ../shared/captures-real/.
+ * Byte checks use SHA-256 (FIPS 180-4, through node:crypto).
  */
 import { execFile } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
@@ -23,7 +22,7 @@ import { captures, jobs, organizations, users } from '@/db/schema';
 import { seedDemoIfEmpty } from '@/db/seed';
 import { type LocalS3, startLocalS3 } from '../support/s3-server';
 
-const REAL = join(process.cwd(), '../shared/captures-real/i4-2.4l-crank-edges-plugs-out.csv');
+const FILE = 'samples/i4-noisy-current-sync.csv';
 /** A command line, run without blocking this process (the S3 server the command talks to runs here). */
 const run = (args: string[], env: NodeJS.ProcessEnv) =>
   new Promise<{ status: number; stdout: string; stderr: string }>((resolve) =>
@@ -74,9 +73,9 @@ afterAll(async () => {
 describe('captures in object storage', () => {
   let jobId: string;
   let small: Awaited<ReturnType<typeof upload>>;
-  const real = new Uint8Array(readFileSync(REAL));
+  const real = new Uint8Array(readFileSync(FILE));
 
-  it('stores a real recording as one object under the shop, with no chunk rows, and reads it back byte for byte', async () => {
+  it('stores a capture as one object under the shop, with no chunk rows, and reads it back byte for byte', async () => {
     jobId = await newJob('OBJ-1');
     small = await upload(jobId, real);
     expect(small.storageUrl).toBe(`s3://${store.bucket}/captures/${shopId}/${small.id}.txt`);

@@ -61,19 +61,21 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
 });
 
 test('the bars of a chosen file show from this device’s reading before its upload ends, and the server’s reading confirms them', async ({ page }) => {
-  // A real recording (../shared/captures-real/README.md: inline four, 1-3-4-2, crank edges) on an inline-four job.
-  const real = '../shared/captures-real/i4-2.4l-crank-edges-plugs-out.csv';
+  // samples/README.md: inline four, 1-3-4-2, cylinders 2 and 3 leak (46 % each by the simulator).
+  const file = 'samples/i4-adjacent-low-current-sync.csv';
   await signInAs(page, 'technician');
   await page.evaluate(() => Object.keys(localStorage).forEach((k) => k.startsWith('crankprint-cautions-read-') && localStorage.removeItem(k)));
   await openJob(page, 'RO-24101');
-  // Uploads crawl at 512 B/s (Chromium's network emulation), so the 3 KB file takes about six seconds to send.
+  // Uploads crawl at 64 KB/s (Chromium's network emulation), so the 650 KB file takes about ten seconds to send.
   const cdp = await page.context().newCDPSession(page);
-  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 300, downloadThroughput: -1, uploadThroughput: 512 });
-  await upload(page, real);
+  await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 300, downloadThroughput: -1, uploadThroughput: 64 * 1024 });
+  await upload(page, file);
   // The cautions come first, on this page as in the workspace.
   await page.getByRole('button', { name: /I have read this/ }).click();
   await expect(page.getByTestId('local-bars')).toBeVisible({ timeout: 15_000 });
   await expect(page.getByTestId('upload-confirmation')).toHaveText(/receiving and checking/);
+  await expect(page.getByTestId('local-bars')).toContainText('Cyl 2');
+  await expect(page.getByTestId('local-bars')).toContainText(/Verdict on this device: low/);
   await page.screenshot({ path: 'artifacts/screens/upload-reading.png', fullPage: true });
   await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
   await expect(page.getByTestId('upload-confirmation')).toHaveText(/same figures/, { timeout: 30_000 });

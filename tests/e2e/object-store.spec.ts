@@ -2,7 +2,7 @@
  * The server with CAPTURE_STORE pointing at a real S3-compatible server (s3rver, started here on a free port):
  * an upload through the API lands as one object whose SHA-256 is the file's (FIPS 180-4, node:crypto), the raw
  * route streams it back, Save analyses it from there, an owner's job removal deletes it, and db:check reads the
- * bucket. The file is a real recording from ../shared/captures-real/. Runs in the PostgreSQL pass too.
+ * bucket. Runs in the PostgreSQL pass too.
  */
 import { execFile } from 'node:child_process';
 import { createHash } from 'node:crypto';
@@ -15,8 +15,8 @@ import { createDatabase } from '../../scripts/pg-server.mjs';
 import { type LocalS3, startLocalS3 } from '../support/s3-server';
 
 const DATA = '.e2e/object-store';
-const REAL_NAME = 'i4-2.4l-crank-edges-plugs-out.csv';
-const REAL = readFileSync(join(process.cwd(), '../shared/captures-real', REAL_NAME));
+const REAL_NAME = 'i4-noisy-current-sync.csv';
+const REAL = readFileSync(join('samples', REAL_NAME));
 const sha = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
 
 /** Every object file under s3rver's folder. */
@@ -86,13 +86,14 @@ test('upload → one object with the file’s SHA-256 → read back → Save →
   expect(raw.headers.get('x-content-sha256')).toBe(sha(REAL));
   expect(sha(new Uint8Array(await raw.arrayBuffer()))).toBe(sha(REAL));
 
-  // Save runs the engine on the stored object (README of captures-real: inline four, firing 1-3-4-2).
+  // Save runs the engine on the stored object (samples/README.md: inline four, firing 1-3-4-2, cylinder 1 low).
   const settings = { engine: { cylinders: 4, layout: 'inline', firingOrder: [1, 3, 4, 2] } };
   const saved = await api(tech, `/api/captures/${capture.id}/analyses`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ settings }) });
   expect(saved.status, await saved.clone().text()).toBe(200);
   const { analysis } = (await saved.json()) as { analysis: { fileSha256: string; result: { cylinders: unknown[] } } };
   expect(analysis.fileSha256).toBe(sha(REAL));
   expect(analysis.result.cylinders).toHaveLength(4);
+  expect((analysis.result.cylinders as { status: string }[])[0].status).toBe('low');
 
   // The same file on a second job of the same vehicle stays when the first job goes.
   const made = await api(tech, '/api/jobs', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ repairOrder: 'OBJ-KEEP', concern: 'keep this one', vehicleId: job!.vehicle.id }) });
