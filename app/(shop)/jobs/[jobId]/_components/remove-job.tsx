@@ -30,8 +30,8 @@ export function RemoveJob({ jobId, repairOrder, captures }: { jobId: string; rep
       }}
     >
       <p>
-        This removes the job, its {captures === 1 ? 'capture' : `${captures} captures`} with their files, every saved analysis, every report revision
-        and every customer link. It cannot be undone; the shop activity keeps a line saying who removed it. A report already sent to the customer
+        This removes the job{captures === 0 ? '' : captures === 1 ? ', its capture and the file' : `, its ${captures} captures and their files`}, every saved
+        analysis, every report revision and every customer link. It cannot be undone; the shop activity keeps a line saying who removed it. A report already sent to the customer
         stays in their inbox.
       </p>
       <label htmlFor={inputId} className="font-bold">
