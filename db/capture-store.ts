@@ -4,7 +4,7 @@
  * storage when CAPTURE_STORE is set (db/object-store.ts). The capture row says which (storage_url).
  */
 import { createHash } from 'node:crypto';
-import type { Db } from './client';
+import type { Db } from './db-type';
 import { readPackedChunks, unpackPieces } from './chunks';
 import { headObject, objectStream, readObject } from './object-store';
 

@@ -4,7 +4,7 @@
  */
 import { gunzipSync, gzipSync } from 'node:zlib';
 import { and, asc, eq, gte, lt, sql } from 'drizzle-orm';
-import type { Db } from './client';
+import type { Db } from './db-type';
 import { captureChunks } from './schema';
 
 export const CHUNK_BYTES = 1 << 20;

@@ -7,7 +7,7 @@
 import { mkdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
-import { drizzle as drizzlePglite, type PgliteDatabase } from 'drizzle-orm/pglite';
+import { drizzle as drizzlePglite } from 'drizzle-orm/pglite';
 import { migrate as migratePglite } from 'drizzle-orm/pglite/migrator';
 import { drizzle as drizzlePg } from 'drizzle-orm/node-postgres';
 import { migrate as migratePg } from 'drizzle-orm/node-postgres/migrator';
@@ -15,7 +15,8 @@ import pg from 'pg';
 import * as schema from './schema';
 import { acquireLock } from './lock';
 
-export type Db = PgliteDatabase<typeof schema>;
+export type { Db } from './db-type';
+import type { Db } from './db-type';
 
 export interface OpenOptions {
   /** postgres://… to use a server. */

@@ -5,7 +5,7 @@
  */
 import { asc, sql } from 'drizzle-orm';
 import { storedProblem } from './capture-store';
-import type { Db } from './client';
+import type { Db } from './db-type';
 import { analyses, captures } from './schema';
 
 export interface CaptureCheck {

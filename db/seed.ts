@@ -11,7 +11,7 @@ import { analyzeBytes } from '../signal';
 import { traceExcerpt } from '../domain/trace-excerpt';
 import { compressPiece, insertChunks } from './chunks';
 import { engineSettings, settingsForEngine } from './validators/analysis';
-import type { Db } from './client';
+import type { Db } from './db-type';
 import { accounts, analyses, captures, jobs, members, organizations, shopSettings, users, vehicles, type EngineSpec } from './schema';
 import { vinCheckDigit } from './validators/vin';
 
