@@ -10,10 +10,11 @@ import { sql } from 'drizzle-orm';
 import { analyzeBytes } from '../signal';
 import { traceExcerpt } from '../domain/trace-excerpt';
 import { compressPiece, insertChunks } from './chunks';
-import { engineSettings, settingsForEngine } from './validators/analysis';
+import { engineSettings, settingsForEngine } from '@/domain/analysis-settings';
 import type { Db } from './db-type';
-import { accounts, analyses, captures, jobs, members, organizations, shopSettings, users, vehicles, type EngineSpec } from './schema';
-import { vinCheckDigit } from './validators/vin';
+import type { EngineSpec } from '../domain/engine';
+import { accounts, analyses, captures, jobs, members, organizations, shopSettings, users, vehicles } from './schema';
+import { vinCheckDigit } from '@/domain/vin';
 
 export const DEMO_PASSWORD = 'crank-demo-2026';
 export const DEMO_ACCOUNTS = [

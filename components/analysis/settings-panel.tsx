@@ -2,7 +2,7 @@
 /** Engine setup, method and limits. Every change re-runs the analysis in the worker at once. */
 import { LayoutOptions } from '@/components/ui/engine-options';
 import { Field, Input, Select } from '@/components/ui/field';
-import type { AnalysisSettingsValues } from '@/db/validators/analysis';
+import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import { firingOrderProblem } from '@/signal';
 
 export interface ProfileOption {

@@ -2,7 +2,7 @@
 /** The workspace's analysis settings, kept in the URL (?s=…) so a reload or a hand-over keeps them; invalid or absent → the defaults. */
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useMemo } from 'react';
-import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/domain/analysis-settings';
 
 function settingsFromUrl(raw: string | null, fallback: AnalysisSettingsValues): AnalysisSettingsValues {
   if (!raw) return fallback;

@@ -10,7 +10,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
 import { api, ApiError } from '@/components/data/api';
-import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
 import { SURE_MAPPING } from '@/signal/steps/screen';
 import type { WorkerError } from '@/workers/analysis-api';

@@ -10,7 +10,9 @@ import { insertChunks } from '../chunks';
 import { getDb } from '../client';
 import { captureStoreTarget, deleteObjects, newCaptureUrl, putObject } from '../object-store';
 import { analyses, captures, jobs } from '../schema';
+import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
+import type { AnalysisResult } from '@/signal';
 
 export interface NewCapture {
   jobId: string;
@@ -125,7 +127,7 @@ export async function readCapturePacked(shopId: string, captureId: string, signa
 
 export async function saveAnalysis(
   shopId: string,
-  a: { captureId: string; settings: unknown; engineVersion: string; fileSha256: string; result: unknown; trace: TraceExcerpt | null; verdict: string; crankingRpm: number; createdBy: string },
+  a: { captureId: string; settings: AnalysisSettingsValues; engineVersion: string; fileSha256: string; result: AnalysisResult; trace: TraceExcerpt | null; verdict: string; crankingRpm: number; createdBy: string },
 ) {
   const db = await getDb();
   const [row] = await db.insert(analyses).values({ shopId, ...a }).returning();

@@ -4,7 +4,7 @@ import { and, desc, eq, ilike, or, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
 import { deleteObjects } from '../object-store';
 import { captures, jobs, vehicles } from '../schema';
-import type { JobValues } from '../validators/job';
+import type { JobValues } from '@/domain/job';
 import { engineSpec } from './vehicles';
 
 export class DuplicateRepairOrderError extends Error {}

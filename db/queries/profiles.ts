@@ -2,7 +2,8 @@
 import 'server-only';
 import { asc, eq } from 'drizzle-orm';
 import { getDb } from '../client';
-import { type EngineSpec, engineProfiles } from '../schema';
+import type { EngineSpec } from '@/domain/engine';
+import { engineProfiles } from '../schema';
 
 export async function listProfiles(shopId: string) {
   const db = await getDb();

@@ -8,7 +8,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, gt, inArray, isNull } from 'drizzle-orm';
 import { getDb } from '../client';
 import { analyses, approvals, captures, jobs, organizations, reports, shareLinks, users, vehicles } from '../schema';
-import type { ReportContent } from '../validators/report';
+import type { ReportContent } from '@/domain/report';
 
 export class ReportStateError extends Error {}
 
@@ -66,7 +66,7 @@ export async function signReport(shopId: string, reportId: string, userId: strin
   const r = await getReport(shopId, reportId);
   if (!r) return null;
   if (r.status !== 'draft') throw new ReportStateError('This revision is already signed; edit the report to start a new revision.');
-  const content = r.content as ReportContent;
+  const content = r.content;
   if (content.analysisIds.length === 0) throw new ReportStateError('A report needs at least one saved analysis before it can be signed; include one.');
   const [signed] = await db
     .update(reports)
@@ -87,7 +87,7 @@ export async function reportBundle(shopId: string, reportId: string) {
     .innerJoin(vehicles, eq(jobs.vehicleId, vehicles.id))
     .innerJoin(organizations, eq(jobs.shopId, organizations.id))
     .where(and(eq(jobs.shopId, shopId), eq(jobs.id, report.jobId)));
-  const content = report.content as ReportContent;
+  const content = report.content;
   const included = content.analysisIds.length
     ? await db
         .select({ analysis: analyses, capture: captures, jobRepairOrder: jobs.repairOrder })

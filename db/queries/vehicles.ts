@@ -2,8 +2,9 @@
 import 'server-only';
 import { and, desc, eq } from 'drizzle-orm';
 import { getDb } from '../client';
-import { type EngineSpec, jobs, vehicles } from '../schema';
-import type { VehicleValues } from '../validators/vehicle';
+import type { EngineSpec } from '@/domain/engine';
+import { jobs, vehicles } from '../schema';
+import type { VehicleValues } from '@/domain/vehicle';
 
 export function engineSpec(v: VehicleValues['engine']): EngineSpec {
   return {

@@ -1,5 +1,9 @@
 /** The shop's own records: vehicles, jobs, captures (raw bytes compressed in chunk rows, or in object storage), analyses, reports, audit. */
 import { customType, index, integer, jsonb, pgTable, primaryKey, real, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
+import type { EngineSpec } from '@/domain/engine';
+import type { ReportContent } from '@/domain/report';
+import type { AnalysisResult } from '@/signal';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import { organizations, users } from './auth';
 
@@ -17,15 +21,6 @@ const shopId = () =>
     .references(() => organizations.id, { onDelete: 'cascade' });
 const created = () => timestamp({ withTimezone: true }).notNull().defaultNow();
 
-/** Engine as stored on a vehicle or profile: what the analysis needs. */
-export interface EngineSpec {
-  cylinders: number;
-  layout: 'inline' | 'v' | 'flat';
-  numbering?: 'along-crank' | 'bank-by-bank';
-  firingOrder: number[];
-  intervalsDeg?: number[];
-  displacementL?: number;
-}
 
 export const vehicles = pgTable(
   'vehicles',
@@ -105,10 +100,10 @@ export const analyses = pgTable(
     captureId: text()
       .notNull()
       .references(() => captures.id, { onDelete: 'cascade' }),
-    settings: jsonb().notNull(),
+    settings: jsonb().$type<AnalysisSettingsValues>().notNull(),
     engineVersion: text().notNull(),
     fileSha256: text().notNull(),
-    result: jsonb().notNull(),
+    result: jsonb().$type<AnalysisResult>().notNull(),
     /** The report's trace excerpt, drawn when the analysis was saved (null for analyses saved before it was kept). */
     trace: jsonb().$type<TraceExcerpt>(),
     verdict: text().notNull(),
@@ -129,7 +124,7 @@ export const reports = pgTable(
       .references(() => jobs.id, { onDelete: 'cascade' }),
     revision: integer().notNull().default(1),
     status: text().notNull().default('draft'),
-    content: jsonb().notNull(),
+    content: jsonb().$type<ReportContent>().notNull(),
     signedBy: text().references(() => users.id, { onDelete: 'set null' }),
     signedAt: timestamp({ withTimezone: true }),
     createdAt: created(),

@@ -6,10 +6,10 @@
 import 'server-only';
 import { z } from 'zod';
 import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiPathsObject, type ZodOpenApiResponseObject } from 'zod-openapi';
-import { analysisSettingsSchema } from '@/db/validators/analysis';
-import { jobSchema, jobUpdateSchema, listQuerySchema } from '@/db/validators/job';
-import { reportContentSchema } from '@/db/validators/report';
-import { vehicleSchema } from '@/db/validators/vehicle';
+import { analysisSettingsSchema } from '@/domain/analysis-settings';
+import { jobSchema, jobUpdateSchema, listQuerySchema } from '@/domain/job';
+import { reportContentSchema } from '@/domain/report';
+import { vehicleSchema } from '@/domain/vehicle';
 import { shopSettingsSchema } from '@/domain/shop-settings';
 import { screeningSchema } from '@/domain/screening';
 import {

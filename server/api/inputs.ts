@@ -3,8 +3,8 @@
  * route, used by the route and by the published API description (server/api/description.ts).
  */
 import { z } from 'zod';
-import { analysisSettingsSchema } from '@/db/validators/analysis';
-import { engineSchema } from '@/db/validators/vehicle';
+import { analysisSettingsSchema } from '@/domain/analysis-settings';
+import { engineSchema } from '@/domain/vehicle';
 import { timeZoneSchema } from '@/domain/shop-settings';
 
 export const ROLES = ['owner', 'technician', 'advisor'] as const;

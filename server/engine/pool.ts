@@ -11,7 +11,7 @@ import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
 import { CaptureError, type AnalysisResult } from '@/signal';
 import type { StoredPieces } from '@/db/capture-store';
-import type { AnalysisSettingsValues } from '@/db/validators/analysis';
+import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import type { ReportPdfData } from '../pdf/report-document';
 import { HttpError } from '../http';

@@ -7,7 +7,7 @@
  */
 import type { StoredPieces } from '@/db/capture-store';
 import { compressPiece, unpackPieces } from '@/db/chunks';
-import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import type { AnalysisResult, CaptureError } from '@/signal';
 import { analyzeBytes, analyzeCapture, CaptureImporter, isCaptureError, refusalFor } from '@/signal';
 import { type TraceExcerpt, traceExcerpt } from '@/domain/trace-excerpt';

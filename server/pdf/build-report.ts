@@ -5,10 +5,8 @@ import { TEST_LIMITS } from '@/domain/report-wording';
 import { readCapturePacked } from '@/db/queries/captures';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
-import type { AnalysisSettingsValues } from '@/db/validators/analysis';
 import { storedTraceExcerpt } from '../engine/pool';
 import type { ReportBundle } from '@/db/queries/reports';
-import type { AnalysisResult } from '@/signal';
 import { conditionRows, NR } from './format';
 import type { PdfTrace, ReportPdfData } from './report-document';
 
@@ -18,13 +16,13 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const { timeZone, temperatureUnit } = await getShopSettings(b.shop.id);
   const analyses = [];
   for (const a of b.analyses) {
-    const result = a.analysis.result as AnalysisResult;
+    const result = a.analysis.result;
     // The first analysis's trace excerpt, stored when it was saved; drawn from the capture only for an analysis
     // saved before excerpts were kept.
     let trace: PdfTrace | undefined = a === b.analyses[0] ? (a.analysis.trace ?? undefined) : undefined;
     if (a === b.analyses[0] && !a.analysis.trace) {
       const packed = await readCapturePacked(b.shop.id, a.capture.id);
-      trace = packed ? ((await storedTraceExcerpt(packed, result, a.analysis.settings as AnalysisSettingsValues).catch(() => null)) ?? undefined) : undefined;
+      trace = packed ? ((await storedTraceExcerpt(packed, result, a.analysis.settings).catch(() => null)) ?? undefined) : undefined;
     }
     analyses.push({ label: `${a.jobRepairOrder} · ${a.capture.fileName} · saved ${formatWhen(a.analysis.createdAt, timeZone)}`, result, fileSha256: a.analysis.fileSha256, savedAtMs: a.analysis.createdAt.getTime(), trace });
   }

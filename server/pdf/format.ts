@@ -1,5 +1,5 @@
 /** Pure formatting for the report PDF: condition rows ("not recorded", never invented). */
-import type { Conditions } from '@/db/validators/report';
+import type { Conditions } from '@/domain/report';
 import type { TemperatureUnit } from '@/domain/shop-settings';
 import { temperatureText } from '@/domain/units';
 import { type AnalysisResult, identityWords } from '@/signal';

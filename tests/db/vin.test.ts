@@ -1,7 +1,7 @@
 // VIN check digit: 49 CFR 565.15 (transliteration, weights 8 7 6 5 4 3 2 10 0 9 8 7 6 5 4 3 2, modulo 11, X for 10),
 // with the worked example from Wikipedia, "Vehicle identification number" (1M8GDM9AXKP042788 → X).
 import { describe, expect, it } from 'vitest';
-import { vinCheckDigit, vinProblem } from '@/db/validators/vin';
+import { vinCheckDigit, vinProblem } from '@/domain/vin';
 
 describe('VIN check digit (49 CFR 565; ISO 3779 character set)', () => {
   it('the published example 1M8GDM9AXKP042788 carries X', () => {

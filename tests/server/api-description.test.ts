@@ -6,7 +6,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { jobSchema } from '@/db/validators/job';
+import { jobSchema } from '@/domain/job';
 import { API, apiDescription } from '@/server/api/description';
 
 function routeFiles(dir: string): string[] {

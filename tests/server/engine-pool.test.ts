@@ -7,7 +7,7 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { unpackPieces } from '@/db/chunks';
-import { engineSettings, settingsForEngine } from '@/db/validators/analysis';
+import { engineSettings, settingsForEngine } from '@/domain/analysis-settings';
 import { analyzeBytes, isCaptureError, refusalFor } from '@/signal';
 import { analyzeStored, MAX_QUEUE, renderPdf, screenUpload, THREADS } from '@/server/engine/pool';
 import { sampleReportData } from '../report/sample-report';

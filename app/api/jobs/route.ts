@@ -1,7 +1,7 @@
 /** The shop's jobs: list (search, status) and create (with an existing or a new vehicle). */
 import { recordAudit } from '@/db/queries/audit';
 import { createJob, DuplicateRepairOrderError, listJobs } from '@/db/queries/jobs';
-import { jobSchema, listQuerySchema } from '@/db/validators/job';
+import { jobSchema, listQuerySchema } from '@/domain/job';
 import { HttpError, notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
 

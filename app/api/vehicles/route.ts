@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { createVehicle, listVehicles } from '@/db/queries/vehicles';
-import { vehicleSchema } from '@/db/validators/vehicle';
+import { vehicleSchema } from '@/domain/vehicle';
 import { withShop } from '@/server/with-shop';
 
 export const GET = withShop({ vehicle: ['read'] }, z.object({}), async ({ shop }) => ({ vehicles: await listVehicles(shop.id) }));

@@ -8,7 +8,6 @@ import { findShareLink, reportBundle } from '@/db/queries/reports';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
 import { withinBudget } from '@/server/rate-limit';
-import type { AnalysisResult } from '@/signal';
 import { DecisionForm } from './decision-form';
 
 export const dynamic = 'force-dynamic';
@@ -26,7 +25,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
   const link = await findShareLink(token);
   const b = link && (await reportBundle(link.shopId, link.reportId));
   if (!link || !b) notFound();
-  const r = b.analyses[0]?.analysis.result as AnalysisResult | undefined;
+  const r = b.analyses[0]?.analysis.result;
   const vehicle = [b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ');
   const low = r?.cylinders.filter((c) => c.status === 'low') ?? [];
   return (

@@ -1,6 +1,6 @@
 'use client';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { JobInput } from '@/db/validators/job';
+import type { JobInput } from '@/domain/job';
 import { api } from '../api';
 import { jobKeys } from './keys';
 

@@ -9,7 +9,6 @@ import { getJob } from '@/db/queries/jobs';
 import { listApprovalsForJob, listRevisions } from '@/db/queries/reports';
 import { buttonClass } from '@/components/ui/button';
 import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
-import type { AnalysisResult } from '@/signal';
 import { CaptureUpload } from './_components/capture-upload';
 import { MiniBars } from './_components/mini-bars';
 import { RemoveJob } from './_components/remove-job';
@@ -80,7 +79,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           <ul className="grid gap-3 md:grid-cols-2" data-testid="capture-list">
             {captures.map((c) => {
               const a = latest.get(c.id);
-              const r = a?.result as AnalysisResult | undefined;
+              const r = a?.result;
               return (
                 <li key={c.id}>
                   <Link href={`/jobs/${job.id}/captures/${c.id}`} className="flex min-h-touch items-center gap-4 rounded-xl border border-line p-3 hover:border-brand">

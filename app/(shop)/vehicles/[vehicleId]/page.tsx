@@ -6,7 +6,7 @@ import { CylinderBars } from '@/components/analysis/cylinder-bars';
 import { candidateAnalysesForVehicle } from '@/db/queries/reports';
 import { getVehicle, vehicleJobs } from '@/db/queries/vehicles';
 import { pageMember } from '@/server/page-context';
-import { type AnalysisResult, compareResults } from '@/signal';
+import { compareResults } from '@/signal';
 
 export const metadata: Metadata = { title: 'Vehicle' };
 
@@ -32,7 +32,7 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
           </h2>
           <div className="grid gap-4 md:grid-cols-2">
             {[before, after].map((t, i) => {
-              const r = t.result as AnalysisResult;
+              const r = t.result;
               return (
                 <figure key={t.id}>
                   <figcaption className="font-bold">
@@ -44,7 +44,7 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
             })}
           </div>
           <ul className="mt-3 flex flex-col gap-1" data-testid="changes">
-            {compareResults(before.result as AnalysisResult, after.result as AnalysisResult).map((c) => (
+            {compareResults(before.result, after.result).map((c) => (
               <li key={c.cylinder} className={c.change === 'none' || c.change === 'unknown' ? 'text-muted' : 'font-bold'}>
                 {c.sentence}
               </li>

@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { deleteJob, getJob, updateJob } from '@/db/queries/jobs';
-import { jobUpdateSchema } from '@/db/validators/job';
+import { jobUpdateSchema } from '@/domain/job';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
 

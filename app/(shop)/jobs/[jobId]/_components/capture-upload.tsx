@@ -13,8 +13,8 @@ import { useEffect, useMemo, useState } from 'react';
 import { CautionsGate } from '@/components/analysis/cautions-dialog';
 import { rememberUpload } from '@/components/analysis/local-files';
 import { useAnalysisWorker } from '@/components/analysis/use-analysis-worker';
-import type { EngineSpec } from '@/db/schema';
-import { settingsForEngine } from '@/db/validators/analysis';
+import type { EngineSpec } from '@/domain/engine';
+import { settingsForEngine } from '@/domain/analysis-settings';
 import { type Screening } from '@/domain/screening';
 import { type UploadOutcome, UploadReading } from './upload-reading';
 

@@ -8,7 +8,7 @@ import Link from 'next/link';
 import { useEffect, useState } from 'react';
 import { CylinderBars } from '@/components/analysis/cylinder-bars';
 import type { AnalysisWorkerHandle } from '@/components/analysis/use-analysis-worker';
-import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import { type Screening, screeningDifferences, screeningSummary } from '@/domain/screening';
 import type { AnalysisResult } from '@/signal';
 

@@ -2,7 +2,7 @@
 /** The report's test conditions: typed by the technician, "not recorded" when left empty; coolant in the shop's unit. */
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { Field, Input, Select } from '@/components/ui/field';
-import type { ReportContent } from '@/db/validators/report';
+import type { ReportContent } from '@/domain/report';
 import { temperatureFrom, temperatureIn } from '@/domain/units';
 
 type Conditions = ReportContent['conditions'];

@@ -1,6 +1,6 @@
 /** The report page's data as the report route answers it, and the empty draft. */
 import { ApiError } from '@/components/data/api';
-import type { ReportContent } from '@/db/validators/report';
+import type { ReportContent } from '@/domain/report';
 import type { AnalysisResult } from '@/signal';
 
 export interface Revision {

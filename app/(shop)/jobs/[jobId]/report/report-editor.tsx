@@ -13,7 +13,7 @@ import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, TextArea } from '@/components/ui/field';
 import { api } from '@/components/data/api';
 import { interpretationFor, nextStepsFor } from '@/domain/report-wording';
-import type { ReportContent } from '@/db/validators/report';
+import type { ReportContent } from '@/domain/report';
 import { ConditionFields } from './condition-fields';
 import { EMPTY, errorText, type ReportData, type Revision } from './report-data';
 import { ReportDelivery } from './report-delivery';

@@ -10,7 +10,7 @@ import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
 import { ApiError } from '@/components/data/api';
 import { useCreateJob } from '@/components/data/jobs/create-job-mutation';
 import { useVehicles } from '@/components/data/vehicles/use-vehicles';
-import { type JobInput, type JobValues, jobSchema } from '@/db/validators/job';
+import { type JobInput, type JobValues, jobSchema } from '@/domain/job';
 
 interface Profile {
   key: string;

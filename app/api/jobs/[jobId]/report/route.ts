@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getJob } from '@/db/queries/jobs';
 import { candidateAnalyses, listApprovalsForJob, listRevisions, listShareLinksForJob, saveDraft } from '@/db/queries/reports';
-import { reportContentSchema } from '@/db/validators/report';
+import { reportContentSchema } from '@/domain/report';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
 

@@ -7,7 +7,7 @@ import { Workspace } from '@/components/analysis/workspace';
 import { getCapture, listAnalyses } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
 import { listProfiles } from '@/db/queries/profiles';
-import { type AnalysisSettingsValues, analysisSettingsSchema, settingsForEngine } from '@/db/validators/analysis';
+import { type AnalysisSettingsValues, analysisSettingsSchema, settingsForEngine } from '@/domain/analysis-settings';
 import { pageMember } from '@/server/page-context';
 import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
 

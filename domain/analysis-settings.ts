@@ -1,7 +1,7 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
-import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, parseWheel } from '../../signal';
-import type { EngineSpec } from '../schema/shop';
+import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, parseWheel } from '@/signal';
+import type { EngineSpec } from './engine';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'ignore'] as const;
 

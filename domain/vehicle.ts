@@ -1,6 +1,6 @@
 /** One zod schema per entity, shared by the form, the route handler and the seed. */
 import { z } from 'zod';
-import { firingIntervalsProblem, firingOrderProblem } from '../../signal';
+import { firingIntervalsProblem, firingOrderProblem } from '@/signal';
 import { vinProblem } from './vin';
 
 const firingOrderText = z
