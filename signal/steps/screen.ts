@@ -12,8 +12,16 @@ import { THIN_EVIDENCE } from './warnings';
 /** Below this mapping confidence the workspace asks which column is which. */
 export const SURE_MAPPING = 0.7;
 
+/**
+ * The one "nothing to analyse" rule: the analysis found no compression event at all. An upload is refused for
+ * it (below); Save answers it with the analysis's warnings and stores nothing.
+ */
+export function measuredNothing(result: Pick<AnalysisResult, 'events'>): boolean {
+  return result.events.length === 0;
+}
+
 export function refusalFor(capture: ImportedCapture, result: AnalysisResult): CaptureError | null {
-  if (result.events.length > 0 || capture.confidence < SURE_MAPPING) return null;
+  if (!measuredNothing(result) || capture.confidence < SURE_MAPPING) return null;
   const cause = result.warnings.find((w) => THIN_EVIDENCE.has(w.code)) ?? result.warnings[0];
   if (!cause || cause.code === 'NO_USABLE_CHANNEL') {
     const found = capture.channels.filter((c) => c.role !== 'ignore').map((c) => `"${c.name}" (${c.role})`);

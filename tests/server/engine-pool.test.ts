@@ -13,6 +13,7 @@ import { analyzeStored, MAX_QUEUE, renderPdf, screenUpload, THREADS } from '@/se
 import { sampleReportData } from '../report/sample-report';
 import { HttpError } from '@/server/http';
 import { traceExcerpt } from '@/domain/trace-excerpt';
+import { measuredNothing } from '@/signal/steps/screen';
 
 const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
 const I4 = settingsForEngine({ cylinders: 4, layout: 'inline', firingOrder: [1, 3, 4, 2] });
@@ -52,6 +53,9 @@ describe('engine thread pool', () => {
     const local = analyzeBytes(new Uint8Array(flat), engineSettings(I4), {});
     const expected = refusalFor(local.capture, local.result);
     expect(expected).not.toBeNull();
+    // The same rule Save answers with NOTHING_TO_MEASURE.
+    expect(measuredNothing(local.result)).toBe(true);
+    expect(measuredNothing(analyzeBytes(new Uint8Array(SAMPLE), engineSettings(I4), {}).result)).toBe(false);
     const e = await screenUpload(pieces(flat), flat.length, I4, true).catch((x: unknown) => x);
     expect(isCaptureError(e)).toBe(true);
     expect(e).toMatchObject({ code: expected!.code, message: expected!.message });

@@ -11,6 +11,7 @@ import { notFound } from '@/server/http';
 import { analyzeStored } from '@/server/engine/pool';
 import { withShop } from '@/server/with-shop';
 import { isCaptureError } from '@/signal';
+import { measuredNothing } from '@/signal/steps/screen';
 
 export const GET = withShop({ analysis: ['read'] }, z.object({ captureId: z.string() }), async ({ input, shop }) => {
   if (!(await getCapture(shop.id, input.captureId))) throw notFound('That capture');
@@ -34,7 +35,7 @@ export const POST = withShop({ analysis: ['save'] }, saveAnalysisInput.extend({ 
     }
     throw e;
   }
-  if (result.verdict === 'uncertain' && result.fitQuality === 0) {
+  if (measuredNothing(result)) {
     // The engine found nothing to measure: say so with its warning codes, and store nothing.
     return Response.json(
       { error: { code: 'NOTHING_TO_MEASURE', message: result.warnings.map((w) => w.message).join(' '), warnings: result.warnings }, result },
