@@ -64,12 +64,17 @@ test(`kill -9 during uploads and saves, ${ROUNDS} times: acknowledged captures i
     const cookie = await signIn();
     const jobs = (await (await fetch(`${BASE}/api/jobs`, { headers: { cookie } })).json()).jobs as { id: string }[];
     let stop = false;
+    // The kill is armed once this round's server has answered an upload (its engine threads start on first use),
+    // so every round kills a server that is busy with work, not one still warming up.
+    let answered: () => void = () => {};
+    const firstAnswer = new Promise<void>((r) => (answered = r));
     const worker = async (k: number) => {
       while (!stop) {
         const body = capture();
         const sha = createHash('sha256').update(body).digest('hex');
         try {
           const res = await fetch(`${BASE}/api/jobs/${jobs[k % jobs.length].id}/captures`, { method: 'POST', headers: { cookie, origin: BASE, 'content-type': 'text/csv', 'x-file-name': `fault-${serial}.csv` }, body });
+          answered();
           if (res.status !== 200) continue;
           const { capture: c } = await res.json();
           expect(c.sha256).toBe(sha);
@@ -100,7 +105,8 @@ test(`kill -9 during uploads and saves, ${ROUNDS} times: acknowledged captures i
       }
     };
     const workers = [worker(0), worker(1), resaver()];
-    await new Promise((r) => setTimeout(r, 300 + random() * 1500));
+    await Promise.race([firstAnswer, new Promise((r) => setTimeout(r, 15_000))]);
+    await new Promise((r) => setTimeout(r, random() * 1500));
     process.kill(-server.child.pid!, 'SIGKILL');
     await exited(server.child);
     stop = true;
