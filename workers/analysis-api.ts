@@ -46,38 +46,6 @@ export type WorkerError = { code: string; message: string; line?: number; column
 
 const CHUNK = 1 << 20;
 
-/** What a capture can be read from: a chosen file, bytes, or a download (its body stream and Content-Length). */
-export type CaptureSource = Blob | Uint8Array | { stream: ReadableStream<Uint8Array>; size: number };
-
-async function* bytePieces(b: Uint8Array): AsyncGenerator<Uint8Array> {
-  for (let o = 0; o < b.length; o += CHUNK) yield b.subarray(o, Math.min(b.length, o + CHUNK));
-}
-
-/** One stream's pieces as they arrive (a Blob's stream avoids a round trip to the browser per slice). */
-async function* piecesOf(stream: ReadableStream<Uint8Array>): AsyncGenerator<Uint8Array> {
-  const reader = stream.getReader();
-  try {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) return;
-      if (value.length > 0) yield value;
-    }
-  } finally {
-    reader.releaseLock();
-  }
-}
-
-function concat(parts: Uint8Array[], length: number): Uint8Array {
-  if (parts.length === 1) return parts[0];
-  const out = new Uint8Array(length);
-  let o = 0;
-  for (const p of parts) {
-    out.set(p, o);
-    o += p.length;
-  }
-  return out;
-}
-
 export function createAnalysisApi() {
   let capture: ImportedCapture | null = null;
   let cancelled = false;
@@ -88,42 +56,38 @@ export function createAnalysisApi() {
   };
 
   return {
-    /**
-     * Reads and parses a file (Blob), bytes, or a download as it arrives (a stream with its length), reporting
-     * progress; keeps the columns in this worker.
-     */
-    async importCapture(source: CaptureSource, options: ImportOptions = {}, onProgress?: ProgressFn): Promise<ImportSummary> {
+    /** Reads and parses a file (Blob) or bytes, reporting progress; keeps the columns in this worker. */
+    async importCapture(source: Blob | Uint8Array, options: ImportOptions = {}, onProgress?: ProgressFn): Promise<ImportSummary> {
       cancelled = false;
       capture = null;
       periods = null;
       const size = source instanceof Uint8Array ? source.length : source.size;
-      const pieces = source instanceof Uint8Array ? bytePieces(source) : piecesOf(source instanceof Blob ? source.stream() : source.stream);
-      // The head (the first megabyte, or the whole file) is sniffed before the importer starts.
-      const head: Uint8Array[] = [];
-      let headBytes = 0;
-      let next = await pieces.next();
-      while (!next.done && headBytes < CHUNK) {
-        head.push(next.value);
-        headBytes += next.value.length;
-        next = await pieces.next();
-      }
-      const first = concat(head, headBytes);
-      const importer = new CaptureImporter(first, Math.max(size, headBytes), options);
-      importer.push(first);
-      let read = headBytes;
-      let reported = read;
-      onProgress?.('parsing', size > 0 ? Math.min(1, read / size) : 0);
-      for (; !next.done; next = await pieces.next()) {
-        check();
-        importer.push(next.value);
-        read += next.value.length;
-        if (read - reported >= CHUNK) {
-          reported = read;
-          onProgress?.('parsing', size > 0 ? Math.min(1, read / size) : 0);
+      const headBytes = source instanceof Uint8Array ? source.subarray(0, CHUNK) : new Uint8Array(await source.slice(0, CHUNK).arrayBuffer());
+      const importer = new CaptureImporter(headBytes, size, options);
+      if (source instanceof Uint8Array) {
+        for (let offset = 0; offset < size; offset += CHUNK) {
+          check();
+          const end = Math.min(size, offset + CHUNK);
+          importer.push(source.subarray(offset, end));
+          onProgress?.('parsing', end / size);
+        }
+      } else {
+        // One stream over the file: a slice per megabyte costs a round trip to the browser each.
+        const reader = source.stream().getReader();
+        let read = 0;
+        let reported = 0;
+        for (;;) {
+          check();
+          const { done, value } = await reader.read();
+          if (done) break;
+          importer.push(value);
+          read += value.length;
+          if (read - reported >= CHUNK || read === size) {
+            reported = read;
+            onProgress?.('parsing', read / size);
+          }
         }
       }
-      onProgress?.('parsing', 1);
-      check();
       capture = importer.finish();
       const t = capture.columns.time ?? capture.columns.toothTimes;
       return {

@@ -2,13 +2,13 @@
 /** The analysis Web Worker: the API of analysis-api.ts over comlink, with decimated views transferred, not copied. */
 import * as Comlink from 'comlink';
 import type { AnalysisSettings, ImportOptions } from '../signal';
-import { type CaptureSource, createAnalysisApi, type ProgressFn, type TraceChannel, toWorkerError } from './analysis-api';
+import { createAnalysisApi, type ProgressFn, type TraceChannel, toWorkerError } from './analysis-api';
 
 const api = createAnalysisApi();
 
 /** Every call answers { ok, value } or { ok: false, error } so the page gets a plain error it can show. */
 const exposed = {
-  async importCapture(source: CaptureSource, options: ImportOptions, onProgress?: ProgressFn) {
+  async importCapture(source: Blob | Uint8Array, options: ImportOptions, onProgress?: ProgressFn) {
     try {
       return { ok: true as const, value: await api.importCapture(source, options, onProgress) };
     } catch (e) {

@@ -6,7 +6,7 @@
 import * as Comlink from 'comlink';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { AnalysisResult, AnalysisSettings, ImportOptions } from '@/signal';
-import type { CaptureSource, ImportSummary, Stage, TraceChannel, TraceView, WorkerError } from '@/workers/analysis-api';
+import type { ImportSummary, Stage, TraceChannel, TraceView, WorkerError } from '@/workers/analysis-api';
 import type { AnalysisWorker } from '@/workers/analysis.worker';
 
 export type LoadState =
@@ -33,23 +33,22 @@ export function useAnalysisWorker() {
     };
   }, []);
 
-  /** Imports a capture into the worker: a chosen file, or a stored one streamed into it as it downloads. */
+  /** Downloads (when given a URL) and imports a capture into the worker. */
   const open = useCallback(async (source: string | Blob, options: ImportOptions = {}) => {
     const r = remote.current;
     if (!r) return null;
-    let input: CaptureSource;
+    let blob: Blob;
     if (typeof source === 'string') {
       setLoad({ phase: 'loading', stage: 'downloading', fraction: 0 });
       const res = await fetch(source);
-      if (!res.ok || !res.body) {
+      if (!res.ok) {
         setLoad({ phase: 'error', error: { code: 'DOWNLOAD', message: `The capture could not be downloaded (${res.status}); reload the page.` } });
         return null;
       }
-      // The body goes to the worker as it arrives (a transferred stream): parsing overlaps the download.
-      input = Comlink.transfer({ stream: res.body, size: Number(res.headers.get('content-length') ?? 0) }, [res.body as unknown as Transferable]);
-    } else input = source;
+      blob = await res.blob();
+    } else blob = source;
     setLoad({ phase: 'loading', stage: 'parsing', fraction: 0 });
-    const out = await r.importCapture(input, options, Comlink.proxy((stage: Stage, fraction: number) => setLoad({ phase: 'loading', stage, fraction })));
+    const out = await r.importCapture(blob, options, Comlink.proxy((stage: Stage, fraction: number) => setLoad({ phase: 'loading', stage, fraction })));
     if (!out.ok) {
       setLoad({ phase: 'error', error: out.error });
       return null;
