@@ -23,11 +23,6 @@ export async function insertChunks(db: Pick<Db, 'insert'>, captureId: string, ch
   }
 }
 
-/** Reads and decompresses a capture's bytes into one array of `size` bytes. */
-export async function readChunks(db: Pick<Db, 'select'>, captureId: string, size: number): Promise<Uint8Array> {
-  return unpackPieces(await readPackedChunks(db, captureId), size);
-}
-
 /** Pieces read per query: small batches, so other requests' queries run between them (PGlite works on this thread). */
 const READ_BATCH = 4;
 

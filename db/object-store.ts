@@ -98,7 +98,9 @@ export async function deleteObjects(urls: string[]): Promise<void> {
   const byBucket = new Map<string, string[]>();
   for (const u of urls) {
     const { bucket, key } = parseObjectUrl(u);
-    byBucket.set(bucket, [...(byBucket.get(bucket) ?? []), key]);
+    const keys = byBucket.get(bucket);
+    if (keys) keys.push(key);
+    else byBucket.set(bucket, [key]);
   }
   for (const [bucket, keys] of byBucket) {
     for (let i = 0; i < keys.length; i += 1000) {

@@ -3,6 +3,7 @@
  * benchmark: its own port and database, the demo shop seeded, mail to a closed port.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
+import { createServer } from 'node:net';
 
 export interface AppServer {
   child: ChildProcess;
@@ -63,4 +64,16 @@ export async function signInCookie(base: string, email: string, password = 'cran
   });
   if (res.status !== 200) throw new Error(`sign-in answered ${res.status}`);
   return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+}
+
+/** A port of 127.0.0.1 that nothing holds right now, for a server a test or benchmark starts itself. */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as { port: number };
+      s.close(() => resolve(port));
+    });
+  });
 }

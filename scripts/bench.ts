@@ -6,7 +6,6 @@
  */
 import { execFileSync } from 'node:child_process';
 import { appendFileSync, copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { renderReportPdf } from '../server/pdf/render';
@@ -14,7 +13,7 @@ import { decimateMinMax } from '../signal/dsp/decimate';
 import { sampleReportData } from '../tests/report/sample-report';
 import { generateCapture } from './bench/generate';
 import { chooseToBars, healthDuringAnalysis } from './bench/served';
-import { exited, signInCookie, startApp, waitReady } from './app-server';
+import { exited, freePort, signInCookie, startApp, waitReady } from './app-server';
 
 const dir = '/tmp/crankprint-bench';
 mkdirSync(dir, { recursive: true });
@@ -66,14 +65,6 @@ const packages = Object.fromEntries(
   }),
 );
 const r10 = measure('10m', 10_000_000, 5);
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const srv = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as { port: number };
-      srv.close(() => resolve(port));
-    });
-  });
 
 async function measureServed(): Promise<{ barsMs: number; confirmedMs: number; healthP99: number } | null> {
   if (!existsSync('.next/BUILD_ID')) {

@@ -9,7 +9,7 @@ import type { StoredPieces } from '@/db/capture-store';
 import { compressPiece, unpackPieces } from '@/db/chunks';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import type { AnalysisResult, CaptureError } from '@/signal';
-import { analyzeBytes, analyzeCapture, CaptureImporter, isCaptureError, refusalFor } from '@/signal';
+import { analyzeBytes, analyzeCapture, CaptureImporter, importCapture, isCaptureError, refusalFor } from '@/signal';
 import { type TraceExcerpt, traceExcerpt } from '@/domain/trace-excerpt';
 import type { ReportPdfData } from '../pdf/report-document';
 import { renderReportPdf } from '../pdf/render';
@@ -52,10 +52,9 @@ async function run(task: EngineTask): Promise<unknown> {
       return screenUpload(task);
     case 'analyze':
       return analyzeStored(task);
-    case 'trace': {
-      const { capture } = analyzeBytes(bytesOf(task.stored), engineSettings(task.settings), importOptions(task.settings));
-      return traceExcerpt(capture.columns, task.result) ?? null;
-    }
+    case 'trace':
+      // The saved result is given: the file is only read, not analysed again.
+      return traceExcerpt(importCapture(bytesOf(task.stored), importOptions(task.settings)).columns, task.result) ?? null;
   }
 }
 

@@ -5,7 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { sql } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
-import { readChunks } from '@/db/chunks';
+import { joinStoredPieces, readStoredPieces } from '@/db/capture-store';
 import { openDatabase } from '@/db/client';
 import { captures } from '@/db/schema';
 import { seedDemoIfEmpty } from '@/db/seed';
@@ -15,7 +15,7 @@ const counts = async (at: string) => {
   const d = await openDatabase(at.startsWith('postgres') ? { url: at } : { dataDir: at });
   const [{ n }] = await d.db.select({ n: sql<number>`(select count(*) from jobs) + (select count(*) from analyses) + (select count(*) from capture_chunks)` }).from(sql`(select 1) as one`);
   const [c] = await d.db.select().from(captures).limit(1);
-  const bytes = await readChunks(d.db, c.id, c.sizeBytes);
+  const bytes = joinStoredPieces(await readStoredPieces(d.db, c));
   await d.close();
   return { n: Number(n), sha: c.sha256, size: bytes.length };
 };

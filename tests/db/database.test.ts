@@ -8,7 +8,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { and, eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { compressPiece, insertChunks, readChunks } from '@/db/chunks';
+import { joinStoredPieces, readStoredPieces } from '@/db/capture-store';
+import { compressPiece, insertChunks } from '@/db/chunks';
 import { type Database, openDatabase } from '@/db/client';
 import { DataDirLockedError } from '@/db/lock';
 import { captureChunks, captures, jobs, members, organizations, users, vehicles } from '@/db/schema';
@@ -58,7 +59,7 @@ function suite(name: string, open: () => Promise<Database>) {
         await tx.insert(captures).values({ id, shopId: j.shopId, jobId: j.id, fileName: 'a.csv', contentType: 'text/csv', sizeBytes: 5000, sha256: 'x', chunkCount: 2, uploadedBy: u.id });
         await insertChunks(tx, id, [compressPiece(bytes.subarray(0, 2500)), compressPiece(bytes.subarray(2500))]);
       });
-      expect(await readChunks(d.db, id, bytes.length)).toEqual(bytes);
+      expect(joinStoredPieces(await readStoredPieces(d.db, { id, sizeBytes: bytes.length, storageUrl: null }))).toEqual(bytes);
       const stored = await d.db.select().from(captureChunks).where(eq(captureChunks.captureId, id));
       expect(stored).toHaveLength(2);
       const failedId = crypto.randomUUID();

@@ -7,10 +7,9 @@
 import { execFile } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { existsSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { expect, test } from '@playwright/test';
-import { exited, signInCookie, startApp, waitReady } from '../../scripts/app-server';
+import { exited, freePort, signInCookie, startApp, waitReady } from '../../scripts/app-server';
 import { createDatabase } from '../../scripts/pg-server.mjs';
 import { type LocalS3, startLocalS3 } from '../support/s3-server';
 
@@ -23,16 +22,6 @@ const sha = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
 function objectFiles(dir: string): string[] {
   return readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? objectFiles(join(dir, e.name)) : e.name.endsWith('._S3rver_object') ? [join(dir, e.name)] : []));
 }
-
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
 
 test.describe.configure({ mode: 'serial' });
 let s3: LocalS3;

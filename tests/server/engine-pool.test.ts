@@ -9,7 +9,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { unpackPieces } from '@/db/chunks';
 import { engineSettings, settingsForEngine } from '@/domain/analysis-settings';
 import { analyzeBytes, isCaptureError, refusalFor } from '@/signal';
-import { analyzeStored, MAX_QUEUE, renderPdf, screenUpload, THREADS } from '@/server/engine/pool';
+import { analyzeStored, MAX_QUEUE, renderPdf, screenUpload, storedTraceExcerpt, THREADS } from '@/server/engine/pool';
 import { sampleReportData } from '../report/sample-report';
 import { HttpError } from '@/server/http';
 import { traceExcerpt } from '@/domain/trace-excerpt';
@@ -41,6 +41,8 @@ describe('engine thread pool', () => {
     expect(JSON.parse(JSON.stringify(there.result))).toEqual(JSON.parse(JSON.stringify(here.result)));
     // The report's excerpt comes from the same reading.
     expect(there.trace).toEqual(traceExcerpt(here.capture.columns, here.result));
+    // An analysis saved before excerpts were kept gets the same excerpt from the stored file.
+    expect(await storedTraceExcerpt(stored(chunks), there.result, I4)).toEqual(there.trace);
     expect(await analyzeStored({ pieces: pieces(SAMPLE), size: SAMPLE.length, gzip: false }, I4)).toEqual(there);
   });
 
