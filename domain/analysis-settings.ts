@@ -1,6 +1,6 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
-import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, parseWheel } from '@/signal';
+import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, METHOD_CHOICES, parseWheel } from '@/signal';
 import type { EngineSpec } from './engine';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'ignore'] as const;
@@ -14,7 +14,7 @@ export const analysisSettingsSchema = z
       layout: z.enum(['inline', 'v', 'flat']).default('inline'),
       numbering: z.enum(['along-crank', 'bank-by-bank']).default('along-crank'),
     }),
-    method: z.enum(['auto', 'current', 'crank-speed', 'battery']).default('auto'),
+    method: z.enum(METHOD_CHOICES).default('auto'),
     teeth: z
       .string()
       .refine((t) => parseWheel(t) !== null, 'Write the wheel like 60-2, or as runs and gaps such as 36:15/2,14/1,3/1.')

@@ -8,6 +8,8 @@ import {
   CaptureError,
   isCaptureError,
   MAX_CAPTURE_BYTES,
+  METHOD_CHOICES,
+  type MethodChoice,
   parseFiringOrder,
   parseWheel,
   intervalText,
@@ -16,7 +18,7 @@ import {
 
 const HELP = `Usage: npm run --silent analyze -- FILE --cylinders N --firing-order 1-3-4-2 [options]
 
-  --method auto|current|crank-speed|battery   method (auto: crank speed when there are teeth)
+  --method auto|current|crank-speed|event-duration|battery   method (auto: crank speed when there are teeth)
   --teeth WHEEL          crank wheel, learned from the capture when left out: 60-2, or runs of
                          teeth and gaps from position 0 such as 36:15/2,14/1,3/1, or 12:12+1
                          for 12 teeth and one extra tooth
@@ -79,7 +81,7 @@ function main() {
   if (!values.cylinders || !Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) fail('Give --cylinders as a whole number from 1 to 16.');
   if (!values['firing-order']) fail('Give --firing-order, for example 1-3-4-2.');
   const method = values.method;
-  if (method !== 'auto' && method !== 'current' && method !== 'crank-speed' && method !== 'battery') fail('--method must be auto, current, crank-speed or battery.');
+  if (!isMethodChoice(method)) fail(`--method must be ${METHOD_CHOICES.join(', ')}.`);
   const lowLimit = Number(values['low-limit']);
   if (!(lowLimit > 0 && lowLimit < 100)) fail('--low-limit must be a percentage between 0 and 100.');
   const highLimit = Number(values['high-limit']);
@@ -148,3 +150,7 @@ function describe(e: CaptureError): string {
 }
 
 main();
+
+function isMethodChoice(v: unknown): v is MethodChoice {
+  return (METHOD_CHOICES as readonly unknown[]).includes(v);
+}

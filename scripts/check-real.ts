@@ -1,7 +1,7 @@
 /**
  * The engine against real cranking recordings (external check data, never copied into this repository): every
- * file in ../shared/captures-real/ (or CRANKPRINT_REAL_DIR) is imported and analysed, and the four expectations
- * written in that folder's README are checked. Exits 1 when any fails, 0 when all hold; prints
+ * file in ../shared/captures-real/ and its second-set/ (or CRANKPRINT_REAL_DIR) is imported and analysed, and the
+ * expectations written in that folder's README are checked (1–4 for the first six, 5 for the second set). Exits 1 when any fails, 0 when all hold; prints
  * "N passed, N failed".
  */
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
@@ -15,8 +15,10 @@ const dir = resolve(process.env.CRANKPRINT_REAL_DIR ?? join(import.meta.dirname,
 const ENGINES: { match: RegExp; engine: EngineSetup }[] = [
   { match: /^v6-/, engine: { cylinders: 6, firingOrder: [1, 2, 3, 4, 5, 6], layout: 'v' } },
   { match: /^i3-/, engine: { cylinders: 3, firingOrder: [1, 2, 3] } },
-  { match: /^i4-2\.4l/, engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] } },
+  { match: /^i4-(2\.4l|1\.8l|2\.0l)/, engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] } },
   { match: /^i4-small/, engine: { cylinders: 4, firingOrder: [1, 2, 4, 3] } },
+  { match: /^i6-/, engine: { cylinders: 6, firingOrder: [1, 5, 3, 6, 2, 4] } },
+  { match: /^flat4-/, engine: { cylinders: 4, firingOrder: [1, 3, 2, 4], layout: 'flat' } },
 ];
 
 type Check = [string, boolean];
@@ -28,6 +30,34 @@ const WHEELS = [
   { match: /^i4-2\.4l/, words: '12 positions, 12 teeth, no gap and one extra tooth' },
   { match: /^i4-small/, words: '8 positions, 7 teeth, a gap of 1' },
 ];
+
+/** Expectation 5 of captures-real/README.md: the second set, whose shapes the first six did not show. */
+function secondSet(file: string, r: AnalysisResult, mappingConfidence: number): Check[] {
+  const codes = r.warnings.map((w) => w.code);
+  const checks: Check[] = [
+    ['5. read without a mapping dialog or an error: a sure mapping', mappingConfidence >= 0.7],
+    ['5. read from the crank teeth (an edge log, not a starter current)', r.method === 'crank-speed' || r.method === 'event-duration'],
+    ['5. figures for every cylinder', r.cylinders.every((c) => c.relativePercent !== null)],
+    ['5. presumably healthy: no cylinder low', r.cylinders.every((c) => c.status !== 'low')],
+    ['5. never "no compression"', !codes.includes('NO_COMPRESSION')],
+  ];
+  if (file.includes('-starts')) {
+    const started = r.warnings.find((w) => w.code === 'ENGINE_STARTED');
+    checks.push(
+      ['5. an engine that starts: when it started and how much cranking was used', !!started && /started at [\d.]+ s; [\d.]+ s of cranking/.test(started.message)],
+      ['5. an engine that starts: the cranking speed is the cranking before it', r.crankingRpm > 100 && r.crankingRpm < 400],
+    );
+  }
+  if (/crank-[1-6]-|crank-[1-6]-teeth/.test(file)) checks.push(['5. a wheel with few teeth is read by event duration', r.method === 'event-duration']);
+  if (file.includes('noisy')) {
+    checks.push(
+      ['5. the noisy start is left out, and said so', r.window.startS >= 1.5 && codes.includes('UNSTEADY_START')],
+      ['5. the steady part is read (2.3–6.6 s)', r.window.endS - r.window.startS >= 2.5],
+    );
+  }
+  if (file.includes('double-gaps')) checks.push(['5. the same gap every 120° is one wheel of 36 positions', r.wheel?.notation === '36:10/2,10/2,10/2']);
+  return checks;
+}
 
 /** Expectations 1–4 of captures-real/README.md, "What Crankprint must do with them". */
 function expectations(file: string, r: AnalysisResult, mappingConfidence: number): Check[] {
@@ -74,8 +104,13 @@ function main(): void {
   }
   let passed = 0;
   let failed = 0;
-  const files = readdirSync(dir).filter((f) => f.endsWith('.csv')).sort();
-  for (const file of files) {
+  const second = join(dir, 'second-set');
+  const files = [
+    ...readdirSync(dir).filter((f) => f.endsWith('.csv')).sort(),
+    ...(existsSync(second) ? readdirSync(second).filter((f) => f.endsWith('.csv')).sort().map((f) => `second-set/${f}`) : []),
+  ];
+  for (const path of files) {
+    const file = path.replace(/^second-set\//, '');
     const engine = ENGINES.find((e) => e.match.test(file))?.engine;
     if (!engine) {
       process.stdout.write(`? ${file}: no engine known for it (see captures-real/README.md)\n`);
@@ -85,14 +120,14 @@ function main(): void {
     let checks: Check[];
     let summary = '';
     try {
-      const { capture, result } = analyzeBytes(readFileSync(join(dir, file)), { engine });
-      checks = expectations(file, result, capture.confidence);
-      summary = `${result.verdict}, ${result.identity}, ${result.wheel?.description ?? 'no wheel'}, swing ${result.speedSwing}, figures ${result.cylinders.map((c) => c.relativePercent ?? '—').join(' ')}`;
+      const { capture, result } = analyzeBytes(readFileSync(join(dir, path)), { engine });
+      checks = path === file ? expectations(file, result, capture.confidence) : secondSet(file, result, capture.confidence);
+      summary = `${result.method}, ${result.verdict}, ${result.identity}, ${result.wheel?.description ?? 'no wheel'}, swing ${result.speedSwing}, figures ${result.cylinders.map((c) => c.relativePercent ?? '—').join(' ')}`;
     } catch (e) {
       checks = [['read without an error', false]];
       summary = (e as Error).message;
     }
-    process.stdout.write(`${file}: ${summary}\n`);
+    process.stdout.write(`${path}: ${summary}\n`);
     for (const [what, ok] of checks) {
       process.stdout.write(`  ${ok ? 'ok  ' : 'FAIL'} ${what} (captures-real/README.md)\n`);
       if (ok) passed++;

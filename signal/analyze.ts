@@ -5,7 +5,10 @@
 import { checkFiringOrder, firingIntervals } from './engine/firing';
 import { CaptureError } from './errors';
 import { type MethodOutcome, type MethodRun, runCurrentMethod } from './methods/current';
-import { runCrankSpeedMethod, runSpeedChannelMethod } from './methods/crank-speed';
+import { type CrankInput, type CrankTeeth, readCrankTeeth, runCrankSpeedMethod, runSpeedChannelMethod } from './methods/crank-speed';
+import { runEventDurationMethod } from './methods/event-duration';
+import { startedSentence } from './steps/cranking-end';
+import { findCycleMarks } from './teeth/cycle-marks';
 import { describePattern } from './steps/pattern';
 import { summarize } from './steps/summarize';
 import { runFit } from './steps/run-fit';
@@ -13,15 +16,17 @@ import { type QualityWarning, warning } from './steps/warnings';
 import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, CylinderStatus, Method, MethodResult, WheelInfo } from './types';
 import { ENGINE_VERSION } from './version';
 import { cylinderIntervals, widenToward } from './steps/interval';
-import { gradeCapture, holdAfterLow, isThin, type Limits, settleStatuses } from './steps/status';
+import { gradeCapture, holdAfterLow, holdHigh, isThin, type Limits, settleStatuses } from './steps/status';
 import { quantileProbe } from './dsp/stats';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
-import { wheelNotation } from './teeth/wheel';
+import { teethOf, wheelNotation } from './teeth/wheel';
 
 const MIN_RPM = 100;
 const MAX_RPM = 400;
 const MIN_CYCLES = 3;
 const MIN_FIT = 0.6;
+/** Teeth this long before the cranking window are an unsteady start worth a sentence (the starter engages within 0.5 s). */
+const UNSTEADY_LEAD_S = 1;
 
 /** Analyses decoded capture columns. Throws CaptureError only for bad settings; a bad capture gives `uncertain`. */
 export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettings, importWarnings: QualityWarning[] = []): AnalysisResult {
@@ -40,6 +45,19 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   const hasCurrent = !!(columns.current && columns.time);
   const hasCrank = !!(columns.toothTimes || (columns.crank && columns.time) || (columns.rpm && columns.time));
   const hasBattery = !!(columns.battery && columns.time);
+  const hasTeeth = !!(columns.toothTimes || (columns.crank && columns.time));
+  const crankInput: CrankInput = {
+    toothTimes: columns.toothTimes,
+    time: columns.time,
+    crank: columns.crank,
+    sync: columns.sync,
+    marks: columns.marks,
+    sensor: settings.sensor,
+    teeth: settings.teeth,
+    markOffsetDeg: settings.markOffsetDeg,
+  };
+  let teethRead: CrankTeeth | null | undefined;
+  const readTeeth = () => (teethRead === undefined ? (teethRead = readCrankTeeth(crankInput, setup)) : teethRead);
 
   let crankOutcome: MethodOutcome | undefined;
   const runMethod = (method: Method): MethodOutcome => {
@@ -55,24 +73,27 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
       if (isEdgeSampled(columns)) return batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit);
       return runBatteryMethod(columns.time!, columns.battery!, columns.sync, setup, rotation, settings.window);
     }
+    if (method === 'event-duration') {
+      if (!hasTeeth) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The event-duration method needs crank tooth times or a crank sensor channel; map one or choose another method.')] };
+      const read = readTeeth();
+      if (!read) return { ok: false, warnings: [warning('NO_CRANKING', 'No crank teeth were found: the crank did not turn, or the crank sensor channel is not connected. Check the probe and record while cranking.')] };
+      return runEventDurationMethod(
+        { teeth: read.teeth, ...wheelForDurations(read, columns.marks), marks: columns.marks, markOffsetDeg: settings.markOffsetDeg, lowLimitPercent: lowLimit },
+        setup,
+        rotation,
+        settings.window,
+      );
+    }
     if (!hasCrank) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The crank-speed method needs crank tooth times, a crank sensor channel or an engine-speed channel; map one or choose the starter-current method.')] };
     if (!columns.toothTimes && !columns.crank) return runSpeedChannelMethod(columns.time!, columns.rpm!, setup, rotation, settings.window);
-    crankOutcome ??= runCrankSpeedMethod(
-      {
-        toothTimes: columns.toothTimes,
-        time: columns.time,
-        crank: columns.crank,
-        sync: columns.sync,
-        marks: columns.marks,
-        sensor: settings.sensor,
-        teeth: settings.teeth,
-        markOffsetDeg: settings.markOffsetDeg,
-      },
-      setup,
-      rotation,
-      settings.window,
-    );
+    crankOutcome ??= runCrankSpeedMethod(crankInput, setup, rotation, settings.window, readTeeth());
     return crankOutcome;
+  };
+  const results = new Map<Method, MethodResult>();
+  const resultOf = (method: Method): MethodResult => {
+    let r = results.get(method);
+    if (!r) results.set(method, (r = toMethodResult(method, runMethod(method), settings, limits, spreadLimit, importWarnings)));
+    return r;
   };
 
   // Crank speed first; on a wheel too coarse to separate cylinders, an electrical channel leads.
@@ -80,13 +101,24 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   if (choice === 'auto' && primary === 'crank-speed' && (hasCurrent || hasBattery)) {
     const crank = runMethod('crank-speed');
     if (crank.ok && crank.run.wheel?.tooCoarse) primary = hasCurrent ? 'current' : 'battery';
+  } else if (choice === 'auto' && primary === 'crank-speed' && hasTeeth && !usable(resultOf('crank-speed')) && !isFinding(resultOf('crank-speed'))) {
+    // Teeth too coarse or too noisy for a speed curve still time each event; thin figures beat none.
+    const duration = resultOf('event-duration');
+    if (usable(duration) || (hasFigures(duration) && !hasFigures(resultOf('crank-speed')))) primary = 'event-duration';
   }
-  const result = toMethodResult(primary, runMethod(primary), settings, limits, spreadLimit, importWarnings);
+  const result = resultOf(primary);
+  const firstTooth = columns.toothTimes?.[0];
+  if (firstTooth !== undefined && !settings.window && result.window.endS > result.window.startS && result.window.startS - firstTooth > UNSTEADY_LEAD_S) {
+    const skipped = result.window.startS - firstTooth;
+    result.warnings.push(warning('UNSTEADY_START', `The first ${skipped.toFixed(1)} s of crank teeth were unsteady (the starter engaging, or lost, extra or noisy edges) and were left out; the steady cranking from ${result.window.startS.toFixed(1)} s was read.`));
+  }
 
   let crossCheck: AnalysisResult['crossCheck'];
-  const otherMethod: Method | null = choice !== 'auto' ? null : primary !== 'crank-speed' ? (hasCrank ? 'crank-speed' : null) : hasCurrent ? 'current' : hasBattery ? 'battery' : null;
+  const electrical: Method | null = hasCurrent ? 'current' : hasBattery ? 'battery' : null;
+  const otherMethod: Method | null =
+    choice !== 'auto' ? null : primary === 'crank-speed' || primary === 'event-duration' ? electrical : hasCrank ? 'crank-speed' : null;
   if (otherMethod) {
-    const other = toMethodResult(otherMethod, runMethod(otherMethod), settings, limits, spreadLimit, importWarnings);
+    const other = resultOf(otherMethod);
     // A method whose own evidence is thin (a wheel too coarse for crank speed, say) is no check on the other.
     const otherThin = isThin(other.method, other.warnings, other.wheel);
     if (!otherThin && other.fitQuality > 0 && result.cylinders.every((c) => c.relativePercent !== null) && other.cylinders.every((c) => c.relativePercent !== null)) {
@@ -170,8 +202,9 @@ function toMethodResult(
   }
   const run: MethodRun = outcome.run;
   warnings.push(...run.warnings);
-  // With no compression there is nothing to compare: no figures, and no follow-on complaints about events.
-  const noCompression = run.warnings.some((w) => w.code === 'NO_COMPRESSION');
+  // With no compression, or events that contradict the engine set up, there is nothing to compare: no figures,
+  // and no follow-on complaints about events.
+  const noCompression = run.warnings.some((w) => w.code === 'NO_COMPRESSION' || w.cylinders !== undefined);
   const half = Math.min(...firingIntervals(setup)) / 2;
   const isCurrent = method !== 'crank-speed';
   let fit = run.fit;
@@ -189,12 +222,13 @@ function toMethodResult(
   }
 
   if (noCompression) {
-    for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'FIRING_ORDER_MISMATCH') warnings.splice(i, 1);
+    for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'FIRING_ORDER_MISMATCH' && warnings[i].cylinders === undefined) warnings.splice(i, 1);
   }
   const rpm = Math.round(run.rpm * 10) / 10;
   if (rpm < MIN_RPM) warnings.push(warning('CRANKING_TOO_SLOW', `Cranking averaged ${rpm.toFixed(0)} rpm, below the ${MIN_RPM} rpm needed; charge or replace the battery and check the starter, then record again.`));
   if (rpm > MAX_RPM) warnings.push(warning('CRANKING_TOO_FAST', `The crank turned at ${rpm.toFixed(0)} rpm, faster than cranking (${MAX_RPM} rpm); the engine may have started. Disable fuel as the service information directs and record again.`));
   const cycles = Math.min(...summary.cylinders.map((c) => c.events));
+  if (run.startedAtS !== undefined) warnings.push(warning('ENGINE_STARTED', startedSentence(run.startedAtS, run.window.endS - run.window.startS, cycles)));
   if (cycles < MIN_CYCLES && !noCompression) warnings.push(warning('TOO_FEW_CYCLES', `Only ${cycles} complete engine cycle(s) per cylinder were usable; crank for 5–10 s so at least ${MIN_CYCLES} are recorded.`));
   if (fit.r2 < MIN_FIT && !noCompression && !warnings.some((w) => w.code === 'FIRING_ORDER_MISMATCH')) warnings.push(warning('FIRING_ORDER_MISMATCH', `The compression events do not follow ${n} cylinders firing ${setup.firingOrder.join('-')}; check the cylinder count, firing order and intervals against the service information.`));
   if (run.identity === 'assumed' && !warnings.some((w) => w.code === 'SYNC_NOT_FOUND')) {
@@ -216,7 +250,8 @@ function toMethodResult(
       c.perCycle = [];
       c.spreadPercent = 0;
     }
-    c.interval = c.relativePercent === null ? null : intervals[i];
+    // A method that gives its own intervals (event duration) keeps them.
+    c.interval = c.relativePercent === null ? null : run.figures && c.interval ? c.interval : intervals[i];
     if (c.spreadPercent > spreadLimit) inconsistent.push(c.cylinder);
   }
   settle(summary.cylinders, method, warnings, run.wheel, setup, limits);
@@ -243,8 +278,39 @@ function toMethodResult(
   };
 }
 
-const RAW_UNIT = { current: 'A', 'crank-speed': 'rpm', battery: 'V' } as const;
-const METHOD_WORDS: Record<Method, string> = { current: 'starter-current', 'crank-speed': 'crank-speed', battery: 'battery-voltage' };
+const RAW_UNIT = { current: 'A', 'crank-speed': 'rpm', 'event-duration': 'ms', battery: 'V' } as const;
+const METHOD_WORDS: Record<Method, string> = { current: 'starter-current', 'crank-speed': 'crank-speed', 'event-duration': 'event-duration', battery: 'battery-voltage' };
+
+/** A result that ranks cylinders: figures for every cylinder and no warning that leaves nothing to rank. */
+function usable(r: MethodResult): boolean {
+  return !isThin(r.method, r.warnings, r.wheel) && hasFigures(r);
+}
+
+/**
+ * A result whose lack of figures is itself the answer: no compression, or events that contradict the engine, read
+ * on a wheel fine enough to see them (a coarse pattern learned from its gaps may be compression, not a gap).
+ */
+function isFinding(r: MethodResult): boolean {
+  return !r.wheel?.tooCoarse && r.warnings.some((w) => w.code === 'NO_COMPRESSION' || w.cylinders !== undefined);
+}
+
+function hasFigures(r: MethodResult): boolean {
+  return r.cylinders.every((c) => c.relativePercent !== null);
+}
+
+/**
+ * The wheel the event-duration method times events on: the learned one when it is fine, or coarse but in step
+ * with a cycle mark (its teeth a cycle are the mark's); otherwise none, and the method counts teeth per cycle
+ * itself (a coarse pattern learned from its gaps can be compression, not a gap).
+ */
+function wheelForDurations(read: CrankTeeth, marks: CaptureColumns['marks']): { angles?: { times: Float64Array; angleDeg: Float64Array }; wheel?: WheelInfo; cycleTeeth?: number } {
+  const f = read.found;
+  if (!f) return {};
+  const fine = teethOf(f.wheel) >= 16;
+  const cycle = fine ? null : findCycleMarks(marks, read.teeth);
+  if (!fine && !(cycle && Math.abs(cycle.teethPerCycle - 2 * teethOf(f.wheel)) < 0.6)) return {};
+  return { angles: { times: f.angles.times, angleDeg: f.angles.angleDeg }, wheel: f.info, cycleTeeth: 2 * teethOf(f.wheel) };
+}
 
 /** A clamp put on backwards reads the cranking current negative: read its magnitude, and say so. */
 function orientCurrent(current: Float64Array): { current: Float64Array; notice?: QualityWarning } {
@@ -268,6 +334,7 @@ function withWarning(outcome: MethodOutcome, w: QualityWarning): MethodOutcome {
 function settle(cylinders: CylinderResult[], method: Method, warnings: QualityWarning[], wheel: WheelInfo | undefined, setup: AnalysisSettings['engine'], limits: Limits): void {
   settleStatuses(cylinders, isThin(method, warnings, wheel), limits, warnings);
   if (method !== 'crank-speed') holdAfterLow(cylinders, setup, limits.lowLimitPercent, warnings);
+  if (method === 'event-duration') holdHigh(cylinders, warnings);
 }
 
 function round3(v: number): number {

@@ -5,8 +5,14 @@ export function percentText(v: number | null, digits = 1): string {
   return v === null ? '—' : v.toFixed(digits);
 }
 
+/** The method choices a user can make, `auto` first. */
+export const METHOD_CHOICES = ['auto', 'current', 'crank-speed', 'event-duration', 'battery'] as const;
+
 /** The method in words. */
-export const METHOD_NAMES = { current: 'starter current', 'crank-speed': 'crank speed', battery: 'battery voltage' } as const;
+export const METHOD_NAMES = { current: 'starter current', 'crank-speed': 'crank speed', 'event-duration': 'event duration', battery: 'battery voltage' } as const;
+
+/** What the raw figure of each unit measures, as a column heading. */
+export const RAW_LABELS = { A: 'Current rise', V: 'Voltage swing', rpm: 'Speed dip', ms: 'Event time' } as const;
 
 /** Where the cylinder numbers come from, in a short phrase. */
 export function identityWords(identity: 'sync' | 'cam' | 'injector' | 'coil' | 'assumed'): string {

@@ -28,7 +28,7 @@ export function analyzeBytes(
   const capture = importCapture(bytes, options);
   return { capture, result: analyzeCapture(capture.columns, settings, capture.warnings) };
 }
-export { identityWords, intervalText, METHOD_NAMES, percentText } from './format';
+export { identityWords, intervalText, METHOD_CHOICES, METHOD_NAMES, percentText, RAW_LABELS } from './format';
 export { compareResults } from './steps/compare';
 export { toothPeriods } from './teeth/periods';
 export type { CylinderChange } from './steps/compare';

@@ -3,6 +3,7 @@ import type { EngineSetup } from './engine/firing';
 import type { QualityWarning } from './steps/warnings';
 import type { CylinderMarks } from './import/edge-log';
 import type { ToothWheel } from './teeth/wheel';
+import type { METHOD_CHOICES } from './format';
 
 /** Decoded channels of one capture; every array is aligned with `time` except `toothTimes`. */
 export interface CaptureColumns {
@@ -24,9 +25,12 @@ export interface CaptureColumns {
   marks?: CylinderMarks[];
 }
 
-export type MethodChoice = 'auto' | 'current' | 'crank-speed' | 'battery';
-/** `battery` is the electrical method on battery voltage (it dips as the starter current rises). */
-export type Method = 'current' | 'crank-speed' | 'battery';
+export type MethodChoice = (typeof METHOD_CHOICES)[number];
+/**
+ * `battery` is the electrical method on battery voltage (it dips as the starter current rises); `event-duration`
+ * times each compression event on the crank teeth (any wheel, down to one tooth an event).
+ */
+export type Method = 'current' | 'crank-speed' | 'event-duration' | 'battery';
 /** `high`: wholly above the upper limit (carbon build-up or an oil-fouled chamber are common causes). */
 export type CylinderStatus = 'ok' | 'low' | 'high' | 'uncertain';
 /** Where cylinder numbers come from: a sync channel, a cam channel, an injector or coil output, or assumed. */
@@ -120,10 +124,10 @@ export interface MethodResult {
   window: { startS: number; endS: number };
   cylinders: CylinderResult[];
   events: EventMark[];
-  rawUnit: 'A' | 'rpm' | 'V';
+  rawUnit: 'A' | 'rpm' | 'V' | 'ms';
   /** Strongest − weakest relative compression, percentage points. */
   spreadPercent: number;
-  /** Share of the crank's acceleration the torque model explains, 0…1. */
+  /** Share of the crank's acceleration the torque model explains, 0…1 (event duration: the share of events timed whole). */
   fitQuality: number;
   warnings: QualityWarning[];
 }

@@ -1,5 +1,5 @@
 /** Where the eye lands after the chart: the verdict, the pattern hint with next tests, and the warnings. */
-import type { AnalysisResult } from '@/signal';
+import { type AnalysisResult, METHOD_NAMES } from '@/signal';
 import { STATUS_TEXT } from './status-style';
 
 const VERDICT: Record<string, string> = {
@@ -36,7 +36,7 @@ export function Findings({ result }: { result: AnalysisResult }) {
       )}
       {result.crossCheck && (
         <p className={result.crossCheck.agree ? '' : 'font-bold text-low'}>
-          Cross-check with the {result.crossCheck.method === 'current' ? 'starter-current' : 'crank-speed'} method:{' '}
+          Cross-check with the {METHOD_NAMES[result.crossCheck.method]} method:{' '}
           {result.crossCheck.agree ? 'the two methods agree' : 'the two methods disagree'} (largest difference <span className="figures">{result.crossCheck.maxDifference}</span> points).
         </p>
       )}

@@ -2,7 +2,7 @@
  * The figures beneath the chart: the figure with its 90 % interval, the raw figure (A, V or rpm), the time through
  * each event on crank speed, the plain index, events used and rejected, and the cycle-to-cycle spread.
  */
-import { type AnalysisResult, type CylinderResult, intervalText, percentText } from '@/signal';
+import { type AnalysisResult, type CylinderResult, intervalText, percentText, RAW_LABELS } from '@/signal';
 import { STATUS_TEXT } from './status-style';
 
 export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult[]; rawUnit: AnalysisResult['rawUnit'] }) {
@@ -17,7 +17,7 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
             <th scope="col" className="px-3 py-2">Relative compression</th>
             <th scope="col" className="px-3 py-2">90 % interval</th>
             <th scope="col" className="px-3 py-2 text-left">Status</th>
-            <th scope="col" className="px-3 py-2">{rawUnit === 'A' ? 'Current rise' : rawUnit === 'V' ? 'Voltage swing' : 'Speed dip'}</th>
+            <th scope="col" className="px-3 py-2">{RAW_LABELS[rawUnit]}</th>
             {stroke && <th scope="col" className="px-3 py-2">Compression stroke</th>}
             <th scope="col" className="px-3 py-2">Plain index</th>
             <th scope="col" className="px-3 py-2">Cycle spread</th>

@@ -73,6 +73,8 @@ export function SettingsPanel({
           <option value="auto">Automatic (from the channels)</option>
           <option value="current">Starter current</option>
           <option value="crank-speed">Crank speed</option>
+          <option value="event-duration">Event duration (any wheel)</option>
+          <option value="battery">Battery voltage</option>
         </Select>
       </Field>
       <Field id="s-teeth" label="Tooth pattern" hint="Found from the gaps when left empty.">

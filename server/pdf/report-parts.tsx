@@ -3,7 +3,7 @@
  * vectors, and the figures table. report-document.tsx lays them out.
  */
 import { G, Line, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
-import { type AnalysisResult, intervalText, percentText } from '@/signal';
+import { type AnalysisResult, intervalText, percentText, RAW_LABELS } from '@/signal';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 
 export const C = { ink: '#1B2430', muted: '#545C68', line: '#CDC7BC', brand: '#A64822', ok: '#166E60', low: '#B0261E', uncertain: '#606876', high: '#965C00', limit: '#6842A8', event: '#2656A0', raised: '#EEEAE2' };
@@ -146,7 +146,7 @@ export function Figures({ r }: { r: AnalysisResult }) {
     ['Relative', 55],
     ['90 % interval', 75],
     ['Status', 60],
-    [r.rawUnit === 'A' ? 'Current rise' : r.rawUnit === 'V' ? 'Voltage swing' : 'Speed dip', 75],
+    [RAW_LABELS[r.rawUnit], 75],
     ['Plain index', 70],
     ['Cycle spread', 70],
     ['Events used / rejected', 60],

@@ -94,7 +94,8 @@ export function chooseEdgeChannels(time: Float64Array, levels: (LevelColumn & { 
   const toothTimes = crank[crankEdge];
   const marks: CylinderMarks[] = [];
   const markIndices: number[] = [];
-  const few = Math.max(3, toothTimes.length / 6);
+  // A cam may carry several windows a cycle (its pattern is read later against the crank); it has fewer edges than the crank.
+  const few = Math.max(3, toothTimes.length - 1);
   const candidates = edges.filter((e) => e.index !== crank!.index && (markIndex === undefined || e.index === markIndex));
   // Bit masks first (an injector or coil output names its cylinder), then cam-like channels.
   for (const e of candidates) {

@@ -9,6 +9,9 @@ export function parseHeaderCell(raw: string): HeaderCell {
   const text = raw.trim().replace(/^"|"$/g, '').trim();
   const m = /^(.*?)\s*[[(]\s*([^\])]*?)\s*[\])]\s*$/.exec(text);
   if (m && m[1]) return { name: m[1].trim(), unit: m[2] || null };
+  // A time unit written into the name: `time_ms`, `Time ms`, `t_us`, `timestamp.ns`.
+  const suffix = /^(t|time|timestamp|zeit|temps)[\s_.-]+(s|sec|ms|msec|us|µs|μs|usec|ns|min)$/i.exec(text);
+  if (suffix) return { name: text, unit: suffix[2] };
   return { name: text, unit: null };
 }
 
@@ -20,6 +23,7 @@ export function timeScale(unit: string | null): number | null {
   if (u === 'ms' || u === 'msec' || u === 'milliseconds') return 1e-3;
   if (u === 'us' || u === 'µs' || u === 'μs' || u === 'usec' || u === 'microseconds') return 1e-6;
   if (u === 'ns') return 1e-9;
+  if (u === 'min' || u === 'minutes') return 60;
   return null;
 }
 

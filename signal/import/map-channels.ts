@@ -20,7 +20,7 @@ export interface ChannelMapping {
 }
 
 const RULES: { role: ChannelRole; name: RegExp; units: RegExp }[] = [
-  { role: 'time', name: /^(t|time|zeit|temps|sec|seconds|timestamp)\b/i, units: /^(s|ms|us|µs|μs|ns|sec|msec)$/i },
+  { role: 'time', name: /^(t|time|zeit|temps|sec|seconds|timestamp)(\b|_)/i, units: /^(s|ms|us|µs|μs|ns|sec|msec|min)$/i },
   { role: 'battery', name: /batt|vbat|battery|supply.?volt|bordnetz/i, units: /^$/ },
   { role: 'rpm', name: /rpm|engine.?speed|crank.?speed|speed/i, units: /^(rpm|1\/min|min-1|u\/min)$/i },
   { role: 'current', name: /current|amp|starter|clamp|strom|\bi\b/i, units: /^(a|amps?|ampere)$/i },
@@ -94,14 +94,16 @@ const ruleFor = (role: ChannelRole) => RULES.find((r) => r.role === role)!;
  * into crank and marks on import), a battery column by name is kept, the rest is ignored.
  */
 function edgeLogMapping(cells: HeaderCell[], values: Float64Array[]): ChannelMapping | null {
-  const ti = cells.findIndex((c) => ruleFor('time').name.test(c.name));
+  const named = cells.findIndex((c) => ruleFor('time').name.test(c.name));
+  // Without a time column by name (a file with no header row), a first column that rises is the time.
+  const ti = named >= 0 ? named : isIncreasing(values[0]) ? 0 : -1;
   if (ti < 0) return null;
   const others = values.filter((_, i) => i !== ti);
   if (!looksLikeEdgeLog(values[ti], others)) return null;
   const roles: ChannelRole[] = cells.map((c, i) =>
     i === ti ? 'time' : ruleFor('battery').name.test(c.name) ? 'battery' : isLevelLike(values[i]) ? 'level' : 'ignore',
   );
-  return { roles, confidence: roles.map(() => 0.9), timeScale: timeScale(cells[ti].unit) ?? 1, timeIsIndex: false, edgeLog: true };
+  return { roles, confidence: roles.map(() => (named >= 0 ? 0.9 : 0.8)), timeScale: timeScale(cells[ti].unit) ?? 1, timeIsIndex: false, edgeLog: true };
 }
 
 /** The lowest confidence among mapped columns: below 0.7 the user should confirm the mapping. */

@@ -7,15 +7,18 @@ import { type EngineSetup, firingIntervals } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { median } from '../dsp/stats';
 import { windowFromSpeed } from '../steps/cranking-window';
+import { engineStartOnTeeth, startedTooSoon } from '../steps/cranking-end';
 import { type CrankMotion, meanRpm, motionFromSpeed, motionFromTeeth } from '../steps/crank-motion';
 import { runFit } from '../steps/run-fit';
-import { eventCountWarning, resampleByAngle } from '../steps/event-count';
+import { eventCountWarning, MIN_SPEED_ORDER_SHARE, resampleByAngle } from '../steps/event-count';
 import { findSyncPulses } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../steps/warnings';
 import { guessSensorKind, type SensorKind, toothTimesFromWaveform } from '../teeth/from-waveform';
-import { dropGlitches, learnWheel, wheelAngles } from '../teeth/learn-wheel';
-import { describeWheel, type ToothWheel, wheelNotation } from '../teeth/wheel';
-import type { CylinderMarks, MarkSource } from '../import/edge-log';
+import { dropGlitches, learnWheel, type WheelAngles, wheelAngles } from '../teeth/learn-wheel';
+import { cycleMarksOf, findCycleMarks } from '../teeth/cycle-marks';
+import { describeWheel, teethOf, type ToothWheel, wheelNotation } from '../teeth/wheel';
+import type { CylinderMarks } from '../import/edge-log';
+import { DEFAULT_MARK_OFFSET_DEG, MARK_WORDS } from './mark-words';
 import { compressionEvidence, MIN_COMPRESSION_SWING } from '../steps/compression-evidence';
 import type { IdentitySource, WheelInfo } from '../types';
 import type { CrankingWindow } from '../steps/cranking-window';
@@ -36,17 +39,24 @@ export interface CrankInput {
 /** A wheel with fewer positions than this per firing interval cannot separate cylinders by crank speed (the compression torque's shape needs about six samples an event; an 8-tooth wheel on an inline 4 gives four). */
 const MIN_POSITIONS_PER_EVENT = 6;
 
-export function runCrankSpeedMethod(
-  input: CrankInput,
-  setup: EngineSetup,
-  rotation: number,
-  windowOverride?: CrankingWindow,
-): MethodOutcome {
-  const warnings: QualityWarning[] = [];
-  const fail = (code: Parameters<typeof warning>[0], message: string): MethodOutcome => ({
-    ok: false,
-    warnings: [...warnings, warning(code, message)],
-  });
+/** Crank teeth as read from a capture: the clean edge times, and the wheel with every edge's angle where one was found. */
+export interface CrankTeeth {
+  /** Edge times with glitches dropped, s. */
+  teeth: Float64Array;
+  /** Samples per second of a sampled waveform (0 for edge times). */
+  sampleRate: number;
+  /** The wheel, its angles and what was repaired, when its reference was found at least twice. */
+  found?: { wheel: ToothWheel; angles: WheelAngles; info: WheelInfo };
+  /** Why no wheel was found, as the method's failure. */
+  problem?: QualityWarning;
+}
+
+/**
+ * Tooth edges (given, or found in a sampled waveform) with glitches dropped, and the wheel: the one set, or the
+ * one learned from its gaps. A gapped pattern that a cycle mark shows to repeat several times a revolution (the
+ * same gap every 120°, say) becomes the whole wheel, its angles scaled to match.
+ */
+export function readCrankTeeth(input: CrankInput, setup: EngineSetup): CrankTeeth | null {
   let times = input.toothTimes;
   let sampleRate = 0;
   if (!times && input.time && input.crank) {
@@ -54,29 +64,72 @@ export function runCrankSpeedMethod(
     times = toothTimesFromWaveform(input.time, input.crank, kind);
     sampleRate = (input.time.length - 1) / (input.time[input.time.length - 1] - input.time[0]);
   }
-  if (!times || times.length < 20) {
-    return fail('NO_CRANKING', 'No crank teeth were found: the crank did not turn, or the crank sensor channel is not connected. Check the probe and record while cranking.');
-  }
+  if (!times || times.length < 20) return null;
   const clean = dropGlitches(times);
   const learned = !input.teeth;
-  const wheel = input.teeth ?? learnWheel(clean.times);
-  if (!wheel) {
-    return fail('NO_TOOTH_GAP', 'No gap or extra tooth repeats in the crank signal, so crank angle is unknown; set the wheel (for example 60-2, or 36:15/2,14/1,3/1 for several gaps) or check the sensor signal.');
+  const unit = input.teeth ?? learnWheel(clean.times);
+  const out: CrankTeeth = { teeth: clean.times, sampleRate };
+  if (!unit) {
+    out.problem = warning('NO_TOOTH_GAP', 'No gap or extra tooth repeats in the crank signal, so crank angle is unknown; set the wheel (for example 60-2, or 36:15/2,14/1,3/1 for several gaps) or check the sensor signal.');
+    return out;
   }
-  const angles = wheelAngles(clean.times, wheel);
-  if (!angles || angles.revolutions < 2) {
-    return fail('NO_TOOTH_GAP', `The ${describeWheel(wheel)} wheel was not found at least twice in a row; check the wheel setting and record longer.`);
+  const unitAngles = wheelAngles(clean.times, unit);
+  if (!unitAngles || unitAngles.revolutions < 2) {
+    out.problem = warning('NO_TOOTH_GAP', `The ${describeWheel(unit)} wheel was not found at least twice in a row; check the wheel setting and record longer.`);
+    return out;
   }
+  // A learned pattern that repeats r times a revolution: a cycle mark counts 2·r patterns' teeth a cycle.
+  const repeats = learned ? repeatsPerRevolution(input.marks, clean.times, teethOf(unit)) : 1;
+  const wheel = repeats > 1 ? repeatWheel(unit, repeats) : unit;
+  const angles = repeats > 1 ? { ...unitAngles, wheel, angleDeg: unitAngles.angleDeg.map((a) => a / repeats) } : unitAngles;
   const iv = firingIntervals(setup);
   const pitch = 360 / wheel.positions;
-  const wheelInfo: WheelInfo = {
+  const info: WheelInfo = {
     notation: wheelNotation(wheel),
-    description: describeWheel(wheel),
+    description: describeWheel(wheel) + (repeats > 1 ? ` (the same pattern ${repeats} times a revolution, placed by the cycle mark)` : ''),
     learned,
     glitchesDropped: clean.dropped + angles.dropped,
     teethInserted: angles.inserted,
     tooCoarse: Math.min(...iv) / pitch < MIN_POSITIONS_PER_EVENT,
   };
+  out.found = { wheel, angles, info };
+  return out;
+}
+
+/** How many times a learned tooth pattern repeats a revolution, from a cycle mark's teeth per cycle (1 without one). */
+function repeatsPerRevolution(marks: CylinderMarks[] | undefined, teeth: Float64Array, unitTeeth: number): number {
+  const cycle = findCycleMarks(marks, teeth);
+  if (!cycle) return 1;
+  const r = cycle.teethPerCycle / (2 * unitTeeth);
+  const whole = Math.round(r);
+  // A coarse pattern's "gap" may be compression stretching a tooth period: only a fine pattern is repeated.
+  return unitTeeth >= 8 && whole >= 2 && whole <= 6 && Math.abs(r - whole) < 0.05 ? whole : 1;
+}
+
+/** The pattern written out `r` times: the whole wheel. */
+function repeatWheel(unit: ToothWheel, r: number): ToothWheel {
+  return { positions: unit.positions * r, gapsAfter: Array.from({ length: r }, () => unit.gapsAfter).flat(), extraTooth: unit.extraTooth };
+}
+
+export function runCrankSpeedMethod(
+  input: CrankInput,
+  setup: EngineSetup,
+  rotation: number,
+  windowOverride?: CrankingWindow,
+  read: CrankTeeth | null = readCrankTeeth(input, setup),
+): MethodOutcome {
+  const warnings: QualityWarning[] = [];
+  const fail = (code: Parameters<typeof warning>[0], message: string): MethodOutcome => ({
+    ok: false,
+    warnings: [...warnings, warning(code, message)],
+  });
+  if (!read) {
+    return fail('NO_CRANKING', 'No crank teeth were found: the crank did not turn, or the crank sensor channel is not connected. Check the probe and record while cranking.');
+  }
+  if (!read.found) return { ok: false, warnings: [read.problem!] };
+  const { wheel, angles, info: wheelInfo } = read.found;
+  const sampleRate = read.sampleRate;
+  const iv = firingIntervals(setup);
   const repaired = wheelInfo.glitchesDropped + wheelInfo.teethInserted;
   if (repaired > 0 || angles.unmatched > 0) {
     const parts = [
@@ -91,8 +144,11 @@ export function runCrankSpeedMethod(
   }
   // Speed per tooth interval, for the window and the sample-rate check.
   const m0 = motionFromTeeth(angles.times, angles.angleDeg, -Infinity, Infinity);
-  const window = windowOverride ?? windowFromSpeed(m0.t, m0.s);
-  if (!window) return fail('NO_CRANKING', 'The crank never turned steadily; record 5–10 s of cranking.');
+  // An engine that started: only the cranking before it.
+  const start = engineStartOnTeeth(angles, iv, 4.5 * (360 / wheel.positions));
+  const cranking = start ? m0.t.findIndex((t) => t >= start.timeS) : -1;
+  const window = windowOverride ?? (cranking >= 0 ? windowFromSpeed(m0.t.subarray(0, cranking), m0.s.subarray(0, cranking)) : windowFromSpeed(m0.t, m0.s));
+  if (!window) return start ? fail('ENGINE_STARTED', startedTooSoon(start)) : fail('NO_CRANKING', 'The crank never turned steadily; record 5–10 s of cranking.');
   if (sampleRate > 0) {
     const fastest = Math.max(...sampleSpeeds(m0.s));
     const periodS = (2 * Math.PI) / wheel.positions / fastest;
@@ -116,7 +172,9 @@ export function runCrankSpeedMethod(
       warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
     }
   } else if (input.marks?.length) {
-    const mark = firstCycleMark(input.marks, angles.times, angles.angleDeg, window);
+    // A cam with several windows a cycle is first reduced to its once-a-cycle edge.
+    const once = input.marks.map((m) => cycleMarksOf(m, read.teeth, 2 * teethOf(wheel) - 1)?.marks ?? m);
+    const mark = firstCycleMark(once, angles.times, angles.angleDeg, window);
     if (mark) {
       const offset = input.markOffsetDeg ?? DEFAULT_MARK_OFFSET_DEG[mark.marks.source];
       shiftAngles(motion, mark.firstAngle + offset);
@@ -149,12 +207,10 @@ export function runCrankSpeedMethod(
   const rpm = meanRpm(motion);
   return {
     ok: true,
-    run: { motion, fit, window, rpm, identity, identityNote, warnings, wheel: wheelInfo, speedSwing: Math.round(evidence.swing * 100) / 100, excluded: evidence.fired },
+    run: { motion, fit, window, rpm, identity, identityNote, warnings, wheel: wheelInfo, speedSwing: Math.round(evidence.swing * 100) / 100, excluded: evidence.fired, startedAtS: start?.timeS },
   };
 }
 
-const DEFAULT_MARK_OFFSET_DEG: Record<MarkSource, number> = { cam: 0, injector: 360, coil: 0 };
-const MARK_WORDS: Record<MarkSource, string> = { cam: 'a cam channel', injector: 'the cylinder 1 injector output', coil: 'the cylinder 1 coil output' };
 
 function shiftAngles(motion: CrankMotion, theta0: number): void {
   for (let r = 0; r < motion.thetaDeg.length; r++) motion.thetaDeg[r] -= theta0;
@@ -222,9 +278,9 @@ export function runSpeedChannelMethod(
 }
 
 /** Crank angle is known from the teeth or the speed, so the acceleration's repeat rate checks the cylinder count. */
-function countCheck(motion: CrankMotion, setup: EngineSetup, where: string) {
-  const grid = resampleByAngle(motion.thetaDeg, motion.y);
-  return grid && eventCountWarning(grid.x, grid.samplesPerCycle, setup.cylinders, where);
+export function countCheck(motion: CrankMotion, setup: EngineSetup, where: string) {
+  const grid = resampleByAngle(motion.thetaDeg, motion.s);
+  return grid && eventCountWarning(grid.x, grid.samplesPerCycle, setup.cylinders, where, MIN_SPEED_ORDER_SHARE);
 }
 
 function sampleSpeeds(s: Float64Array): Float64Array {

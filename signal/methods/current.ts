@@ -34,6 +34,8 @@ export interface MethodRun {
   excluded?: Set<string>;
   /** Figures made by the method itself (an electrical channel read along the crank's events). */
   figures?: Summary;
+  /** When the engine started (the window ends before it), s. */
+  startedAtS?: number;
   /** Multiplies the raw figure into its unit (battery volts from equivalent amps). @default 1 */
   rawScale?: number;
 }

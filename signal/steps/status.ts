@@ -67,6 +67,21 @@ export function holdAfterLow(cylinders: CylinderResult[], setup: EngineSetup, lo
   }
 }
 
+/**
+ * Event duration cannot tell a strong cylinder from one entered slowly: after a weak cylinder the crank comes into
+ * the next event slower and lingers there (measured on the simulator: a whole event 9 % longer after a leaking
+ * cylinder). A cylinder it reads above the upper limit is `uncertain`, with a sentence.
+ */
+export function holdHigh(cylinders: CylinderResult[], warnings: QualityWarning[]): void {
+  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'HIGH_HELD') warnings.splice(i, 1);
+  const held = cylinders.filter((c) => c.status === 'high');
+  for (const c of held) c.status = 'uncertain';
+  if (held.length) {
+    const list = held.map((c) => c.cylinder).join(', ');
+    warnings.push(warning('HIGH_HELD', `Cylinder${held.length > 1 ? 's' : ''} ${list} took longer than the others; timing events alone cannot tell high compression from a slow entry after a weak cylinder. Confirm with a gauge test.`));
+  }
+}
+
 /** How far below the low limit a cylinder right after a low one may read and still be the starter's doing. */
 const AFTER_LOW_MARGIN = 20;
 

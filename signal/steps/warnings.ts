@@ -27,15 +27,21 @@ export type WarningCode =
   | 'TEETH_REPAIRED'
   | 'MARK_ORDER'
   | 'AFTER_LOW'
-  | 'CLOSE_CALL';
+  | 'CLOSE_CALL'
+  | 'ENGINE_STARTED'
+  | 'COARSE_WHEEL'
+  | 'HIGH_HELD'
+  | 'UNSTEADY_START';
 
 export interface QualityWarning {
   code: WarningCode;
   message: string;
+  /** The cylinder count the capture looks like, when it contradicts the engine set up (no figures are given then). */
+  cylinders?: number;
 }
 
-export function warning(code: WarningCode, message: string): QualityWarning {
-  return { code, message };
+export function warning(code: WarningCode, message: string, cylinders?: number): QualityWarning {
+  return cylinders === undefined ? { code, message } : { code, message, cylinders };
 }
 
 /** Codes that mean the numbers cannot be trusted: every cylinder is then `uncertain`. */

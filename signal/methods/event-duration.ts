@@ -1,0 +1,413 @@
+/**
+ * The event-duration method, for any wheel: the time the crank takes to turn through each cylinder's segment
+ * (half a firing interval either side of its compression TDC) is longer for a stronger cylinder, which slows
+ * the crank more. With the speed trend divided out (each duration over its engine cycle's mean), a cylinder's
+ * figure is (duration − the duration with no compression) over the healthy cylinders' same, where the share of
+ * an event's duration that compression adds is measured from the teeth on a fine wheel (the fastest speed
+ * inside the segment stands for the speed with no compression) and taken from a range on a coarse one, whose
+ * ends widen the interval. It reads wheels of one tooth per compression event upward.
+ */
+import { type EngineSetup, firingIntervals } from '../engine/firing';
+import { median, quantile, stdDev } from '../dsp/stats';
+import type { CylinderMarks } from '../import/edge-log';
+import { findEngineStart, startedTooSoon } from '../steps/cranking-end';
+import type { CrankingWindow } from '../steps/cranking-window';
+import { motionFromTeeth } from '../steps/crank-motion';
+import { detrendedDurations, type DurationEvent, eventSegments, timeAtAngle } from '../steps/event-durations';
+import { symmetryStep, degreesOfPositions } from '../steps/identity';
+import { cylinderIntervals } from '../steps/interval';
+import { healthyReference, round1, type Summary } from '../steps/summarize';
+import { eventKey, type FitEvent, type TorqueFit } from '../steps/torque-fit';
+import { MIN_COMPRESSION_SWING } from '../steps/compression-evidence';
+import { type QualityWarning, warning } from '../steps/warnings';
+import { type ToothAngles, toothPatternPeriod, uniformAngles } from '../teeth/coarse-angles';
+import { findCycleMarks, toothIndexAt } from '../teeth/cycle-marks';
+import { wheelNotation } from '../teeth/wheel';
+import type { CylinderResult, EventMark, IdentitySource, WheelInfo } from '../types';
+import type { MethodOutcome } from './current';
+import { countCheck } from './crank-speed';
+import { countMismatch } from '../steps/event-count';
+import { DEFAULT_MARK_OFFSET_DEG, MARK_WORDS } from './mark-words';
+
+export interface DurationInput {
+  /** Crank tooth times, glitches dropped. */
+  teeth: Float64Array;
+  /** Angles from a wheel learned by its gaps, when there is one (every tooth of a matched revolution). */
+  angles?: ToothAngles;
+  /** Teeth an engine cycle on that wheel. */
+  cycleTeeth?: number;
+  wheel?: WheelInfo;
+  marks?: CylinderMarks[];
+  markOffsetDeg?: number;
+  lowLimitPercent: number;
+}
+
+/** Below this many teeth per compression event the wheel is coarse: segment edges sit on teeth. */
+const FINE_TEETH_PER_EVENT = 6;
+/**
+ * On a coarse wheel each segment is a whole event, and what a leaking cylinder changes most is the event after
+ * it: the compression it loses is energy the crank lacks, so it enters the next event slower and lingers there,
+ * while its own event hardly changes (measured on the simulator with leaks through the stroke, cam-synchronised,
+ * 2–6 teeth a revolution: the next event 14 % longer on an I4 and 27 % on a V6 or I6 for a cylinder at 46–48 %,
+ * its own under 1 % shorter). So each cylinder is read from the event that follows it, with this gain (the next
+ * event's lengthening per unit of lost compression: 0.25 on the I4, 0.51 on the six-cylinders) and the interval
+ * spanning its range.
+ */
+const COARSE_GAIN = { mid: 0.35, low: 0.2, high: 0.6 };
+/** On a fine wheel the measured share is good to this factor either way (the entry speed is not quite the no-compression speed). */
+const FINE_SHARE_FACTOR = 1.3;
+/** Smallest interval half-width, points: on a fine wheel, and on a coarse one. */
+const FLOOR = { fine: 4, coarse: 5 };
+
+export function runEventDurationMethod(input: DurationInput, setup: EngineSetup, rotation: number, windowOverride?: CrankingWindow): MethodOutcome {
+  const warnings: QualityWarning[] = [];
+  const fail = (code: Parameters<typeof warning>[0], message: string): MethodOutcome => ({ ok: false, warnings: [...warnings, warning(code, message)] });
+  const n = setup.cylinders;
+  const iv = firingIntervals(setup);
+  const teeth = input.teeth;
+  if (teeth.length < 2 * n) return fail('NO_CRANKING', 'Too few crank teeth were recorded to time the compression events; record 5–10 s of cranking.');
+
+  // Crank angle: the learned wheel's, or the teeth per cycle spread evenly (from a cam's pattern, or the
+  // tooth pattern's repeat and the cylinder count).
+  // Without a wheel, the teeth per cycle: counted against a cycle mark, or else the tooth pattern's repeat
+  // once an event (a leaking cylinder breaks that repeat, so the mark comes first).
+  const cycle = input.angles ? null : findCycleMarks(input.marks, teeth);
+  const patternTeeth = input.angles || cycle ? 0 : n * toothPatternPeriod(teeth);
+  let angles: ToothAngles;
+  let teethPerCycle: number;
+  let wheel: WheelInfo;
+  let pitchDeg: number;
+  if (input.angles && input.wheel) {
+    angles = input.angles;
+    wheel = input.wheel;
+    const steps: number[] = [];
+    for (let k = 1; k < angles.angleDeg.length; k++) steps.push(angles.angleDeg[k] - angles.angleDeg[k - 1]);
+    pitchDeg = quantile(steps, 0.1);
+    teethPerCycle = 720 / pitchDeg;
+  } else {
+    teethPerCycle = cycle ? Math.round(cycle.teethPerCycle) : patternTeeth;
+    const ref = cycle ? Math.ceil(toothIndexAt(teeth, cycle.marks.times[0])) : 0;
+    angles = uniformAngles(teeth, teethPerCycle, ref);
+    pitchDeg = 720 / teethPerCycle;
+    const perRev = teethPerCycle / 2;
+    const notation = Number.isInteger(perRev) ? wheelNotation({ positions: perRev, gapsAfter: new Array<number>(perRev).fill(0), extraTooth: false }) : `${teethPerCycle}/720`;
+    wheel = {
+      notation,
+      description: `${perRev} teeth a revolution, ${round1(teethPerCycle / n)} per compression event, no reference gap (${cycle ? `counted against "${cycle.marks.channel}"` : 'from the repeat of the tooth periods'})`,
+      learned: true,
+      glitchesDropped: 0,
+      teethInserted: 0,
+      tooCoarse: teethPerCycle / n < FINE_TEETH_PER_EVENT,
+    };
+  }
+  const perEvent = teethPerCycle / n;
+  const coarse = perEvent < FINE_TEETH_PER_EVENT;
+  // A left-out stretch (a revolution that did not match the wheel) breaks a segment.
+  const maxStep = coarse ? 1.5 * pitchDeg : 4.5 * pitchDeg;
+  const snap = coarse && Number.isInteger(Math.round(perEvent * 1000) / 1000) ? pitchDeg : 0;
+
+  // Cylinder 1's TDC on the angle scale: the phase inside the firing interval from the speed's shape, the
+  // cycle from a mark.
+  const step = symmetryStep(iv);
+  const period = degreesOfPositions(iv, step);
+  const phase = tdcPhase(angles, iv, step, period, pitchDeg, coarse, perEvent);
+  let identity: IdentitySource = 'assumed';
+  let identityNote: string | undefined;
+  let tdc1 = phase;
+  const markSource = input.angles ? findCycleMarks(input.marks, teeth, input.cycleTeeth) : cycle;
+  if (markSource?.symmetric) {
+    warnings.push(warning('SYNC_NOT_FOUND', `"${markSource.marks.channel}" repeats the same pattern every revolution, so it cannot tell which revolution holds cylinder 1's compression; cylinder numbers below are assumed.`));
+  } else if (markSource) {
+    const markAngle = Array.from(markSource.marks.times, (x) => angleAtTime(angles, x)).find(Number.isFinite) ?? NaN;
+    const offset = input.markOffsetDeg ?? DEFAULT_MARK_OFFSET_DEG[markSource.marks.source];
+    if (Number.isFinite(markAngle)) {
+      const want = markAngle + offset;
+      // With under two teeth an event the speed cannot place TDC: the mark does.
+      tdc1 = coarse && perEvent < 2 ? want : phase + Math.round((want - phase) / period) * period;
+      identity = markSource.marks.source;
+      identityNote = `Cylinder 1 from "${markSource.marks.channel}" (${MARK_WORDS[markSource.marks.source]}${markSource.edgesPerCycle > 1 ? `, its pattern of ${markSource.edgesPerCycle} edges a cycle` : ''}), taking cylinder 1's compression TDC ${offset}° after its mark; set the mark offset from the service information if it differs.`;
+    }
+  }
+
+  // Every event, then where the engine started and the cranking window before it.
+  const all = eventSegments(angles, tdc1, iv, maxStep, snap, !coarse);
+  const speeds = all.map((e) => (Number.isFinite(e.durationS) && e.durationS > 0 ? e.spanDeg / e.durationS / 6 : NaN));
+  const finite = all.map((e, j) => ({ t: e.timeS, v: speeds[j] })).filter((x) => Number.isFinite(x.v) && Number.isFinite(x.t));
+  const start = findEngineStart(
+    finite.map((x) => x.t),
+    finite.map((x) => x.v),
+  );
+  const window = windowOverride ?? steadyWindow(all, speeds, start?.timeS ?? Infinity, n);
+  if (!window) {
+    if (start) return fail('ENGINE_STARTED', startedTooSoon(start));
+    return fail('NO_CRANKING', 'The crank never turned steadily; record 5–10 s of cranking.');
+  }
+  const complete = (e: DurationEvent) => Number.isFinite(e.durationS) && e.startS >= window.startS - 1e-9 && e.endS <= window.endS + 1e-9;
+  const events = all.filter((e) => e.timeS >= window.startS && e.timeS <= window.endS);
+  if (!events.some(complete)) return fail('TOO_FEW_CYCLES', 'The capture holds too little steady cranking to time its compression events; crank for 5–10 s.');
+
+  // Positions: from the mark, or the first complete event as cylinder 1 stepped by the user's rotation.
+  let shift = 0;
+  if (identity === 'assumed') {
+    const first = events.find(complete)!;
+    shift = first.position - (first.position % step) - rotation * step;
+  }
+  const positionOf = (e: DurationEvent) => (((e.position - shift) % n) + n) % n;
+
+  // Durations over their cycle's mean, per cylinder; on a fine wheel each over the time the segment would take at
+  // its entry speed (so a slow entry, after a weak cylinder, does not read as compression).
+  const own = coarse
+    ? detrendedDurations(events.map((e) => (complete(e) ? e.durationS : NaN)), n)
+    : events.map((e) => (complete(e) && e.entryDegPerS > 0 ? (e.durationS * e.entryDegPerS) / e.spanDeg : NaN));
+  // On a coarse wheel a cylinder is read from the event after it (a longer one: a weaker cylinder).
+  const detrended = coarse ? own.map((_, j) => own[j + 1] ?? NaN) : own;
+  const sign = coarse ? -1 : 1;
+  // The compression signature over whole events (the speed falls into TDC and rises after it).
+  const swing = coarse ? NaN : segmentSwing(angles, eventSegments(angles, tdc1, iv, maxStep).filter((e) => complete(e) && e.timeS >= window.startS && e.timeS <= window.endS));
+  if (Number.isFinite(swing) && swing < MIN_COMPRESSION_SWING) {
+    warnings.push(warning('NO_COMPRESSION', `No compression signature: the crank speed varies only ${((swing - 1) * 100).toFixed(0)} % within each event (an engine with compression swings 2× or more). Spark plugs out, a decompression device or the wrong channel give this; refit the plugs and record again.`));
+  }
+
+  const cylOf = (e: DurationEvent) => setup.firingOrder[positionOf(e)];
+  const rByCyl: number[][] = Array.from({ length: n }, () => []);
+  events.forEach((e, j) => {
+    if (Number.isFinite(detrended[j])) rByCyl[cylOf(e) - 1].push(detrended[j]);
+  });
+  const rMeans = rByCyl.map((r) => (r.length ? r.reduce((a, b) => a + b, 0) / r.length : NaN));
+  const rRef = coarse ? median(rMeans) : healthyReference(rMeans, 100 - (100 - input.lowLimitPercent) * 0.25);
+  // On a fine wheel a segment with no compression would take its entry-speed time (ratio 1): the healthy
+  // cylinders' excess over 1 is the share compression adds.
+  const fineMid = Math.min(0.6, Math.max(0.05, (rRef - 1) / rRef));
+  const share = coarse ? COARSE_GAIN : { mid: fineMid, low: fineMid / FINE_SHARE_FACTOR, high: Math.min(0.8, fineMid * FINE_SHARE_FACTOR) };
+  const toPercent = (r: number) => 100 * (1 + (sign * (r / rRef - 1)) / share.mid);
+  // Malformed events: far from their cylinder's others.
+  const rejected = new Set<number>();
+  const pByCyl: number[][] = Array.from({ length: n }, () => []);
+  const rawByCyl: number[][] = Array.from({ length: n }, () => []);
+  for (let c = 0; c < n; c++) {
+    const p = rByCyl[c].map(toPercent);
+    const mid = median(p);
+    const spread = 1.4826 * median(p.map((x) => Math.abs(x - mid)));
+    rByCyl[c] = rByCyl[c].filter((_, k) => Math.abs(p[k] - mid) <= Math.max(20, 5 * spread));
+  }
+  events.forEach((e, j) => {
+    if (!Number.isFinite(detrended[j])) return;
+    const c = cylOf(e) - 1;
+    const p = toPercent(detrended[j]);
+    if (!rByCyl[c].includes(detrended[j])) {
+      rejected.add(j);
+      return;
+    }
+    pByCyl[c].push(p);
+    rawByCyl[c].push(e.durationS * 1000);
+  });
+  const pMeans = pByCyl.map((p) => (p.length ? p.reduce((a, b) => a + b, 0) / p.length : NaN));
+  // The figures are already relative to the healthy cylinders' durations (rRef).
+  const pRef = 100;
+  const maxR = Math.max(...rMeans.filter(Number.isFinite));
+  const figures = pMeans.map((m) => (Number.isFinite(m) ? round1((100 * m) / pRef) : null));
+  const intervals = cylinderIntervals(pByCyl, figures, { lowLimitPercent: input.lowLimitPercent, floorPoints: coarse ? FLOOR.coarse : FLOOR.fine }).map((iv) =>
+    iv ? widenForShare(iv, share) : null,
+  );
+  const cylinders: CylinderResult[] = pMeans.map((m, c) => {
+    const perCycle = pByCyl[c].map((p) => round1((100 * p) / pRef));
+    const ms = rawByCyl[c].length ? rawByCyl[c].reduce((a, b) => a + b, 0) / rawByCyl[c].length : 0;
+    return {
+      cylinder: c + 1,
+      relativePercent: figures[c],
+      interval: intervals[c],
+      status: 'ok',
+      events: pByCyl[c].length,
+      rejected: events.filter((e, j) => rejected.has(j) && cylOf(e) === c + 1).length,
+      spreadPercent: round1(stdDev(perCycle)),
+      plainPercent: Number.isFinite(rMeans[c]) ? round1((100 * rMeans[c]) / maxR) : null,
+      raw: Math.round(ms * 100) / 100,
+      perCycle,
+    };
+  });
+  const valid = figures.filter((f): f is number => f !== null);
+  const marks: EventMark[] = events.map((e, j) => ({ timeS: e.timeS, cylinder: cylOf(e), used: Number.isFinite(detrended[j]) && !rejected.has(j) }));
+  const fitEvents: FitEvent[] = events.map((e, j) => ({ cylinder: cylOf(e), position: positionOf(e), tdcDeg: e.tdcDeg, complete: Number.isFinite(detrended[j]) }));
+  const summary: Summary = {
+    cylinders,
+    events: marks,
+    spreadPercent: valid.length ? round1(Math.max(...valid) - Math.min(...valid)) : 0,
+    rejectedKeys: new Set(fitEvents.filter((_, j) => rejected.has(j)).map(eventKey)),
+  };
+  if (rejected.size) warnings.push(warning('EVENTS_REJECTED', `${rejected.size} compression event(s) took far longer or shorter than their cylinder's others (a lost tooth or a dropout) and were left out.`));
+  const used = fitEvents.filter((e) => e.complete).length;
+  const fit: TorqueFit = {
+    phaseDeg: ((tdc1 % 720) + 720) % 720,
+    perCylinder: Float64Array.from(pMeans),
+    pressure: Float64Array.from(pMeans, (m) => m / 100),
+    leakPerS: new Float64Array(n),
+    perEvent: Float64Array.from(events, (_, j) => (Number.isFinite(detrended[j]) ? toPercent(detrended[j]) : NaN)),
+    events: fitEvents,
+    r2: events.length ? used / events.length : 0,
+  };
+  if (coarse) {
+    warnings.push(
+      warning(
+        'COARSE_WHEEL',
+        perEvent < 2
+          ? `With ${round1(perEvent)} crank tooth per compression event, each figure is the time one event takes; the capture cannot show whether there is compression at all, so the figures only compare the cylinders with each other.`
+          : `The wheel gives ${round1(perEvent)} teeth per compression event, too few for a speed curve: each figure is the time the crank takes through the cylinder's event, relative to the others.`,
+      ),
+    );
+  }
+  const motion = motionFromTeeth(angles.times, angles.angleDeg, window.startS, window.endS);
+  // The events per cycle against the cylinder count: the speed's repeat on a fine wheel, the tooth pattern's
+  // repeat against a cycle mark's teeth on a coarse one.
+  const mismatch = coarse ? coarseCountCheck(input.marks, teeth, n) : countCheck(motion, setup, 'crank speed');
+  if (mismatch) warnings.push(mismatch);
+  const rpm = meanRpmOf(events.filter(complete));
+  return {
+    ok: true,
+    run: { motion, fit, window, rpm, identity, identityNote, warnings, wheel, speedSwing: Number.isFinite(swing) ? Math.round(swing * 100) / 100 : undefined, figures: summary, startedAtS: start?.timeS },
+  };
+}
+
+/**
+ * The steady cranking before `endS`: the longest run of events whose cycle's speed stays within 0.8–1.25 times
+ * the median, without its first event (the starter still settling). An unsteady stretch (a noisy trigger, the starter
+ * engaging or letting go) ends a run.
+ */
+function steadyWindow(all: DurationEvent[], eventSpeeds: number[], endS: number, n: number): CrankingWindow | null {
+  // Each event's speed over the engine cycle around it, so one weak cylinder does not break a run.
+  const speeds = eventSpeeds.map((_, j) => {
+    const from = Math.max(0, j - Math.floor(n / 2));
+    const window = eventSpeeds.slice(from, from + n);
+    return window.length === n && window.every(Number.isFinite) ? n / window.reduce((a, v) => a + 1 / v, 0) : NaN;
+  });
+  const idx = all.map((_, j) => j).filter((j) => Number.isFinite(speeds[j]) && all[j].endS < endS);
+  if (idx.length < 3) return null;
+  const med = median(idx.map((j) => speeds[j]));
+  let best: [number, number] = [0, -1];
+  let from = -1;
+  let last = -1;
+  for (let j = 0; j <= all.length; j++) {
+    // An event that could not be timed (a left-out stretch) neither starts nor ends a run.
+    if (j < all.length && !Number.isFinite(speeds[j]) && !(all[j].startS >= endS)) continue;
+    const steady = j < all.length && all[j].endS < endS && speeds[j] >= 0.8 * med && speeds[j] <= 1.25 * med;
+    if (steady) {
+      if (from < 0) from = j;
+      last = j;
+    } else if (from >= 0) {
+      if (last - from > best[1] - best[0]) best = [from, last];
+      from = -1;
+    }
+  }
+  const [a, b] = [best[0] + 1, best[1]];
+  if (b < a) return null;
+  const startS = all[a].startS;
+  const endAt = all[b].endS;
+  return endAt - startS > 0.2 ? { startS, endS: endAt } : null;
+}
+
+/**
+ * TDC's place inside the symmetry period: on a fine wheel the angle where the speed, folded over the period and
+ * divided by its event's mean, is lowest at every TDC of the period; on a coarse wheel with two or more teeth an
+ * event, the middle of its slowest tooth; with one tooth an event, half an interval after a tooth (the segment
+ * is then that tooth's period).
+ */
+function tdcPhase(a: ToothAngles, iv: number[], step: number, period: number, pitchDeg: number, coarse: boolean, perEvent: number): number {
+  const first = a.angleDeg[0];
+  if (coarse && perEvent < 2) return first + iv[0] / 2;
+  const bin = coarse ? pitchDeg : Math.max(2, pitchDeg);
+  const bins = Math.max(1, Math.round(period / bin));
+  const sum = new Float64Array(bins);
+  const count = new Float64Array(bins);
+  for (let k = 0; k + 1 < a.times.length; k++) {
+    const span = a.angleDeg[k + 1] - a.angleDeg[k];
+    const dt = a.times[k + 1] - a.times[k];
+    if (!(span > 0) || !(dt > 0) || span > 4.5 * pitchDeg) continue;
+    const mid = (a.angleDeg[k] + a.angleDeg[k + 1]) / 2;
+    // The event's mean speed around this tooth: the period's angle over its time.
+    const t0 = timeAtAngle(a, mid - period / 2, 4.5 * pitchDeg);
+    const t1 = timeAtAngle(a, mid + period / 2, 4.5 * pitchDeg);
+    if (!(t1 > t0)) continue;
+    const rel = span / dt / (period / (t1 - t0));
+    const b = Math.floor(((((mid - first) % period) + period) % period) / (period / bins)) % bins;
+    sum[b] += rel;
+    count[b] += 1;
+  }
+  const cum: number[] = [0];
+  for (let p = 1; p < step; p++) cum.push(cum[p - 1] + iv[p - 1]);
+  let best = 0;
+  let bestScore = Infinity;
+  for (let b = 0; b < bins; b++) {
+    let score = 0;
+    for (const c of cum) {
+      const k = Math.floor(((b * (period / bins) + c) % period) / (period / bins)) % bins;
+      score += count[k] ? sum[k] / count[k] : 1;
+    }
+    if (score < bestScore) {
+      bestScore = score;
+      best = b;
+    }
+  }
+  return first + (best + 0.5) * (period / bins);
+}
+
+/** Median over events of the second-highest over the second-lowest tooth speed inside the segment. */
+function segmentSwing(a: ToothAngles, events: DurationEvent[]): number {
+  const swings: number[] = [];
+  for (const e of events) {
+    const s = toothSpeeds(a, e);
+    if (s.length < 5) continue;
+    s.sort((x, y) => x - y);
+    swings.push(s[s.length - 2] / s[1]);
+  }
+  return swings.length ? median(swings) : NaN;
+}
+
+/** Speeds, degrees per second, of the tooth periods inside a segment. */
+function toothSpeeds(a: ToothAngles, e: DurationEvent): number[] {
+  const out: number[] = [];
+  for (let k = 0; k + 1 < a.times.length; k++) {
+    if (a.times[k] < e.startS) continue;
+    if (a.times[k + 1] > e.endS) break;
+    const dt = a.times[k + 1] - a.times[k];
+    if (dt > 0) out.push((a.angleDeg[k + 1] - a.angleDeg[k]) / dt);
+  }
+  return out;
+}
+
+/** The interval stretched over the plausible range of the compression share (a larger share, a smaller deviation). */
+function widenForShare(iv: [number, number], share: { mid: number; low: number; high: number }): [number, number] {
+  const at = (x: number, s: number) => 100 + ((x - 100) * share.mid) / s;
+  const lo = Math.min(iv[0], at(iv[0], share.low), at(iv[0], share.high));
+  const hi = Math.max(iv[1], at(iv[1], share.low), at(iv[1], share.high));
+  return [round1(lo), round1(hi)];
+}
+
+function angleAtTime(a: ToothAngles, x: number): number {
+  const k = toothIndexAt(a.times, x);
+  if (!Number.isFinite(k)) return NaN;
+  const i = Math.min(a.angleDeg.length - 2, Math.floor(k));
+  return a.angleDeg[i] + (k - i) * (a.angleDeg[i + 1] - a.angleDeg[i]);
+}
+
+/**
+ * On a coarse wheel: a cycle mark that tells the revolutions apart counts the teeth a cycle, and the tooth
+ * pattern repeats once an event, so their ratio is the events per cycle.
+ */
+function coarseCountCheck(marks: CylinderMarks[] | undefined, teeth: Float64Array, n: number): QualityWarning | null {
+  const cycle = findCycleMarks(marks, teeth);
+  if (!cycle || cycle.symmetric) return null;
+  const events = cycle.teethPerCycle / toothPatternPeriod(teeth);
+  const whole = Math.round(events);
+  if (Math.abs(events - whole) > 0.1 || whole === n || whole < 2 || whole > 16) return null;
+  return countMismatch(`The crank teeth repeat ${whole} times per engine cycle counted against "${cycle.marks.channel}", so the capture holds ${whole} compression events per cycle, not ${n}`, whole);
+}
+
+/** Mean cranking speed over the events, rpm: their angles over their time. */
+function meanRpmOf(events: DurationEvent[]): number {
+  let deg = 0;
+  let s = 0;
+  for (const e of events) {
+    deg += e.spanDeg;
+    s += e.durationS;
+  }
+  return s > 0 ? deg / 6 / s : 0;
+}
