@@ -85,7 +85,12 @@ function classify(u: Float64Array, k: number): number {
 export function learnWheel(times: Float64Array): ToothWheel | null {
   const fine = learnWith(pitchUnits(times, false), times);
   if (fine && teethOf(fine) >= COARSE_TEETH) return fine;
-  return learnWith(pitchUnits(times, true)) ?? fine;
+  const coarse = learnWith(pitchUnits(times, true));
+  // Both readings find the same one-gap pattern of 8 or more teeth (the same gap every 120°, say): its
+  // neighbours are alike, so the fine reading, which votes the gap's own size, is the better one.
+  const sameGapped = (w: ToothWheel | null) => !!w && !w.extraTooth && teethOf(w) >= 8 && w.gapsAfter.filter((g) => g > 0).length === 1;
+  if (fine && coarse && sameGapped(fine) && sameGapped(coarse) && teethOf(fine) === teethOf(coarse)) return fine;
+  return coarse ?? fine;
 }
 
 function learnWith(u: Float64Array, times?: Float64Array): ToothWheel | null {
@@ -189,7 +194,8 @@ export function wheelAngles(rawTimes: Float64Array, wheel: ToothWheel): WheelAng
   let times = rawTimes;
   let dropped = 0;
   const teeth = teethOf(wheel);
-  const coarse = teeth < COARSE_TEETH;
+  // A one-gap pattern of 8 or more teeth has alike neighbours around its gap (learnWheel reads it so too).
+  const coarse = teeth < COARSE_TEETH && !(teeth >= 8 && !wheel.extraTooth && wheel.gapsAfter.filter((g) => g > 0).length === 1);
   const pitch = 360 / wheel.positions;
   const refs: number[] = [];
   if (wheel.extraTooth) {
