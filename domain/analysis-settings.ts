@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, METHOD_CHOICES, parseWheel } from '@/signal';
 import type { EngineSpec } from './engine';
 
-export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'ignore'] as const;
+export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'toothPeriod', 'ignore'] as const;
 
 export const analysisSettingsSchema = z
   .object({

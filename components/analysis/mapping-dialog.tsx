@@ -15,6 +15,7 @@ const ROLE_LABEL: Record<ChannelRole, string> = {
   battery: 'Battery voltage (V)',
   level: 'On/off channel (sorted out on reading)',
   toothTimes: 'Tooth edge times (s)',
+  toothPeriod: 'Tooth periods (one row a tooth)',
   ignore: 'Not used',
 };
 

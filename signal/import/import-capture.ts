@@ -6,7 +6,8 @@ import { CaptureError } from '../errors';
 import { type QualityWarning, warning } from '../steps/warnings';
 import type { CaptureColumns } from '../types';
 import { checkTime, checkValues, fillMissing } from './check-columns';
-import { parseNumberField, timeScale } from './header';
+import { parseHeaderCell, parseNumberField, timeScale } from './header';
+import { toothTimesFromPeriods } from './tooth-log';
 import { chooseEdgeChannels } from './edge-log';
 import { type ChannelMapping, type ChannelRole, mapChannels, mappingConfidence } from './map-channels';
 import { NumberParser } from './parse-numbers';
@@ -124,6 +125,10 @@ export class CaptureImporter {
     const channels: ChannelInfo[] = [];
     const edgeLog = this.mapping.edgeLog || roles.includes('level');
     const levels: { index: number; name: string; values: Float64Array }[] = [];
+    let periodColumn: { v: Float64Array; unit: string | null } | undefined;
+    // A tooth log's time column is kept raw until the periods are read with it.
+    const rawTime = roles.includes('toothPeriod') ? parsed.columns[roles.indexOf('time')] : undefined;
+    const rawTimeCopy = rawTime ? Float64Array.from(rawTime) : undefined;
     let overRange = 0;
     for (let c = 0; c < roles.length; c++) {
       const role = roles[c];
@@ -132,6 +137,10 @@ export class CaptureImporter {
       const v = parsed.columns[c];
       const over = role !== 'time' && role !== 'toothTimes' ? markOverRange(v) : 0;
       overRange += over;
+      if (role === 'toothPeriod') {
+        periodColumn = { v, unit: s.columns[c].unit ?? timeUnitInName(s.columns[c].name) };
+        continue;
+      }
       if (role === 'level' || (edgeLog && (role === 'crank' || role === 'sync'))) {
         levels.push({ index: c, name: s.columns[c].name, values: v });
         continue;
@@ -158,7 +167,7 @@ export class CaptureImporter {
         const missing = parsed.missingValues > 0 || over > 0 ? fillMissing(v) : 0;
         warnings.push(...checkValues(`${s.columns[c].name}`, v, role === 'current' || role === 'rpm', missing));
       }
-      columns[role as Exclude<ChannelRole, 'ignore' | 'level'>] = v;
+      columns[role as Exclude<ChannelRole, 'ignore' | 'level' | 'toothPeriod'>] = v;
     }
     if (s.unitsRow) notes.push('Units were read from the row under the column names.');
     if (!columns.time && !columns.toothTimes && roles.length > 0) {
@@ -190,7 +199,15 @@ export class CaptureImporter {
         for (const ch of channels) if (ch.role === 'level') ch.role = 'ignore';
       }
     }
-    if (roles.length === 1 && roles[0] !== 'toothTimes') {
+    if (periodColumn) {
+      const log = toothTimesFromPeriods(periodColumn.v, periodColumn.unit, rawTimeCopy, this.mapping.timeScale);
+      columns.toothTimes = log.toothTimes;
+      delete columns.time;
+      // The marker rows between buffers are expected: not missing values.
+      for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'MISSING_VALUES' || warnings[i].code === 'TIME_GAPS' || warnings[i].code === 'TIME_NOT_MONOTONIC') warnings.splice(i, 1);
+      notes.push(...log.notes);
+    }
+    if (roles.length === 1 && roles[0] !== 'toothTimes' && roles[0] !== 'toothPeriod') {
       throw new CaptureError('ONE_COLUMN', 'The file has a single column that is not a list of tooth times; export the time column together with the channels.', { column: 1 });
     }
     if (columns.toothTimes && roles.length === 1 && warnings.some((w) => w.code === 'TIME_NOT_MONOTONIC')) {
@@ -222,6 +239,12 @@ function markOverRange(v: Float64Array): number {
     }
   }
   return n;
+}
+
+/** A time unit written into a column's name (`toothPeriod_us`), or null. */
+function timeUnitInName(name: string): string | null {
+  const m = /[\s_.-](s|ms|us|µs|μs|ns)$/i.exec(name);
+  return m ? m[1] : parseHeaderCell(name).unit;
 }
 
 function dedupe(w: QualityWarning[]): QualityWarning[] {

@@ -4,7 +4,8 @@ import type { HeaderCell } from './header';
 import { timeScale } from './header';
 
 /** `battery` is battery voltage; `level` is a 0/1 or bit-mask column of an edge log, sorted out on import. */
-export type ChannelRole = 'time' | 'current' | 'crank' | 'sync' | 'rpm' | 'battery' | 'level' | 'toothTimes' | 'ignore';
+/** `toothPeriod` is a tooth logger's period per tooth (one row a tooth). */
+export type ChannelRole = 'time' | 'current' | 'crank' | 'sync' | 'rpm' | 'battery' | 'level' | 'toothTimes' | 'toothPeriod' | 'ignore';
 
 export interface ChannelMapping {
   /** Role per column, in column order. */
@@ -40,8 +41,12 @@ export function mapChannels(cells: HeaderCell[], values: Float64Array[]): Channe
     if (role !== 'ignore') taken.add(role);
   };
 
+  const periods = periodLogMapping(cells, values);
+  if (periods) return periods;
   if (n === 1) {
     const mono = isIncreasing(values[0]);
+    // One positive column that does not rise: a tooth logger's periods.
+    if (!mono && isPositive(values[0])) return { roles: ['toothPeriod'], confidence: [0.75], timeScale: 1, timeIsIndex: false, edgeLog: false };
     assign(0, 'toothTimes', mono ? (/tooth|edge|time/i.test(cells[0].name) ? 0.95 : 0.75) : 0.2);
     return { roles, confidence, timeScale: timeScale(cells[0].unit) ?? 1, timeIsIndex: false, edgeLog: false };
   }
@@ -104,6 +109,32 @@ function edgeLogMapping(cells: HeaderCell[], values: Float64Array[]): ChannelMap
     i === ti ? 'time' : ruleFor('battery').name.test(c.name) ? 'battery' : isLevelLike(values[i]) ? 'level' : 'ignore',
   );
   return { roles, confidence: roles.map(() => (named >= 0 ? 0.9 : 0.8)), timeScale: timeScale(cells[ti].unit) ?? 1, timeIsIndex: false, edgeLog: true };
+}
+
+/**
+ * A tooth logger's file: one row a tooth holding its period (a column named for it), with or without a time
+ * column. The period's unit comes from its name or, failing that, on import from its size.
+ */
+function periodLogMapping(cells: HeaderCell[], values: Float64Array[]): ChannelMapping | null {
+  const pi = cells.findIndex((c, i) => PERIOD_NAME.test(c.name) && isPositive(values[i]));
+  if (pi < 0) return null;
+  const ti = cells.findIndex((c, i) => i !== pi && ruleFor('time').name.test(c.name));
+  const roles: ChannelRole[] = cells.map((_, i) => (i === pi ? 'toothPeriod' : i === ti ? 'time' : 'ignore'));
+  return { roles, confidence: roles.map(() => 0.85), timeScale: ti >= 0 ? (timeScale(cells[ti].unit) ?? 1) : 1, timeIsIndex: false, edgeLog: false };
+}
+
+const PERIOD_NAME = /period|tooth.?(time|dt|delta)|^dt\b|^delta/i;
+
+function isPositive(v: Float64Array | undefined): boolean {
+  if (!v || v.length < 3) return false;
+  let finite = 0;
+  for (let i = 0; i < v.length; i++) {
+    if (v[i] === v[i]) {
+      if (!(v[i] > 0)) return false;
+      finite++;
+    }
+  }
+  return finite >= 3;
 }
 
 /** The lowest confidence among mapped columns: below 0.7 the user should confirm the mapping. */

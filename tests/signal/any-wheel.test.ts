@@ -167,3 +167,39 @@ describe("every logger's layout", () => {
     expect(r.crankingRpm).toBeLessThan(400);
   });
 });
+
+describe('tooth-period logs', () => {
+  const sim = simulateCranking({ engine: I4, leakPerS: [0, 0, 2, 0], channels: [], noise: 1, seed: 8, teeth: { count: 60, missing: 2 } });
+  const periodsUs = Array.from(sim.toothTimes.subarray(1), (t, k) => Math.round((t - sim.toothTimes[k]) * 1e6));
+  /** Firmware lines, a header, and a marker row between buffers (a word and a number). */
+  const log = (withTime: boolean) => {
+    const rows = ['# tooth logger, firmware 4.2', withTime ? 'toothPeriod,time_us' : 'toothPeriod'];
+    let t = Math.round(sim.toothTimes[0] * 1e6);
+    periodsUs.forEach((p, k) => {
+      t += p;
+      if (k > 0 && k % 400 === 0) rows.push(`MARK ${k / 400}`);
+      rows.push(withTime ? `${p},${t}` : `${p}`);
+    });
+    return new TextEncoder().encode(rows.join('\n') + '\n');
+  };
+  it.each([
+    ['with an absolute time column in µs', true],
+    ['periods alone, buffers joined', false],
+  ])('%s: read as crank teeth, the leak found on crank speed', (_name, withTime) => {
+    const cap = importCapture(log(withTime as boolean));
+    expect(cap.confidence).toBeGreaterThanOrEqual(0.7);
+    expect(cap.notes.join(' ')).toMatch(/buffers of the tooth log were joined/);
+    const r = analyzeCapture(cap.columns, { engine: I4 }, cap.warnings);
+    expect(r.wheel?.notation).toBe('60-2');
+    if (withTime) expect(r.cylinders.filter((c) => c.status === 'low')).toHaveLength(1);
+    // Without times the buffers' place in the engine cycle is unknown: one buffer is read, never a wrong flag.
+    else expect(r.verdict === 'low' || r.verdict === 'uncertain').toBe(true);
+    expect(r.cylinders.filter((c) => c.status === 'low').length).toBeLessThanOrEqual(1);
+  });
+  it('a log whose periods are all equal (a signal generator) gives no figure to trust', () => {
+    const rows = ['toothPeriod_us', ...new Array<string>(2000).fill('5000')];
+    const cap = importCapture(new TextEncoder().encode(rows.join('\n') + '\n'));
+    const r = analyzeCapture(cap.columns, { engine: I4 }, cap.warnings);
+    expect(r.cylinders.some((c) => c.status === 'ok' || c.status === 'low')).toBe(false);
+  });
+});
