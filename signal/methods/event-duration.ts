@@ -44,6 +44,9 @@ export interface DurationInput {
 
 /** Below this many teeth per compression event the wheel is coarse: segment edges sit on teeth. */
 const FINE_TEETH_PER_EVENT = 6;
+/** Cranking speeds the method reads, rpm (cranking is 100–300 rpm, common practice; slow diesels and fast small engines either side). */
+const MIN_EVENT_RPM = 60;
+const MAX_EVENT_RPM = 450;
 /**
  * On a coarse wheel each segment is a whole event, and what a leaking cylinder changes most is the event after
  * it: the compression it loses is energy the crank lacks, so it enters the next event slower and lingers there,
@@ -256,12 +259,16 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
       ),
     );
   }
+  const rpm = meanRpmOf(events.filter(complete));
+  // Teeth far outside cranking speed are not a cranking engine read this way (a stuck sensor, noise, a wrong wheel).
+  if (!(rpm >= MIN_EVENT_RPM && rpm <= MAX_EVENT_RPM)) {
+    return fail('NO_CRANKING', `Timed as compression events, the crank teeth come at ${Math.round(rpm)} rpm, outside cranking speed (${MIN_EVENT_RPM}–${MAX_EVENT_RPM} rpm); check the crank channel, the wheel and the cylinder count.`);
+  }
   const motion = motionFromTeeth(angles.times, angles.angleDeg, window.startS, window.endS);
   // The events per cycle against the cylinder count: the speed's repeat on a fine wheel, the tooth pattern's
   // repeat against a cycle mark's teeth on a coarse one.
   const mismatch = coarse ? coarseCountCheck(input.marks, teeth, n) : countCheck(motion, setup, 'crank speed');
   if (mismatch) warnings.push(mismatch);
-  const rpm = meanRpmOf(events.filter(complete));
   return {
     ok: true,
     run: { motion, fit, window, rpm, identity, identityNote, warnings, wheel, speedSwing: Number.isFinite(swing) ? Math.round(swing * 100) / 100 : undefined, figures: summary, startedAtS: start?.timeS },

@@ -67,9 +67,10 @@ test('the upload API refuses every malformed file with a sentence and stores not
     }
     expect(await captureCount(tech, jobId), c.name).toBe(kept);
   }
-  // Kept: three files whose columns cannot be told apart, two clipped currents with events, and the tooth log
-  // that decodes but shows no compression (stored, so the technician sees why it cannot be ranked).
-  expect(kept).toBeLessThanOrEqual(6);
+  // Kept: three files whose columns cannot be told apart, two clipped currents with events, the tooth log
+  // that decodes but shows no compression (stored, so the technician sees why it cannot be ranked), and two
+  // tooth files the event-duration method times as a coarse wheel (read `uncertain`, with the reasons).
+  expect(kept).toBeLessThanOrEqual(8);
 });
 
 test('a gzip bomb, a compressed body, a wrong content type and an oversized body are refused before storing', async () => {
