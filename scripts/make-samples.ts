@@ -4,6 +4,7 @@ import type { EngineSetup } from '../signal/engine/firing';
 import { type SimChannel, type SimOptions, simulateCranking } from '../signal/sim/simulate';
 import { type CsvStyle, edgeLogToCsv, simToCsv, toothTimesToCsv } from '../signal/sim/to-csv';
 import { parseWheel } from '../signal/teeth/wheel';
+import { headerlessEdgeLog, noisyStart, thenRuns, toothPeriodLog } from '../signal/sim/shapes';
 
 interface SampleSpec {
   file: string;
@@ -24,6 +25,8 @@ interface SampleSpec {
   identity?: string;
   method?: string;
   sensor?: 'vr';
+  /** A shape made from the simulation: the engine starts at `startsAtS`, a noisy first stretch, a period log. */
+  shape?: { startsAtS?: number; noisyUntilS?: number; headerless?: boolean; periodLog?: boolean };
 }
 
 const I4: EngineSetup = { cylinders: 4, firingOrder: [1, 3, 4, 2], layout: 'inline' };
@@ -33,6 +36,7 @@ const V6even: EngineSetup = { cylinders: 6, firingOrder: [1, 2, 3, 4, 5, 6], lay
 const I3: EngineSetup = { cylinders: 3, firingOrder: [1, 2, 3], layout: 'inline' };
 const V8: EngineSetup = { cylinders: 8, firingOrder: [1, 8, 4, 3, 6, 5, 7, 2], layout: 'v', numbering: 'along-crank' };
 const logger = ['Crankprint sample capture (simulated)', 'Probe: clamp on starter cable'];
+const even = (teeth: number) => ({ positions: teeth, gapsAfter: new Array<number>(teeth).fill(0), extraTooth: false });
 
 const specs: SampleSpec[] = [
   { file: 'i4-healthy-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'none', sim: { seed: 101, channels: ['current', 'sync'] }, style: { channels: ['current', 'sync'], preamble: logger }, expect: 'all ok' },
@@ -50,6 +54,12 @@ const specs: SampleSpec[] = [
   { file: 'i4-plugs-out-tooth-times.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 60-2 wheel', fault: 'spark plugs out', sim: { seed: 114, channels: [], plugsOut: true }, toothTimes: true, expect: 'uncertain, NO_COMPRESSION, no figures', codes: ['NO_COMPRESSION'], verdict: 'uncertain' },
   { file: 'i4-reversed-clamp-current-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 4 leaks; clamp on backwards', sim: { seed: 115, channels: ['current', 'sync'], leakPerS: [0, 0, 0, 3] }, style: { channels: ['current', 'sync'], invertCurrent: true }, expect: 'cylinder 4 low; CLAMP_REVERSED notice', codes: ['CLAMP_REVERSED'] },
   { file: 'i4-battery-sync.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'cylinder 1 leaks', sim: { seed: 116, channels: ['battery', 'sync'], leakPerS: [3, 0, 0, 0] }, style: { channels: ['battery', 'sync'] }, expect: 'cylinder 1 low by the battery-voltage method', method: 'battery' },
+  { file: 'v6-3-tooth-edge-log-cam.csv', engine: V6even, engineLabel: 'V6 60°, 1-2-3-4-5-6, 3 teeth a revolution', fault: 'cylinder 4 leaks', sim: { seed: 117, channels: [], leakPerS: [0, 0, 0, 2, 0, 0], wheel: even(3), camWindowDeg: [0, 30] }, edgeLog: true, expect: 'cylinder 4 low by event duration (one tooth an event); cylinder 1 from the cam', identity: 'cam', method: 'event-duration' },
+  { file: 'i4-4-tooth-edge-log-cam.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 4 teeth a revolution', fault: 'none', sim: { seed: 118, channels: [], wheel: even(4), camWindowDeg: [0, 30] }, edgeLog: true, expect: 'all ok by event duration', identity: 'cam', method: 'event-duration' },
+  { file: 'v6-repeated-gap-edge-log-cam.csv', engine: V6even, engineLabel: 'V6 60°, 1-2-3-4-5-6, wheel 36:10/2,10/2,10/2', fault: 'cylinder 3 leaks', sim: { seed: 119, channels: [], leakPerS: [0, 0, 2, 0, 0, 0], wheel: parseWheel('36:10/2,10/2,10/2')!, camWindowDeg: [0, 30] }, edgeLog: true, expect: 'cylinder 3 low; the same gap every 120° learned as one wheel, placed by the cam', identity: 'cam' },
+  { file: 'i4-starts-60-2-edge-log-cam.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2, 60-2 wheel', fault: 'cylinder 2 leaks; the engine starts at 4.5 s', sim: { seed: 120, channels: [], leakPerS: [0, 3, 0, 0], camWindowDeg: [0, 30], durationS: 7 }, edgeLog: true, shape: { startsAtS: 4.5 }, expect: 'cylinder 2 low from the cranking before the start; ENGINE_STARTED says when', codes: ['ENGINE_STARTED'], identity: 'cam' },
+  { file: 'i6-noisy-start-headerless.csv', engine: I6, engineLabel: 'Inline 6, 1-5-3-6-2-4, 36-2 wheel', fault: 'none; the trigger is noisy for the first 1.5 s', sim: { seed: 121, channels: [], teeth: { count: 36, missing: 2 }, durationS: 7 }, shape: { noisyUntilS: 1.5, headerless: true }, expect: 'all ok; the noisy start left out and said (UNSTEADY_START); read as an edge log without a header', codes: ['UNSTEADY_START'] },
+  { file: 'i6-tooth-period-log.csv', engine: I6, engineLabel: 'Inline 6, 1-5-3-6-2-4, 36-2 wheel', fault: 'cylinder 6 leaks', sim: { seed: 122, channels: [], leakPerS: [0, 0, 0, 0, 0, 2.5], teeth: { count: 36, missing: 2 }, durationS: 9 }, shape: { periodLog: true }, expect: 'one cylinder low; tooth periods in µs, buffers joined at their marker rows', teeth: '36-2' },
   { file: 'no-cranking.csv', engine: I4, engineLabel: 'Inline 4, 1-3-4-2', fault: 'the starter never engaged', sim: { seed: 110, channels: ['current'], starterOnS: 99, durationS: 4 }, style: { channels: ['current'] }, expect: 'uncertain, NO_CRANKING; the upload refuses it (no compression events)' },
 ];
 
@@ -58,14 +68,30 @@ const manifest: unknown[] = [];
 const rows: string[] = [];
 for (const s of specs) {
   const sim = simulateCranking({ engine: s.engine, ...s.sim, sampleRateHz: s.sim.sampleRateHz ?? 5000 });
-  const text = s.edgeLog
-    ? edgeLogToCsv(sim, ['Crankprint sample (simulated logic-analyser export)'])
-    : s.toothTimes
-      ? toothTimesToCsv(sim)
-      : simToCsv(sim, s.style);
+  if (s.shape?.startsAtS) sim.toothTimes = thenRuns(sim.toothTimes, s.shape.startsAtS, 4, 2);
+  if (s.shape?.noisyUntilS) sim.toothTimes = noisyStart(sim.toothTimes, s.shape.noisyUntilS, s.sim.seed ?? 1);
+  const text = s.shape?.periodLog
+    ? toothPeriodLog(sim)
+    : s.shape?.headerless
+      ? headerlessEdgeLog(sim.toothTimes)
+      : s.edgeLog
+        ? edgeLogToCsv(sim, ['Crankprint sample (simulated logic-analyser export)'])
+        : s.toothTimes
+          ? toothTimesToCsv(sim)
+          : simToCsv(sim, s.style);
   writeFileSync(`samples/${s.file}`, text);
   const truth = Array.from(sim.truth.relativePercent, (v) => Math.round(Math.min(100, v) * 10) / 10);
-  const channels = s.edgeLog ? (s.sim.camWindowDeg ? ['crank edges', 'cam edges'] : ['crank edges']) : s.toothTimes ? ['tooth times'] : (s.style?.channels ?? ['current']) as (SimChannel | string)[];
+  const channels = s.shape?.periodLog
+    ? ['tooth periods']
+    : s.shape?.headerless
+      ? ['crank edges']
+      : s.edgeLog
+        ? s.sim.camWindowDeg
+          ? ['crank edges', 'cam edges']
+          : ['crank edges']
+        : s.toothTimes
+          ? ['tooth times']
+          : ((s.style?.channels ?? ['current']) as (SimChannel | string)[]);
   const truthShown = s.sim.starterOnS === 99 || s.sim.plugsOut ? null : truth;
   manifest.push({
     file: s.file,

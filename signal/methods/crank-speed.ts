@@ -67,7 +67,8 @@ export function readCrankTeeth(input: CrankInput, setup: EngineSetup): CrankTeet
   if (!times || times.length < 20) return null;
   const clean = dropGlitches(times);
   const learned = !input.teeth;
-  const unit = input.teeth ?? learnWheel(clean.times);
+  // A noisy first stretch (sync lost, bursts) can hide the pattern: learn it again on the later teeth.
+  const unit = input.teeth ?? learnWheel(clean.times) ?? learnWheel(clean.times.subarray(Math.floor(clean.times.length * 0.4)));
   const out: CrankTeeth = { teeth: clean.times, sampleRate };
   if (!unit) {
     out.problem = warning('NO_TOOTH_GAP', 'No gap or extra tooth repeats in the crank signal, so crank angle is unknown; set the wheel (for example 60-2, or 36:15/2,14/1,3/1 for several gaps) or check the sensor signal.');

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeCapture, importCapture } from '@/signal';
 import type { EngineSetup } from '@/signal/engine/firing';
 import { simulateCranking } from '@/signal/sim/simulate';
+import { thenRuns } from '@/signal/sim/shapes';
 import { findEngineStart } from '@/signal/steps/cranking-end';
 import { cycleMarksOf } from '@/signal/teeth/cycle-marks';
 import { parseHeaderCell, timeScale } from '@/signal/import/header';
@@ -73,23 +74,10 @@ describe('a gap that repeats every 120°', () => {
   });
 });
 
-/** Sim teeth, then the engine running: the same wheel turning `factor` times faster for `runS` seconds. */
-function thenStarts(teeth: Float64Array, fromS: number, factor: number, runS: number): Float64Array {
-  const kept = Array.from(teeth).filter((t) => t < fromS);
-  const pitches: number[] = [];
-  for (let k = kept.length - 60; k + 1 < kept.length; k++) pitches.push(kept[k + 1] - kept[k]);
-  let t = kept[kept.length - 1];
-  for (let k = 0; t < fromS + runS; k++) {
-    t += pitches[k % pitches.length] / factor;
-    kept.push(t);
-  }
-  return Float64Array.from(kept);
-}
-
 describe('engines that start', () => {
   it('the cranking before the start is read, and the result says when it started and what was used', () => {
     const sim = simulateCranking({ engine: I4, leakPerS: [0, 0, 3, 0], channels: [], noise: 1, seed: 2, teeth: { count: 60, missing: 2 }, durationS: 8 });
-    const r = analyzeCapture({ toothTimes: thenStarts(sim.toothTimes, 4.5, 4, 2) }, { engine: I4 });
+    const r = analyzeCapture({ toothTimes: thenRuns(sim.toothTimes, 4.5, 4, 2) }, { engine: I4 });
     const started = r.warnings.find((w) => w.code === 'ENGINE_STARTED');
     expect(started?.message).toMatch(/^The engine started at 4\.[4-6] s; [\d.]+ s of cranking before it \(\d+ events? per cylinder\) were used\.$/);
     expect(r.window.endS).toBeLessThanOrEqual(4.6);
@@ -100,7 +88,7 @@ describe('engines that start', () => {
 
   it('an engine that starts in its first 0.3 s is never read as a finding', () => {
     const sim = simulateCranking({ engine: I4, channels: [], noise: 1, seed: 2, teeth: { count: 60, missing: 2 } });
-    const r = analyzeCapture({ toothTimes: thenStarts(sim.toothTimes, 0.75, 4, 4) }, { engine: I4 });
+    const r = analyzeCapture({ toothTimes: thenRuns(sim.toothTimes, 0.75, 4, 4) }, { engine: I4 });
     expect(r.verdict).toBe('uncertain');
     expect(r.cylinders.some((c) => c.status === 'ok' || c.status === 'low')).toBe(false);
   });
