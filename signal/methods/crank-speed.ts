@@ -147,7 +147,9 @@ export function runCrankSpeedMethod(
   const m0 = motionFromTeeth(angles.times, angles.angleDeg, -Infinity, Infinity);
   // An engine that started: only the cranking before it.
   const start = engineStartOnTeeth(angles, iv, 4.5 * (360 / wheel.positions));
-  const cranking = start ? m0.t.findIndex((t) => t >= start.timeS) : -1;
+  // The cranking ends two firing intervals before the first running event (the event across the change is neither).
+  const cutS = start ? start.timeS - (2 * Math.min(...iv) * 2 * Math.PI) / 360 / median(m0.s.subarray(0, Math.max(1, m0.t.findIndex((t) => t >= start.timeS)))) : Infinity;
+  const cranking = start ? m0.t.findIndex((t) => t >= cutS) : -1;
   const window = windowOverride ?? (cranking >= 0 ? windowFromSpeed(m0.t.subarray(0, cranking), m0.s.subarray(0, cranking)) : windowFromSpeed(m0.t, m0.s));
   if (!window) return start ? fail('ENGINE_STARTED', startedTooSoon(start)) : fail('NO_CRANKING', 'The crank never turned steadily; record 5–10 s of cranking.');
   if (sampleRate > 0) {

@@ -44,6 +44,11 @@ export interface DurationInput {
 
 /** Below this many teeth per compression event the wheel is coarse: segment edges sit on teeth. */
 const FINE_TEETH_PER_EVENT = 6;
+/**
+ * Below this firing interval (an eight-cylinder's 90°) a coarse wheel's events overlap: on the simulator a V8's
+ * leak lengthened events two and three after it, and read healthy cylinders low; its figures are withheld as thin.
+ */
+const MIN_COARSE_INTERVAL_DEG = 120;
 /** Cranking speeds the method reads, rpm (cranking is 100–300 rpm, common practice; slow diesels and fast small engines either side). */
 const MIN_EVENT_RPM = 60;
 const MAX_EVENT_RPM = 450;
@@ -213,6 +218,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   const intervals = cylinderIntervals(pByCyl, figures, { lowLimitPercent: input.lowLimitPercent, floorPoints: coarse ? FLOOR.coarse : FLOOR.fine }).map((iv) =>
     iv ? widenForShare(iv, share) : null,
   );
+  if (coarse) widenForNeighbours(intervals, figures, setup.firingOrder);
   const cylinders: CylinderResult[] = pMeans.map((m, c) => {
     const perCycle = pByCyl[c].map((p) => round1((100 * p) / pRef));
     const ms = rawByCyl[c].length ? rawByCyl[c].reduce((a, b) => a + b, 0) / rawByCyl[c].length : 0;
@@ -249,6 +255,9 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
     events: fitEvents,
     r2: events.length ? used / events.length : 0,
   };
+  if (coarse && Math.min(...iv) < MIN_COARSE_INTERVAL_DEG) {
+    warnings.push(warning('EVENTS_OVERLAP', `Compression events ${Math.min(...iv)}° apart overlap on a wheel this coarse: one cylinder's event cannot be told from the next. Record a crank sensor with more teeth, or the starter current.`));
+  }
   if (coarse) {
     warnings.push(
       warning(
@@ -379,6 +388,24 @@ function toothSpeeds(a: ToothAngles, e: DurationEvent): number[] {
     if (dt > 0) out.push((a.angleDeg[k + 1] - a.angleDeg[k]) / dt);
   }
   return out;
+}
+
+/**
+ * On a coarse wheel a weak cylinder moves its neighbours' events too (measured on the simulator: the cylinder
+ * before a leaking one reads about 16 points low, the one after 14 high, and two leaks in a row mask each other):
+ * each interval reaches as far either side as its firing-order neighbours read away from 100 %.
+ */
+function widenForNeighbours(intervals: ([number, number] | null)[], figures: (number | null)[], order: number[]): void {
+  const n = order.length;
+  for (let p = 0; p < n; p++) {
+    const c = order[p] - 1;
+    const iv = intervals[c];
+    const fig = figures[c];
+    if (!iv || fig === null) continue;
+    const away = [order[(p + n - 1) % n], order[(p + 1) % n]].map((k) => Math.abs((figures[k - 1] ?? 100) - 100));
+    const w = Math.max(...away);
+    intervals[c] = [round1(Math.min(iv[0], fig - w)), round1(Math.max(iv[1], fig + w))];
+  }
 }
 
 /** The interval stretched over the plausible range of the compression share (a larger share, a smaller deviation). */

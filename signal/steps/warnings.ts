@@ -31,7 +31,8 @@ export type WarningCode =
   | 'ENGINE_STARTED'
   | 'COARSE_WHEEL'
   | 'HIGH_HELD'
-  | 'UNSTEADY_START';
+  | 'UNSTEADY_START'
+  | 'EVENTS_OVERLAP';
 
 export interface QualityWarning {
   code: WarningCode;
@@ -57,4 +58,5 @@ export const THIN_EVIDENCE: ReadonlySet<WarningCode> = new Set<WarningCode>([
   'NO_USABLE_CHANNEL',
   'TIME_NOT_MONOTONIC',
   'NO_COMPRESSION',
+  'EVENTS_OVERLAP',
 ]);
