@@ -136,7 +136,7 @@ function main() {
       `Capture quality ${result.quality.grade}${result.quality.limitedBy !== 'none' ? `, limited by ${result.quality.limitedBy}` : ''}: ${result.quality.note}`,
       ...(result.crossCheck ? [`Cross-check (${result.crossCheck.method}): ${result.crossCheck.cylinders.map((c) => c.relativePercent ?? '—').join(' ')} — ${result.crossCheck.agree ? 'agrees' : 'disagrees'}`] : []),
       `Spread ${result.spreadPercent} points. ${result.pattern.hint}`,
-      ...result.warnings.map((w) => `  ! ${w.code}: ${w.message}`),
+      ...result.warnings.map((w) => `  ! ${w.code}: ${w.message}${w.cylinders !== undefined ? ` Try --cylinders ${w.cylinders} with that engine's firing order.` : ''}`),
     ];
     process.stdout.write(`${lines.join('\n')}\n`);
   } catch (e) {

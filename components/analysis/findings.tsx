@@ -9,7 +9,8 @@ const VERDICT: Record<string, string> = {
   uncertain: 'Not enough good evidence to rank the cylinders.',
 };
 
-export function Findings({ result }: { result: AnalysisResult }) {
+/** `onTryCylinders` re-reads the capture as an engine of that many cylinders (offered when the capture contradicts the setup). */
+export function Findings({ result, onTryCylinders }: { result: AnalysisResult; onTryCylinders?: (cylinders: number) => void }) {
   return (
     <div className="flex flex-col gap-3">
       <p className={`text-lg font-bold ${STATUS_TEXT[result.verdict]}`} data-testid="verdict">
@@ -48,6 +49,11 @@ export function Findings({ result }: { result: AnalysisResult }) {
               <li key={i} className="rounded-lg border-l-4 border-uncertain bg-raised p-2">
                 <span className="figures mr-2 text-sm text-muted">{w.code}</span>
                 {w.message}
+                {w.cylinders !== undefined && onTryCylinders && (
+                  <button type="button" className="ml-2 rounded-md border border-brand px-2 py-0.5 text-sm font-bold text-brand" onClick={() => onTryCylinders(w.cylinders!)}>
+                    Read as {w.cylinders} cylinders
+                  </button>
+                )}
               </li>
             ))}
           </ul>

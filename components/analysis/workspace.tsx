@@ -205,7 +205,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
                 )}
                 {result.identityNote && <p className="text-sm text-muted">{result.identityNote}</p>}
                 <CylinderBars cylinders={result.cylinders} lowLimit={settings.lowLimitPercent} highLimit={settings.highLimitPercent} onHover={setHighlighted} highlighted={highlighted} />
-                <Findings result={result} />
+                <Findings result={result} onTryCylinders={(k) => setSettings({ ...settings, engine: engineOf(k, profiles, settings.engine.layout), rotation: 0 })} />
                 <div className="mt-4">
                   <ResultsTable cylinders={result.cylinders} rawUnit={result.rawUnit} />
                 </div>
@@ -238,4 +238,11 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
     </div>
   );
   return <CautionsGate userId={userId}>{body}</CautionsGate>;
+}
+
+/** An engine of `cylinders`: the first profile with that count, else even firing in number order on the same layout. */
+function engineOf(cylinders: number, profiles: ProfileOption[], layout: AnalysisSettingsValues['engine']['layout']): AnalysisSettingsValues['engine'] {
+  const profile = profiles.find((p) => p.engine.cylinders === cylinders);
+  if (profile) return profile.engine;
+  return { cylinders, firingOrder: Array.from({ length: cylinders }, (_, i) => i + 1), layout, numbering: 'along-crank' };
 }

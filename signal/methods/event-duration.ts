@@ -219,6 +219,12 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
     iv ? widenForShare(iv, share) : null,
   );
   if (coarse) widenForNeighbours(intervals, figures, setup.firingOrder);
+  // No cylinder holds less than no compression: a figure or interval end below 0 % is 0 %.
+  for (let c = 0; c < n; c++) {
+    if (figures[c] !== null) figures[c] = Math.max(0, figures[c]!);
+    const iv = intervals[c];
+    if (iv) intervals[c] = [Math.max(0, iv[0]), Math.max(0, iv[1])];
+  }
   const cylinders: CylinderResult[] = pMeans.map((m, c) => {
     const perCycle = pByCyl[c].map((p) => round1((100 * p) / pRef));
     const ms = rawByCyl[c].length ? rawByCyl[c].reduce((a, b) => a + b, 0) / rawByCyl[c].length : 0;
