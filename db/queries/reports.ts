@@ -9,6 +9,9 @@ import { and, desc, eq, gt, inArray, isNull } from 'drizzle-orm';
 import { getDb } from '../client';
 import { analyses, approvals, captures, jobs, organizations, reports, shareLinks, users, vehicles } from '../schema';
 import type { ReportContent } from '@/domain/report';
+import type { ShopSettings } from '@/domain/shop-settings';
+import { readSnapshot, writeSnapshot } from './report-snapshot';
+import { getShopSettings } from './shops';
 
 export class ReportStateError extends Error {}
 
@@ -41,13 +44,16 @@ async function allowedAnalyses(shopId: string, jobId: string, ids: string[]) {
     .where(and(eq(analyses.shopId, shopId), eq(jobs.vehicleId, job.vehicleId), inArray(analyses.id, ids)));
 }
 
-/** Saves the draft: updates the open draft, or starts the next revision after a signed one. */
+/**
+ * Saves the draft: updates the open draft, or starts the next revision after a signed one. The latest revision is
+ * locked first, so a save and a signing of the same draft happen one after the other, never interleaved.
+ */
 export async function saveDraft(shopId: string, jobId: string, content: ReportContent) {
   const allowed = new Set((await allowedAnalyses(shopId, jobId, content.analysisIds)).map((a) => a.id));
   const clean = { ...content, analysisIds: content.analysisIds.filter((id) => allowed.has(id)) };
   const db = await getDb();
   return db.transaction(async (tx) => {
-    const [latest] = await tx.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.jobId, jobId))).orderBy(desc(reports.revision)).limit(1);
+    const [latest] = await tx.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.jobId, jobId))).orderBy(desc(reports.revision)).limit(1).for('update');
     if (latest && latest.status === 'draft') {
       const [r] = await tx.update(reports).set({ content: clean }).where(eq(reports.id, latest.id)).returning();
       return r;
@@ -60,27 +66,50 @@ export async function saveDraft(shopId: string, jobId: string, content: ReportCo
   });
 }
 
-/** Signs a draft that includes at least one saved analysis; the revision is frozen from then on. */
+/**
+ * Signs a draft that includes at least one saved analysis. In one transaction, with the revision locked: the
+ * bundle as it stands is copied into the revision (the snapshot and its SHA-256), and the revision is marked
+ * signed, so a save racing the signing either lands before it (and is what is signed) or starts the next revision.
+ */
 export async function signReport(shopId: string, reportId: string, userId: string) {
   const db = await getDb();
-  const r = await getReport(shopId, reportId);
-  if (!r) return null;
-  if (r.status !== 'draft') throw new ReportStateError('This revision is already signed; edit the report to start a new revision.');
-  const content = r.content;
-  if (content.analysisIds.length === 0) throw new ReportStateError('A report needs at least one saved analysis before it can be signed; include one.');
-  const [signed] = await db
-    .update(reports)
-    .set({ status: 'signed', signedBy: userId, signedAt: new Date() })
-    .where(and(eq(reports.id, r.id), eq(reports.status, 'draft')))
-    .returning();
-  return signed;
+  // Read before the transaction: the embedded database serves one connection, which the transaction holds.
+  const shopSettings = await getShopSettings(shopId);
+  return db.transaction(async (tx) => {
+    const [r] = await tx.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.id, reportId))).for('update');
+    if (!r) return null;
+    if (r.status !== 'draft') throw new ReportStateError('This revision is already signed; edit the report to start a new revision.');
+    if (r.content.analysisIds.length === 0) throw new ReportStateError('A report needs at least one saved analysis before it can be signed; include one.');
+    const signedAt = new Date();
+    const signedRow = { ...r, status: 'signed', signedBy: userId, signedAt };
+    const bundle = await liveBundle(tx, shopId, signedRow);
+    if (bundle.analyses.length === 0) throw new ReportStateError('The analyses this report includes are no longer on file; include a saved analysis, then sign.');
+    const { text, sha256 } = writeSnapshot({ ...bundle, report: { ...signedRow, snapshot: null, snapshotSha256: null }, shopSettings });
+    const [signed] = await tx
+      .update(reports)
+      .set({ status: 'signed', signedBy: userId, signedAt, snapshot: text, snapshotSha256: sha256 })
+      .where(and(eq(reports.id, r.id), eq(reports.status, 'draft')))
+      .returning();
+    return signed ?? null;
+  });
 }
 
-/** Everything the PDF and the customer view show for one revision. */
+/**
+ * Everything the PDF and the customer view show for one revision: a signed revision's snapshot (what was signed,
+ * whatever changed since), or a draft's rows as they stand.
+ */
 export async function reportBundle(shopId: string, reportId: string) {
-  const db = await getDb();
   const report = await getReport(shopId, reportId);
   if (!report) return null;
+  if (report.status === 'signed' && report.snapshot) return readSnapshot<LiveBundle & { shopSettings?: ShopSettings }>(report.snapshot);
+  return { ...(await liveBundle(await getDb(), shopId, report)), shopSettings: undefined as ShopSettings | undefined };
+}
+
+type Executor = Pick<Awaited<ReturnType<typeof getDb>>, 'select'>;
+type ReportRow = typeof reports.$inferSelect;
+
+/** The bundle from the rows as they stand. */
+async function liveBundle(db: Executor, shopId: string, report: ReportRow) {
   const [row] = await db
     .select({ shop: organizations, job: jobs, vehicle: vehicles })
     .from(jobs)
@@ -100,6 +129,8 @@ export async function reportBundle(shopId: string, reportId: string) {
   const [signer] = report.signedBy ? await db.select({ name: users.name, email: users.email }).from(users).where(eq(users.id, report.signedBy)) : [];
   return { report, content, shop: row.shop, job: row.job, vehicle: row.vehicle, analyses: ordered, signerName: signer?.name ?? null, signerEmail: signer?.email ?? null };
 }
+
+type LiveBundle = Awaited<ReturnType<typeof liveBundle>>;
 
 export type ReportBundle = NonNullable<Awaited<ReturnType<typeof reportBundle>>>;
 

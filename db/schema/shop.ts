@@ -127,6 +127,10 @@ export const reports = pgTable(
     content: jsonb().$type<ReportContent>().notNull(),
     signedBy: text().references(() => users.id, { onDelete: 'set null' }),
     signedAt: timestamp({ withTimezone: true }),
+    /** Everything a signed revision shows, copied at signing (db/queries/report-snapshot.ts); null on a draft. */
+    snapshot: text(),
+    /** SHA-256 of `snapshot`, hex. */
+    snapshotSha256: text(),
     createdAt: created(),
   },
   (t) => [uniqueIndex().on(t.jobId, t.revision), index().on(t.shopId)],

@@ -13,7 +13,8 @@ import type { PdfTrace, ReportPdfData } from './report-document';
 export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const v = b.vehicle;
   const e = v.engine;
-  const { timeZone, temperatureUnit } = await getShopSettings(b.shop.id);
+  // A signed revision keeps the shop's settings as they were when it was signed.
+  const { timeZone, temperatureUnit } = b.shopSettings ?? (await getShopSettings(b.shop.id));
   const analyses = [];
   for (const a of b.analyses) {
     const result = a.analysis.result;

@@ -1,0 +1,2 @@
+ALTER TABLE "reports" ADD COLUMN "snapshot" text;--> statement-breakpoint
+ALTER TABLE "reports" ADD COLUMN "snapshot_sha256" text;

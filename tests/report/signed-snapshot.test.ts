@@ -1,0 +1,102 @@
+/**
+ * What is signed stays signed, at the data layer on a throwaway embedded database: a signed revision's bundle (what
+ * the PDF and the customer page render) is copied at signing with its SHA-256, and later edits to the job, a
+ * renamed signer and the removal of the job whose analysis it cites change nothing in it. A save racing a signing
+ * either lands before it (and is what is signed) or starts the next revision.
+ */
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { eq } from 'drizzle-orm';
+import { beforeAll, describe, expect, it } from 'vitest';
+
+process.env.CRANKPRINT_DATA_DIR = mkdtempSync(join(tmpdir(), 'crankprint-snapshot-'));
+process.env.CRANKPRINT_DEMO = '1';
+
+const { getDb } = await import('@/db/client');
+const schema = await import('@/db/schema');
+const q = await import('@/db/queries/reports');
+const jobsQ = await import('@/db/queries/jobs');
+const { snapshotIntact } = await import('@/db/queries/report-snapshot');
+
+let shopId = '';
+let userId = '';
+let citedJobId = '';
+let reportJobId = '';
+let analysisId = '';
+
+beforeAll(async () => {
+  const db = await getDb();
+  const [analysis] = await db.select().from(schema.analyses).limit(1);
+  const [capture] = await db.select().from(schema.captures).where(eq(schema.captures.id, analysis.captureId));
+  const [cited] = await db.select().from(schema.jobs).where(eq(schema.jobs.id, capture.jobId));
+  const [user] = await db.select().from(schema.users).limit(1);
+  shopId = cited.shopId;
+  userId = user.id;
+  citedJobId = cited.id;
+  analysisId = analysis.id;
+  // A second visit of the same vehicle whose report cites the first visit's analysis (before/after).
+  const [job] = await db
+    .insert(schema.jobs)
+    .values({ shopId, vehicleId: cited.vehicleId, repairOrder: 'RO-SNAPSHOT-1', concern: 'Rough idle — “again”, 100% sure.\nSecond line.', odometer: 120_000 })
+    .returning();
+  reportJobId = job.id;
+}, 60_000);
+
+const content = (steps: string[]) => ({ analysisIds: [analysisId], conditions: {}, interpretation: 'Cylinder 3 reads low. 日本 🚗', nextSteps: steps });
+
+describe('a signed revision is a snapshot', () => {
+  it('edits, a renamed signer and removing the cited job change nothing in it; its SHA-256 holds', async () => {
+    const draft = await q.saveDraft(shopId, reportJobId, content(['Gauge cylinder 3', 'Leak-down test']));
+    const signed = (await q.signReport(shopId, draft.id, userId))!;
+    expect(signed.status).toBe('signed');
+    expect(snapshotIntact(signed.snapshot!, signed.snapshotSha256)).toBe(true);
+    const atSigning = await q.reportBundle(shopId, signed.id);
+    expect(atSigning!.analyses).toHaveLength(1);
+    expect(atSigning!.job.concern).toContain('Second line.');
+
+    const db = await getDb();
+    await jobsQ.updateJob(shopId, reportJobId, { concern: 'Changed after signing', odometer: 1 });
+    await db.update(schema.users).set({ name: 'Someone Else' }).where(eq(schema.users.id, userId));
+    expect(await jobsQ.deleteJob(shopId, citedJobId)).not.toBeNull();
+    expect(await db.select().from(schema.analyses).where(eq(schema.analyses.id, analysisId))).toHaveLength(0);
+
+    const later = await q.reportBundle(shopId, signed.id);
+    expect(later).toEqual(atSigning);
+    expect(later!.analyses[0].analysis.result.cylinders.length).toBeGreaterThan(0);
+    expect(later!.analyses[0].analysis.createdAt).toBeInstanceOf(Date);
+    const [row] = await db.select().from(schema.reports).where(eq(schema.reports.id, signed.id));
+    expect(snapshotIntact(row.snapshot!, row.snapshotSha256)).toBe(true);
+  });
+
+  it('a draft is read as it stands; a save after signing starts the next revision and the signed one stays', async () => {
+    const db = await getDb();
+    const [job] = await db.select().from(schema.jobs).where(eq(schema.jobs.id, reportJobId));
+    const [a] = await db.select().from(schema.analyses).limit(1);
+    analysisId = a.id;
+    // The cited analysis must be of the same vehicle: move this job onto that analysis's vehicle.
+    const [cap] = await db.select().from(schema.captures).where(eq(schema.captures.id, a.captureId));
+    const [owner] = await db.select().from(schema.jobs).where(eq(schema.jobs.id, cap.jobId));
+    await db.update(schema.jobs).set({ vehicleId: owner.vehicleId }).where(eq(schema.jobs.id, job.id));
+    const first = await q.saveDraft(shopId, reportJobId, content(['One']));
+    const signed = (await q.signReport(shopId, first.id, userId))!;
+    const next = await q.saveDraft(shopId, reportJobId, content(['Two']));
+    expect(next.revision).toBe(signed.revision + 1);
+    expect(next.status).toBe('draft');
+    expect((await q.reportBundle(shopId, signed.id))!.content.nextSteps).toEqual(['One']);
+    expect((await q.reportBundle(shopId, next.id))!.content.nextSteps).toEqual(['Two']);
+  });
+
+  it('saves racing a signing: what is signed is the draft its snapshot holds, 100 times', async () => {
+    let failures = 0;
+    for (let i = 0; i < 100; i++) {
+      const draft = await q.saveDraft(shopId, reportJobId, content([`race ${i} a`]));
+      const [signed] = await Promise.all([q.signReport(shopId, draft.id, userId).catch(() => null), q.saveDraft(shopId, reportJobId, content([`race ${i} b`]))]);
+      if (!signed) continue;
+      const b = (await q.reportBundle(shopId, signed.id))!;
+      // The signed row's own content and its snapshot agree: the signing read what it signed.
+      if (JSON.stringify(b.content) !== JSON.stringify(signed.content) || b.analyses.length === 0) failures++;
+    }
+    expect(failures).toBe(0);
+  });
+});
