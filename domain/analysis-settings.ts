@@ -17,6 +17,7 @@ export const analysisSettingsSchema = z
     method: z.enum(METHOD_CHOICES).default('auto'),
     teeth: z
       .string()
+      .max(200, 'A wheel is written in at most 200 characters.')
       .refine((t) => parseWheel(t) !== null, 'Write the wheel like 60-2, or as runs and gaps such as 36:15/2,14/1,3/1.')
       .optional(),
     lowLimitPercent: z.number().gt(0, 'The low limit is a percentage above 0.').lt(100, 'The low limit is a percentage below 100.').default(90),

@@ -27,7 +27,12 @@ export const sendReportInput = z.object({
 export const decisionInput = z.object({
   token: z.string().max(100),
   decision: z.enum(['approve', 'decline'], { message: 'Choose approve or decline.' }),
-  typedName: z.string().trim().min(2, 'Type your name to sign your answer.').max(120),
+  typedName: z
+    .string()
+    .trim()
+    .max(120)
+    // At least two letters you can see: spaces, zero-width and other invisible characters do not sign.
+    .refine((t) => (t.match(/\p{L}/gu) ?? []).length >= 2, 'Type your name to sign your answer.'),
 });
 
 /** Route parameters: a record id from the path. */

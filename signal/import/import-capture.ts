@@ -50,6 +50,7 @@ export class CaptureImporter {
   private readonly options: ImportOptions;
   private skip: number;
   private readonly given: boolean;
+  private readonly crOnly: boolean;
 
   /** `head` is the file's first bytes (at least 64 KB or the whole file); `size` its length in bytes. */
   constructor(head: Uint8Array, size: number, options: ImportOptions = {}) {
@@ -57,6 +58,9 @@ export class CaptureImporter {
       throw new CaptureError('TOO_LARGE', `The file is ${(size / 1048576).toFixed(0)} MB; captures up to 256 MB are accepted. Export a shorter window around the cranking.`);
     }
     this.options = options;
+    // Line ends of a lone CR (old spreadsheet exports) are read as LF, byte for byte, so offsets stay the same.
+    this.crOnly = !head.includes(10) && head.includes(13);
+    if (this.crOnly) head = crToLf(head);
     this.sniff = sniffCapture(head.subarray(0, Math.min(head.length, SNIFF_BYTES + 1)));
     const width = this.sniff.columns.length;
     const preview = Array.from({ length: width }, (_, c) =>
@@ -86,6 +90,7 @@ export class CaptureImporter {
   }
 
   push(chunk: Uint8Array): void {
+    if (this.crOnly) chunk = crToLf(chunk);
     if (this.skip > 0) {
       if (chunk.length <= this.skip) {
         this.skip -= chunk.length;
@@ -226,6 +231,10 @@ export function importCapture(bytes: Uint8Array, options: ImportOptions = {}, on
     onProgress?.(Math.min(1, (o + step) / bytes.length));
   }
   return importer.finish();
+}
+
+function crToLf(bytes: Uint8Array): Uint8Array {
+  return bytes.map((b) => (b === 13 ? 10 : b));
 }
 
 /** Scopes write 9.9E37 (or ±Infinity) when the signal leaves the range: make those samples missing. */

@@ -131,3 +131,14 @@ describe('the streaming number parser converts exactly like Number() (ECMAScript
     expect(Array.from(p.finish().columns[0])).toEqual(values.map(Number));
   });
 });
+
+describe('line ends', () => {
+  it('a file whose lines end in a lone CR reads like one ending in LF, in any chunking', () => {
+    const lf = 'Time (ms),Starter current [A]\n0.0,12.5\n0.2,13.1\n0.4,12.9\n0.6,13.4\n';
+    const a = importCapture(new TextEncoder().encode(lf));
+    const b = importCapture(new TextEncoder().encode(lf.replaceAll('\n', '\r')));
+    expect(b.rows).toBe(4);
+    expect(Array.from(b.columns.current!)).toEqual(Array.from(a.columns.current!));
+    expect(Array.from(b.columns.time!)).toEqual(Array.from(a.columns.time!));
+  });
+});
