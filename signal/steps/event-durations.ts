@@ -4,6 +4,7 @@
  * through it.
  * Times at segment edges are interpolated between teeth, or taken at the nearest tooth on a coarse wheel.
  */
+import { indexAtTime } from '../dsp/decimate';
 import type { ToothAngles } from '../teeth/coarse-angles';
 
 export interface DurationEvent {
@@ -24,17 +25,9 @@ export interface DurationEvent {
 
 /** Index of the last tooth at or before angle `theta`, or −1. */
 function toothBefore(a: ToothAngles, theta: number): number {
-  const x = a.angleDeg;
-  if (!(theta >= x[0])) return -1;
-  let lo = 0;
-  let hi = x.length - 1;
-  if (theta >= x[hi]) return hi;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (x[mid] <= theta) lo = mid;
-    else hi = mid;
-  }
-  return lo;
+  if (!(theta >= a.angleDeg[0])) return -1;
+  const i = indexAtTime(a.angleDeg, theta);
+  return i < a.angleDeg.length && a.angleDeg[i] === theta ? i : i - 1;
 }
 
 /** Time at crank angle `theta` (linear between teeth); NaN outside the teeth or across a step over `maxStepDeg`. */

@@ -6,6 +6,7 @@
  * the pattern marks each cycle. A cam with one window a cycle, or with several windows of different widths,
  * comes out the same way.
  */
+import { indexAtTime } from '../dsp/decimate';
 import { median } from '../dsp/stats';
 import type { CylinderMarks } from '../import/edge-log';
 
@@ -27,14 +28,10 @@ const LENGTH_TOLERANCE = 0.04;
 /** Fractional tooth index of time `x`: k + the share of the tooth period k → k + 1 passed. NaN outside. */
 export function toothIndexAt(teeth: Float64Array, x: number): number {
   if (!(x >= teeth[0] && x <= teeth[teeth.length - 1])) return NaN;
-  let lo = 0;
-  let hi = teeth.length - 1;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (teeth[mid] <= x) lo = mid;
-    else hi = mid;
-  }
-  return lo + (x - teeth[lo]) / Math.max(1e-12, teeth[hi] - teeth[lo]);
+  // The last tooth at or before x.
+  const hi = indexAtTime(teeth, x);
+  const lo = teeth[hi] === x || hi === 0 ? hi : hi - 1;
+  return lo + (x - teeth[lo]) / Math.max(1e-12, (teeth[lo + 1] ?? teeth[lo] + 1) - teeth[lo]);
 }
 
 /**
