@@ -1,6 +1,6 @@
 /** Audit events: who did what to which record in which shop. */
 import 'server-only';
-import { and, count, desc, eq, gte, inArray, isNull, or } from 'drizzle-orm';
+import { and, count, desc, eq, gte, inArray, isNull, or, sql } from 'drizzle-orm';
 import { getDb } from '../client';
 import { auditEvents, members, users } from '../schema';
 
@@ -39,12 +39,40 @@ export async function listShopActivity(shopId: string, limit = 100) {
     .limit(limit);
 }
 
-/** How many times `action` was recorded in the shop (and by `actorId`, when given) since `since`. */
-export async function countRecentActions(shopId: string, action: string, since: Date, actorId?: string): Promise<number> {
+/**
+ * Reserves one `action` against an hourly budget per member and per shop, atomically: a transaction-scoped
+ * advisory lock on the shop and action serialises every instance's check-and-record, so concurrent requests
+ * cannot all pass a count taken before any of them was recorded. Returns the recorded event's id, or which
+ * budget is spent. A reservation whose work then fails is given back with `releaseAction`.
+ */
+export async function reserveAction(
+  shopId: string,
+  actorId: string,
+  action: string,
+  limits: { perMember: number; perShop: number; sinceMs: number },
+  subject: { type: string; id: string },
+  detail: Record<string, unknown>,
+): Promise<{ id: string } | { spent: 'member' | 'shop' }> {
   const db = await getDb();
-  const [row] = await db
-    .select({ n: count() })
-    .from(auditEvents)
-    .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.action, action), gte(auditEvents.createdAt, since), actorId ? eq(auditEvents.actorId, actorId) : undefined));
-  return row?.n ?? 0;
+  const since = new Date(Date.now() - limits.sinceMs);
+  return db.transaction(async (tx) => {
+    await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`${shopId}:${action}`}))`);
+    const counted = async (who?: string) => {
+      const [row] = await tx
+        .select({ n: count() })
+        .from(auditEvents)
+        .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.action, action), gte(auditEvents.createdAt, since), who ? eq(auditEvents.actorId, who) : undefined));
+      return row?.n ?? 0;
+    };
+    if ((await counted(actorId)) >= limits.perMember) return { spent: 'member' as const };
+    if ((await counted()) >= limits.perShop) return { spent: 'shop' as const };
+    const [e] = await tx.insert(auditEvents).values({ shopId, actorId, action, subjectType: subject.type, subjectId: subject.id, detail }).returning({ id: auditEvents.id });
+    return { id: e.id };
+  });
+}
+
+/** Gives back a reservation whose work failed (the e-mail was not sent). */
+export async function releaseAction(shopId: string, eventId: string): Promise<void> {
+  const db = await getDb();
+  await db.delete(auditEvents).where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.id, eventId)));
 }
