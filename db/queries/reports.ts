@@ -19,9 +19,17 @@ export function hashToken(token: string): string {
   return createHash('sha256').update(token).digest('hex');
 }
 
+/** A revision as the API shows it: its snapshot stays in the database (the PDF and the customer page read it). */
+function withoutSnapshot<T extends { snapshot?: string | null }>(r: T): Omit<T, 'snapshot'> {
+  const { snapshot, ...rest } = r;
+  void snapshot;
+  return rest;
+}
+
 export async function listRevisions(shopId: string, jobId: string) {
   const db = await getDb();
-  return db.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.jobId, jobId))).orderBy(desc(reports.revision));
+  const rows = await db.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.jobId, jobId))).orderBy(desc(reports.revision));
+  return rows.map(withoutSnapshot);
 }
 
 export async function getReport(shopId: string, reportId: string) {
@@ -90,7 +98,7 @@ export async function signReport(shopId: string, reportId: string, userId: strin
       .set({ status: 'signed', signedBy: userId, signedAt, snapshot: text, snapshotSha256: sha256 })
       .where(and(eq(reports.id, r.id), eq(reports.status, 'draft')))
       .returning();
-    return signed ?? null;
+    return signed ? withoutSnapshot(signed) : null;
   });
 }
 
