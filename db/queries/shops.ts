@@ -21,22 +21,28 @@ export async function getMember(shopId: string, memberId: string) {
   return m ?? null;
 }
 
-export async function countOwners(shopId: string): Promise<number> {
+/**
+ * Changes a member's role, or removes them, keeping "every shop has at least one owner" true under concurrency:
+ * the shop's member rows are locked, the owners counted and the change made in one transaction, so two owners
+ * demoting each other at once through two instances cannot both succeed. Null when there is no such member;
+ * `lastOwner` when the change would leave the shop without one.
+ */
+export async function changeMember(shopId: string, memberId: string, change: { role: string } | 'remove') {
   const db = await getDb();
-  const rows = await db.select({ id: members.id }).from(members).where(and(eq(members.organizationId, shopId), eq(members.role, 'owner')));
-  return rows.length;
-}
-
-export async function setMemberRole(shopId: string, memberId: string, role: string) {
-  const db = await getDb();
-  const [m] = await db.update(members).set({ role }).where(and(eq(members.organizationId, shopId), eq(members.id, memberId))).returning();
-  return m ?? null;
-}
-
-export async function removeMember(shopId: string, memberId: string) {
-  const db = await getDb();
-  const [m] = await db.delete(members).where(and(eq(members.organizationId, shopId), eq(members.id, memberId))).returning();
-  return m ?? null;
+  return db.transaction(async (tx) => {
+    const all = await tx.select().from(members).where(eq(members.organizationId, shopId)).for('update');
+    const m = all.find((x) => x.id === memberId);
+    if (!m) return null;
+    const owners = all.filter((x) => x.role === 'owner').length;
+    const losesOwner = m.role === 'owner' && (change === 'remove' || change.role !== 'owner');
+    if (losesOwner && owners <= 1) return { lastOwner: true as const, member: m, updated: null };
+    if (change === 'remove') {
+      await tx.delete(members).where(and(eq(members.organizationId, shopId), eq(members.id, m.id)));
+      return { lastOwner: false as const, member: m, updated: null };
+    }
+    const [updated] = await tx.update(members).set({ role: change.role }).where(and(eq(members.organizationId, shopId), eq(members.id, m.id))).returning();
+    return { lastOwner: false as const, member: m, updated };
+  });
 }
 
 export async function listInvitations(shopId: string) {

@@ -14,7 +14,7 @@ import { getCapture, latestAnalysesForJob, listAnalyses, listCaptures, readCaptu
 import { deleteJob, getJob, listJobs, updateJob } from '@/db/queries/jobs';
 import { listProfiles } from '@/db/queries/profiles';
 import { candidateAnalyses, getReport, listApprovalsForJob, listRevisions, reportBundle, saveDraft, signReport } from '@/db/queries/reports';
-import { getMember, listMembers, removeMember } from '@/db/queries/shops';
+import { changeMember, getMember, listMembers } from '@/db/queries/shops';
 import { getVehicle, listVehicles, vehicleJobs } from '@/db/queries/vehicles';
 import { captures, jobs, members, organizations } from '@/db/schema';
 import { seedDemoIfEmpty } from '@/db/seed';
@@ -73,7 +73,8 @@ describe('the data-access layer is scoped to the shop it is given', () => {
   it('changes nothing of it with another shop’s id', async () => {
     expect(await updateJob(other, job.id, { status: 'done' })).toBeNull();
     expect(await deleteJob(other, job.id)).toBeNull();
-    expect(await removeMember(other, memberId)).toBeFalsy();
+    expect(await changeMember(other, memberId, 'remove')).toBeFalsy();
+    expect(await changeMember(other, memberId, { role: 'advisor' })).toBeFalsy();
     expect(await getJob(shop, job.id)).not.toBeNull();
     expect(await getMember(shop, memberId)).not.toBeNull();
     // A report drafted in the demo shop is the demo shop's alone.

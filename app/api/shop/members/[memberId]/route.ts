@@ -1,8 +1,8 @@
-/** Owners change a member's role or remove them; the last owner can be neither demoted nor removed. */
+/** Owners change a member's role or remove them; the last owner can be neither demoted nor removed, even at once from two instances. */
 import { memberRoleInput } from '@/server/api/inputs';
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
-import { countOwners, getMember, removeMember, setMemberRole } from '@/db/queries/shops';
+import { changeMember } from '@/db/queries/shops';
 import { conflict, notFound } from '@/server/http';
 import { forgetMemberships } from '@/server/membership-cache';
 import { withShop } from '@/server/with-shop';
@@ -11,26 +11,20 @@ export const PATCH = withShop(
   { member: ['update'] },
   memberRoleInput.extend({ memberId: z.string() }),
   async ({ input, shop, user }) => {
-    const m = await getMember(shop.id, input.memberId);
-    if (!m) throw notFound('That member');
-    if (m.role === 'owner' && input.role !== 'owner' && (await countOwners(shop.id)) <= 1) {
-      throw conflict('This is the shop’s last owner; make another member owner first.');
-    }
-    const updated = await setMemberRole(shop.id, m.id, input.role);
+    const r = await changeMember(shop.id, input.memberId, { role: input.role });
+    if (!r) throw notFound('That member');
+    if (r.lastOwner) throw conflict('This is the shop’s last owner; make another member owner first.');
     forgetMemberships();
-    await recordAudit(shop.id, user.id, 'member.role', { type: 'member', id: m.id }, { from: m.role, to: input.role });
-    return { member: updated };
+    await recordAudit(shop.id, user.id, 'member.role', { type: 'member', id: r.member.id }, { from: r.member.role, to: input.role });
+    return { member: r.updated };
   },
 );
 
 export const DELETE = withShop({ member: ['delete'] }, z.object({ memberId: z.string() }), async ({ input, shop, user }) => {
-  const m = await getMember(shop.id, input.memberId);
-  if (!m) throw notFound('That member');
-  if (m.role === 'owner' && (await countOwners(shop.id)) <= 1) {
-    throw conflict('This is the shop’s last owner and cannot be removed; make another member owner first.');
-  }
-  await removeMember(shop.id, m.id);
+  const r = await changeMember(shop.id, input.memberId, 'remove');
+  if (!r) throw notFound('That member');
+  if (r.lastOwner) throw conflict('This is the shop’s last owner and cannot be removed; make another member owner first.');
   forgetMemberships();
-  await recordAudit(shop.id, user.id, 'member.remove', { type: 'member', id: m.id }, { userId: m.userId, role: m.role });
+  await recordAudit(shop.id, user.id, 'member.remove', { type: 'member', id: r.member.id }, { userId: r.member.userId, role: r.member.role });
   return { ok: true };
 });
