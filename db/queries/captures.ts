@@ -125,13 +125,31 @@ export async function readCapturePacked(shopId: string, captureId: string, signa
   return ref && readStoredPieces(await getDb(), ref, signal);
 }
 
+/** Stores an analysis; null when its capture no longer exists (removed while the analysis ran). */
 export async function saveAnalysis(
   shopId: string,
   a: { captureId: string; settings: AnalysisSettingsValues; engineVersion: string; fileSha256: string; result: AnalysisResult; trace: TraceExcerpt | null; verdict: string; crankingRpm: number; createdBy: string },
 ) {
   const db = await getDb();
-  const [row] = await db.insert(analyses).values({ shopId, ...a }).returning();
-  return row;
+  try {
+    const [row] = await db.insert(analyses).values({ shopId, ...a }).returning();
+    return row;
+  } catch (e) {
+    // The capture (its job removed) went while the analysis ran: there is nothing to save it on.
+    if (sqlState(e) === FOREIGN_KEY_VIOLATION) return null;
+    throw e;
+  }
+}
+
+const FOREIGN_KEY_VIOLATION = '23503';
+
+/** The PostgreSQL error code of a failed query (drizzle wraps the driver's error in `cause`). */
+function sqlState(e: unknown): string | undefined {
+  for (let x: unknown = e; x && typeof x === 'object'; x = (x as { cause?: unknown }).cause) {
+    const code = (x as { code?: unknown }).code;
+    if (typeof code === 'string' && /^[0-9A-Z]{5}$/.test(code)) return code;
+  }
+  return undefined;
 }
 
 export async function listAnalyses(shopId: string, captureId: string) {

@@ -102,3 +102,23 @@ describe('a signed revision is a snapshot', () => {
     expect(failures).toBe(0);
   });
 });
+
+describe('an analysis whose capture went while it ran', () => {
+  it('is not saved: null, which the route answers as 404 (never a 500)', async () => {
+    const { saveAnalysis } = await import('@/db/queries/captures');
+    const db = await getDb();
+    const [a] = await db.select().from(schema.analyses).limit(1);
+    const saved = await saveAnalysis(shopId, {
+      captureId: 'removed-while-analysing',
+      settings: a.settings,
+      engineVersion: a.engineVersion,
+      fileSha256: a.fileSha256,
+      result: a.result,
+      trace: null,
+      verdict: a.verdict,
+      crankingRpm: a.crankingRpm ?? 0,
+      createdBy: userId,
+    });
+    expect(saved).toBeNull();
+  });
+});

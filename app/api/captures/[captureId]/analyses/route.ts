@@ -53,6 +53,7 @@ export const POST = withShop({ analysis: ['save'] }, saveAnalysisInput.extend({ 
     crankingRpm: result.crankingRpm,
     createdBy: user.id,
   });
+  if (!analysis) throw notFound('That capture');
   await recordAudit(shop.id, user.id, 'analysis.save', { type: 'analysis', id: analysis.id }, { captureId: capture.id, verdict: result.verdict });
   return { analysis };
 });
