@@ -8,6 +8,7 @@ import { RateLimiterDrizzle, type RateLimiterAbstract, RateLimiterMemory, RateLi
 import { getDb } from '@/db/client';
 import { rateLimits } from '@/db/schema';
 import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
+import { clientKey } from './client-key';
 import { HttpError } from './http';
 import { log } from './log';
 
@@ -38,9 +39,12 @@ async function build(): Promise<Record<Purpose, RateLimiterAbstract>> {
 }
 
 let warned = false;
-/** The client's address as the server wrote it; one shared key (and a warning) when the app runs without it. */
+/**
+ * The client's budget key from the address the server wrote (IPv6 by its /64, `::ffff:` as IPv4); one shared key
+ * (and a warning) when the app runs without it.
+ */
 export function clientOf(headers: Headers): string {
-  if (process.env.CRANKPRINT_SERVED === '1') return headers.get(CLIENT_HEADER) || 'unknown';
+  if (process.env.CRANKPRINT_SERVED === '1') return clientKey(headers.get(CLIENT_HEADER) || 'unknown');
   if (!warned) {
     warned = true;
     log.warn('Crankprint is running without its server (npm start): every client shares one rate-limit budget.');

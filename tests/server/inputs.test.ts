@@ -24,3 +24,19 @@ describe('settings are bounded before they are parsed', () => {
     expect(JSON.stringify(r.error?.issues)).toContain('at most 200 characters');
   });
 });
+
+describe('rate-limit keys (RFC 4291 address forms)', () => {
+  it('an IPv4 address written as IPv6 is the IPv4 client', async () => {
+    const { clientKey } = await import('@/server/client-key');
+    expect(clientKey('::ffff:203.0.113.7')).toBe('203.0.113.7');
+    expect(clientKey('203.0.113.7')).toBe('203.0.113.7');
+  });
+  it('every address of one IPv6 /64 is one client; another /64 is another', async () => {
+    const { clientKey } = await import('@/server/client-key');
+    const a = clientKey('2001:db8:1:2::1');
+    expect(clientKey('2001:0db8:0001:0002:ffff:ffff:ffff:fffe')).toBe(a);
+    expect(clientKey('[2001:db8:1:2:abcd::9]')).toBe(a);
+    expect(clientKey('2001:db8:1:3::1')).not.toBe(a);
+    expect(clientKey('::1')).toBe('0:0:0:0::/64');
+  });
+});
