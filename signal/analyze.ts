@@ -222,7 +222,9 @@ function toMethodResult(
   }
 
   if (noCompression) {
-    for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'FIRING_ORDER_MISMATCH' && warnings[i].cylinders === undefined) warnings.splice(i, 1);
+    // With no compression there is no cylinder count to read either.
+    const none = run.warnings.some((w) => w.code === 'NO_COMPRESSION');
+    for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'FIRING_ORDER_MISMATCH' && (none || warnings[i].cylinders === undefined)) warnings.splice(i, 1);
   }
   const rpm = Math.round(run.rpm * 10) / 10;
   if (rpm < MIN_RPM) warnings.push(warning('CRANKING_TOO_SLOW', `Cranking averaged ${rpm.toFixed(0)} rpm, below the ${MIN_RPM} rpm needed; charge or replace the battery and check the starter, then record again.`));

@@ -79,6 +79,15 @@ export function runCurrentMethod(
   const est = estimateRate(slice, rate, (perCycle * 60) / 120, (perCycle * 600) / 120);
   if (!est) return fail('NO_CRANKING', 'The cranking window is too short to find compression events; record 5–10 s of cranking.');
   let rpm = (120 * est.frequencyHz) / perCycle;
+  const swing = currentSwing(slice, (120 / rpm / n) * rate);
+  if (swing < MIN_CURRENT_SWING) {
+    warnings.push(
+      warning(
+        'NO_COMPRESSION',
+        `No compression signature: the starter current varies only ${(swing * 100).toFixed(0)} % of its level within each event (with compression it rises and falls by half its level or more). Spark plugs out, a decompression device or the wrong channel give this; refit the plugs and record again.`,
+      ),
+    );
+  }
 
   // Marks: sync pulses (720° apart) when there are enough, else current peaks (one firing interval apart).
   let marks: number[] = [];
@@ -126,6 +135,25 @@ export function runCurrentMethod(
   function fail(code: Parameters<typeof warning>[0], message: string): MethodOutcome {
     return { ok: false, warnings: [...warnings, warning(code, message)] };
   }
+}
+
+/**
+ * Below this median swing of the current within one event (5th to 95th percentile, over the cranking level) there
+ * is no compression: on the simulator, plugs out swing 0.017–0.021 and every cylinder worn to half its
+ * compression 0.17–0.47 (V8 to I3), healthy engines 1.0–3.2.
+ */
+const MIN_CURRENT_SWING = 0.08;
+
+/** Median over event-long blocks of the current's 5th–95th percentile range, over its median level. */
+function currentSwing(slice: Float64Array, eventSamples: number): number {
+  const n = Math.max(4, Math.round(eventSamples));
+  const level = median(slice);
+  const swings: number[] = [];
+  for (let k = 0; k + n <= slice.length; k += n) {
+    const block = slice.subarray(k, k + n);
+    swings.push(quantile(block, 0.95) - quantile(block, 0.05));
+  }
+  return swings.length && level > 0 ? median(swings) / level : Infinity;
 }
 
 /** Angles between consecutive peaks: the firing intervals, aligned to the measured pattern for uneven fire. */

@@ -191,3 +191,25 @@ describe('tooth-period logs', () => {
     expect(r.cylinders.some((c) => c.status === 'ok' || c.status === 'low')).toBe(false);
   });
 });
+
+describe('plugs out on the electrical methods', () => {
+  // Simulator: plugs out leave the valve springs' ripple, about 2 % of the cranking current; every cylinder worn to
+  // about half still swings 17 % or more (V8) and must keep its figures.
+  it.each([
+    ['I4', I4],
+    ['V6', V6],
+    ['I6', I6],
+    ['V8', V8],
+  ] as const)('%s: starter current and battery voltage say no compression and give no figures; a worn engine keeps them', (_n, engine) => {
+    for (const channel of ['current', 'battery'] as const) {
+      const out = simulateCranking({ engine, plugsOut: true, channels: [channel, 'sync'], noise: 1, seed: 9 });
+      const r = analyzeCapture({ time: out.time, current: out.current, battery: out.battery, sync: out.sync }, { engine });
+      expect(r.warnings.map((w) => w.code), channel).toContain('NO_COMPRESSION');
+      expect(r.cylinders.every((c) => c.relativePercent === null && c.status === 'uncertain'), channel).toBe(true);
+      const worn = simulateCranking({ engine, leakPerS: new Array<number>(engine.cylinders).fill(2), channels: [channel, 'sync'], noise: 1, seed: 9 });
+      const w = analyzeCapture({ time: worn.time, current: worn.current, battery: worn.battery, sync: worn.sync }, { engine });
+      expect(w.warnings.map((x) => x.code), channel).not.toContain('NO_COMPRESSION');
+      expect(w.cylinders.every((c) => c.relativePercent !== null), channel).toBe(true);
+    }
+  });
+});
