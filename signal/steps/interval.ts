@@ -64,7 +64,8 @@ export function cylinderIntervals(perEvent: number[][], figures: (number | null)
     const mapping = o.leaky?.[c] && fig < 97 ? LEAK_MAPPING_SHARE * (100 - fig) : 0;
     const below = Math.max(floor, t * (centre - quantile(s, 0.05))) + mapping;
     const above = Math.max(floor, t * (quantile(s, 0.95) - centre));
-    return [round1(fig - below), round1(fig + above)];
+    // No cylinder holds less than no compression: the interval stops at 0 %.
+    return [round1(Math.max(0, fig - below)), round1(Math.max(0, fig + above))];
   });
 }
 
