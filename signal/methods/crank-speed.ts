@@ -11,6 +11,7 @@ import { engineStartOnTeeth, startedTooSoon } from '../steps/cranking-end';
 import { type CrankMotion, meanRpm, motionFromSpeed, motionFromTeeth } from '../steps/crank-motion';
 import { runFit } from '../steps/run-fit';
 import { eventCountWarning, MIN_SPEED_ORDER_SHARE, resampleByAngle } from '../steps/event-count';
+import { orderAmplitude } from '../dsp/event-rate';
 import { findSyncPulses } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../steps/warnings';
 import { guessSensorKind, type SensorKind, toothTimesFromWaveform } from '../teeth/from-waveform';
@@ -80,14 +81,14 @@ export function readCrankTeeth(input: CrankInput, setup: EngineSetup): CrankTeet
     return out;
   }
   // A learned pattern that repeats r times a revolution: a cycle mark counts 2·r patterns' teeth a cycle.
-  const repeats = learned ? repeatsPerRevolution(input.marks, clean.times, teethOf(unit)) : 1;
+  const repeats = learned ? repeatsPerRevolution(input.marks, clean.times, teethOf(unit)) || repeatsFromCompression(unitAngles, setup, unit) : 1;
   const wheel = repeats > 1 ? repeatWheel(unit, repeats) : unit;
   const angles = repeats > 1 ? { ...unitAngles, wheel, angleDeg: unitAngles.angleDeg.map((a) => a / repeats) } : unitAngles;
   const iv = firingIntervals(setup);
   const pitch = 360 / wheel.positions;
   const info: WheelInfo = {
     notation: wheelNotation(wheel),
-    description: describeWheel(wheel) + (repeats > 1 ? ` (the same pattern ${repeats} times a revolution, placed by the cycle mark)` : ''),
+    description: describeWheel(wheel) + (repeats > 1 ? ` (the same pattern ${repeats} times a revolution${input.marks?.length ? ', placed by the cycle mark' : '; which of them starts the revolution is assumed'})` : ''),
     learned,
     glitchesDropped: clean.dropped + angles.dropped,
     teethInserted: angles.inserted,
@@ -97,15 +98,51 @@ export function readCrankTeeth(input: CrankInput, setup: EngineSetup): CrankTeet
   return out;
 }
 
-/** How many times a learned tooth pattern repeats a revolution, from a cycle mark's teeth per cycle (1 without one). */
+/** How many times a learned tooth pattern repeats a revolution, from a cycle mark's teeth per cycle (0 without one). */
 function repeatsPerRevolution(marks: CylinderMarks[] | undefined, teeth: Float64Array, unitTeeth: number): number {
   const cycle = findCycleMarks(marks, teeth);
-  if (!cycle) return 1;
+  if (!cycle) return 0;
   const r = cycle.teethPerCycle / (2 * unitTeeth);
   const whole = Math.round(r);
   // A coarse pattern's "gap" may be compression stretching a tooth period: only a fine pattern is repeated.
   return unitTeeth >= 8 && whole >= 2 && whole <= 6 && Math.abs(r - whole) < 0.05 ? whole : 1;
 }
+
+/**
+ * Without a cycle mark: the compression events the speed shows per two of the pattern's turns. An engine has
+ * n/2 events a revolution, so a pattern that shows n/(2r) of them repeats r times a revolution (the same gap every
+ * 120° shows one event a pattern on a V6, against three a revolution). Only a clear compression signature (its
+ * order at least 1.5 % of the speed) counts; the revolution's start is then assumed.
+ */
+function repeatsFromCompression(a: WheelAngles, setup: EngineSetup, unit: ToothWheel): number {
+  if (teethOf(unit) < 8) return 1;
+  const m = motionFromTeeth(a.times, a.angleDeg, -Infinity, Infinity);
+  const grid = resampleByAngle(m.thetaDeg, m.s);
+  if (!grid) return 1;
+  const n = setup.cylinders;
+  let mean = 0;
+  for (const v of grid.x) mean += Math.abs(v);
+  mean /= grid.x.length || 1;
+  let best = 0;
+  let bestCount = n;
+  for (let c = 1; c <= n; c++) {
+    const amp = orderAmplitude(grid.x, grid.samplesPerCycle, c);
+    if (amp > best) {
+      best = amp;
+      bestCount = c;
+    }
+  }
+  const r = n / bestCount;
+  // A weak cylinder on an ordinary wheel also shows lower orders, but the firing order stays: the pattern repeats
+  // only when the order n is itself weak beside the one found.
+  const own = orderAmplitude(grid.x, grid.samplesPerCycle, n);
+  // The whole wheel must stay a crank wheel (up to 48 positions here: a 60-2 read twice is a wrong cylinder count).
+  const plausible = Number.isInteger(r) && r >= 2 && r <= 4 && unit.positions * r <= MAX_REPEATED_POSITIONS;
+  return plausible && best >= MIN_SPEED_ORDER_SHARE * mean && best >= 3 * own ? r : 1;
+}
+
+/** Positions of a wheel whose pattern repeats, at most (a 36-position wheel with the same gap every 120° is one). */
+const MAX_REPEATED_POSITIONS = 48;
 
 /** The pattern written out `r` times: the whole wheel. */
 function repeatWheel(unit: ToothWheel, r: number): ToothWheel {

@@ -12,6 +12,7 @@ import { thenRuns } from '@/signal/sim/shapes';
 import { findEngineStart } from '@/signal/steps/cranking-end';
 import { cycleMarksOf } from '@/signal/teeth/cycle-marks';
 import { parseHeaderCell, timeScale } from '@/signal/import/header';
+import { parseWheel } from '@/signal/teeth/wheel';
 import type { CaptureColumns } from '@/signal/types';
 
 const I4: EngineSetup = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
@@ -64,6 +65,16 @@ describe('coarse wheels are read by event duration, never refused', () => {
 });
 
 describe('a gap that repeats every 120°', () => {
+  it('without a cam, the compression events per pattern show the repeat; the revolution’s start is assumed', () => {
+    const wheel = parseWheel('36:10/2,10/2,10/2')!;
+    const sim = simulateCranking({ engine: V6, leakPerS: [0, 0, 0, 2, 0, 0], channels: [], noise: 1, seed: 4, wheel });
+    const r = analyzeCapture({ toothTimes: sim.toothTimes }, { engine: V6 });
+    expect(r.wheel?.notation).toBe('36:10/2,10/2,10/2');
+    expect(r.wheel?.description).toMatch(/3 times a revolution; which of them starts the revolution is assumed/);
+    expect(r.identity).toBe('assumed');
+    expect(r.cylinders.filter((c) => c.status === 'low')).toHaveLength(1);
+  });
+
   it('is learned as one wheel of 36 positions, placed by the cam, and read on crank speed', () => {
     const wheel = { positions: 36, gapsAfter: [...[0, 0, 0, 0, 0, 0, 0, 0, 0, 2], ...[0, 0, 0, 0, 0, 0, 0, 0, 0, 2], ...[0, 0, 0, 0, 0, 0, 0, 0, 0, 2]], extraTooth: false };
     const sim = simulateCranking({ engine: V6, leakPerS: [0, 0, 0, 2, 0, 0], channels: [], noise: 1, seed: 4, wheel, camWindowDeg: [0, 30] });
