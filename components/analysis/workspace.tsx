@@ -52,10 +52,30 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   useEffect(() => {
     if (generation === 0) return;
     const { mapping, sampleRateHz } = loadOptions.current;
-    void open(localUpload(captureId) ?? rawUrl, { mapping, sampleRateHz }).then((summary) => {
-      if (summary && summary.confidence < SURE_MAPPING && !mapping) setAskMapping(true);
-    });
+    let settled = false;
+    const read = (source: Blob | string) =>
+      open(source, { mapping, sampleRateHz }).then((summary) => {
+        if (settled) return;
+        settled = true;
+        if (summary && summary.confidence < SURE_MAPPING && !mapping) setAskMapping(true);
+      });
+    const local = localUpload(captureId);
+    void read(local ?? rawUrl);
+    // A file this tab just uploaded is read locally; should that read stop making progress, the server's copy is
+    // read instead.
+    const watch = local
+      ? setInterval(() => {
+          if (settled || Date.now() - lastLoadChange.current < LOCAL_READ_PATIENCE_MS) return;
+          clearInterval(watch);
+          void read(rawUrl);
+        }, 1000)
+      : undefined;
+    return () => clearInterval(watch);
   }, [generation, open, rawUrl, captureId]);
+  const lastLoadChange = useRef(Date.now());
+  useEffect(() => {
+    lastLoadChange.current = Date.now();
+  }, [w.load]);
 
   // Re-run the engine whenever the settings change.
   const ready = w.load.phase === 'ready';
@@ -239,6 +259,9 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   );
   return <CautionsGate userId={userId}>{body}</CautionsGate>;
 }
+
+/** How long a local read of a just-uploaded file may go without progress before the server's copy is read instead. */
+const LOCAL_READ_PATIENCE_MS = 12_000;
 
 /** An engine of `cylinders`: the first profile with that count, else even firing in number order on the same layout. */
 function engineOf(cylinders: number, profiles: ProfileOption[], layout: AnalysisSettingsValues['engine']['layout']): AnalysisSettingsValues['engine'] {
