@@ -1,11 +1,13 @@
 /**
- * The event-duration method, for any wheel: the time the crank takes to turn through each cylinder's segment
- * (half a firing interval either side of its compression TDC) is longer for a stronger cylinder, which slows
- * the crank more. With the speed trend divided out (each duration over its engine cycle's mean), a cylinder's
- * figure is (duration − the duration with no compression) over the healthy cylinders' same, where the share of
- * an event's duration that compression adds is measured from the teeth on a fine wheel (the fastest speed
- * inside the segment stands for the speed with no compression) and taken from a range on a coarse one, whose
- * ends widen the interval. It reads wheels of one tooth per compression event upward.
+ * The event-duration method, for any wheel, from one tooth per compression event upward: the time the crank takes
+ * through each cylinder's segment of crank angle.
+ *  - On a fine wheel the segment is the compression half (half a firing interval before TDC up to it), timed
+ *    against the time it would take at its entry speed: a stronger cylinder slows the crank more into TDC, and a
+ *    slow entry after a weak neighbour does not count. The healthy cylinders' excess is the share compression adds.
+ *  - On a coarse wheel (or teeth spread evenly by count) segments are whole events between teeth, each over its
+ *    engine cycle's mean so the speed trend cancels, and a cylinder is read from the event after it (a leaking
+ *    cylinder lengthens that one most: COARSE_GAIN), with the gain's range and the neighbours' readings in the
+ *    interval.
  */
 import { type EngineSetup, firingIntervals } from '../engine/firing';
 import { median, quantile, stdDev } from '../dsp/stats';
