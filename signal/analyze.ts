@@ -8,6 +8,7 @@ import { type MethodOutcome, type MethodRun, runCurrentMethod } from './methods/
 import { type CrankInput, type CrankTeeth, readCrankTeeth, runCrankSpeedMethod, runSpeedChannelMethod } from './methods/crank-speed';
 import { runEventDurationMethod } from './methods/event-duration';
 import { startedSentence } from './steps/cranking-end';
+import { NO_TEETH } from './steps/cranking-window';
 import { findCycleMarks } from './teeth/cycle-marks';
 import { describePattern } from './steps/pattern';
 import { summarize } from './steps/summarize';
@@ -76,7 +77,7 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     if (method === 'event-duration') {
       if (!hasTeeth) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The event-duration method needs crank tooth times or a crank sensor channel; map one or choose another method.')] };
       const read = readTeeth();
-      if (!read) return { ok: false, warnings: [warning('NO_CRANKING', 'No crank teeth were found: the crank did not turn, or the crank sensor channel is not connected. Check the probe and record while cranking.')] };
+      if (!read) return { ok: false, warnings: [warning('NO_CRANKING', NO_TEETH)] };
       return runEventDurationMethod(
         { teeth: read.teeth, ...wheelForDurations(read, columns.marks), marks: columns.marks, markOffsetDeg: settings.markOffsetDeg, lowLimitPercent: lowLimit },
         setup,

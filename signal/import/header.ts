@@ -9,10 +9,18 @@ export function parseHeaderCell(raw: string): HeaderCell {
   const text = raw.trim().replace(/^"|"$/g, '').trim();
   const m = /^(.*?)\s*[[(]\s*([^\])]*?)\s*[\])]\s*$/.exec(text);
   if (m && m[1]) return { name: m[1].trim(), unit: m[2] || null };
-  // A time unit written into the name: `time_ms`, `Time ms`, `t_us`, `timestamp.ns`.
-  const suffix = /^(t|time|timestamp|zeit|temps)[\s_.-]+(s|sec|ms|msec|us|µs|μs|usec|ns|min)$/i.exec(text);
-  if (suffix) return { name: text, unit: suffix[2] };
+  // A time column's unit written into its name: `time_ms`, `Time ms`, `t_us`, `timestamp.ns`.
+  if (TIME_NAME_WITH_UNIT.test(text)) return { name: text, unit: timeUnitInName(text) };
   return { name: text, unit: null };
+}
+
+const TIME_UNITS = 's|sec|ms|msec|us|µs|μs|usec|ns|min';
+const UNIT_SUFFIX = new RegExp(`[\\s_.-](${TIME_UNITS})$`, 'i');
+const TIME_NAME_WITH_UNIT = new RegExp(`^(t|time|timestamp|zeit|temps)[\\s_.-]+(${TIME_UNITS})$`, 'i');
+
+/** A time unit written at the end of a name after a space, `_`, `.` or `-` (`toothPeriod_us`, `time ms`), or null. */
+export function timeUnitInName(name: string): string | null {
+  return UNIT_SUFFIX.exec(name)?.[1] ?? null;
 }
 
 /** Seconds per unit of a time column, or null when the unit is not a time unit. */

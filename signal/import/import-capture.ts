@@ -6,7 +6,7 @@ import { CaptureError } from '../errors';
 import { type QualityWarning, warning } from '../steps/warnings';
 import type { CaptureColumns } from '../types';
 import { checkTime, checkValues, fillMissing } from './check-columns';
-import { parseHeaderCell, parseNumberField, timeScale } from './header';
+import { parseNumberField, timeScale, timeUnitInName } from './header';
 import { toothTimesFromPeriods } from './tooth-log';
 import { chooseEdgeChannels } from './edge-log';
 import { type ChannelMapping, type ChannelRole, mapChannels, mappingConfidence } from './map-channels';
@@ -248,12 +248,6 @@ function markOverRange(v: Float64Array): number {
     }
   }
   return n;
-}
-
-/** A time unit written into a column's name (`toothPeriod_us`), or null. */
-function timeUnitInName(name: string): string | null {
-  const m = /[\s_.-](s|ms|us|µs|μs|ns)$/i.exec(name);
-  return m ? m[1] : parseHeaderCell(name).unit;
 }
 
 function dedupe(w: QualityWarning[]): QualityWarning[] {

@@ -15,8 +15,9 @@ export function toothTimesFromPeriods(period: Float64Array, unit: string | null,
   const finite = Array.from(period).filter((v) => v > 0);
   const typical = median(finite);
   // The period's unit: from the header, else from its size (cranking teeth last 0.5–200 ms).
-  const scale = timeScale(unit) ?? (typical > 50 ? 1e-6 : typical > 0.2 ? 1e-3 : 1);
-  if (timeScale(unit) === null) notes.push(`Tooth periods read as ${scale === 1e-6 ? 'µs' : scale === 1e-3 ? 'ms' : 's'} from their size (a typical tooth ${typical.toPrecision(3)}).`);
+  const named = timeScale(unit);
+  const scale = named ?? (typical > 50 ? 1e-6 : typical > 0.2 ? 1e-3 : 1);
+  if (named === null) notes.push(`Tooth periods read as ${scale === 1e-6 ? 'µs' : scale === 1e-3 ? 'ms' : 's'} from their size (a typical tooth ${typical.toPrecision(3)}).`);
   const out: number[] = [];
   let buffers = 1;
   let unwrapped = 0;

@@ -6,11 +6,11 @@
 import { type EngineSetup, firingIntervals } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { median } from '../dsp/stats';
-import { windowFromSpeed } from '../steps/cranking-window';
+import { NO_TEETH, NOT_STEADY, windowFromSpeed } from '../steps/cranking-window';
 import { engineStartOnTeeth, startedTooSoon } from '../steps/cranking-end';
 import { type CrankMotion, meanRpm, motionFromSpeed, motionFromTeeth } from '../steps/crank-motion';
 import { runFit } from '../steps/run-fit';
-import { eventCountWarning, MIN_SPEED_ORDER_SHARE, resampleByAngle } from '../steps/event-count';
+import { eventCountWarning, meanAbs, MIN_SPEED_ORDER_SHARE, resampleByAngle } from '../steps/event-count';
 import { orderAmplitude } from '../dsp/event-rate';
 import { findSyncPulses } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../steps/warnings';
@@ -20,7 +20,7 @@ import { cycleMarksOf, findCycleMarks } from '../teeth/cycle-marks';
 import { describeWheel, teethOf, type ToothWheel, wheelNotation } from '../teeth/wheel';
 import type { CylinderMarks } from '../import/edge-log';
 import { DEFAULT_MARK_OFFSET_DEG, MARK_WORDS } from './mark-words';
-import { compressionEvidence, MIN_COMPRESSION_SWING } from '../steps/compression-evidence';
+import { compressionEvidence, MIN_COMPRESSION_SWING, noCompressionOnSpeed } from '../steps/compression-evidence';
 import type { IdentitySource, WheelInfo } from '../types';
 import type { CrankingWindow } from '../steps/cranking-window';
 import type { MethodOutcome } from './current';
@@ -120,9 +120,7 @@ function repeatsFromCompression(a: WheelAngles, setup: EngineSetup, unit: ToothW
   const grid = resampleByAngle(m.thetaDeg, m.s);
   if (!grid) return 1;
   const n = setup.cylinders;
-  let mean = 0;
-  for (const v of grid.x) mean += Math.abs(v);
-  mean /= grid.x.length || 1;
+  const mean = meanAbs(grid.x);
   let best = 0;
   let bestCount = n;
   for (let c = 1; c <= n; c++) {
@@ -162,7 +160,7 @@ export function runCrankSpeedMethod(
     warnings: [...warnings, warning(code, message)],
   });
   if (!read) {
-    return fail('NO_CRANKING', 'No crank teeth were found: the crank did not turn, or the crank sensor channel is not connected. Check the probe and record while cranking.');
+    return fail('NO_CRANKING', NO_TEETH);
   }
   if (!read.found) return { ok: false, warnings: [read.problem!] };
   const { wheel, angles, info: wheelInfo } = read.found;
@@ -184,11 +182,15 @@ export function runCrankSpeedMethod(
   const m0 = motionFromTeeth(angles.times, angles.angleDeg, -Infinity, Infinity);
   // An engine that started: only the cranking before it.
   const start = engineStartOnTeeth(angles, iv, 4.5 * (360 / wheel.positions));
-  // The cranking ends two firing intervals before the first running event (the event across the change is neither).
-  const cutS = start ? start.timeS - (2 * Math.min(...iv) * 2 * Math.PI) / 360 / median(m0.s.subarray(0, Math.max(1, m0.t.findIndex((t) => t >= start.timeS)))) : Infinity;
-  const cranking = start ? m0.t.findIndex((t) => t >= cutS) : -1;
+  // The cranking ends two firing intervals (at the cranking speed) before the first running event: the event across
+  // the change is neither.
+  let cranking = -1;
+  if (start) {
+    const crankingSpeed = median(m0.s.subarray(0, Math.max(1, indexAtTime(m0.t, start.timeS))));
+    cranking = indexAtTime(m0.t, start.timeS - (2 * Math.min(...iv) * Math.PI) / 180 / crankingSpeed);
+  }
   const window = windowOverride ?? (cranking >= 0 ? windowFromSpeed(m0.t.subarray(0, cranking), m0.s.subarray(0, cranking)) : windowFromSpeed(m0.t, m0.s));
-  if (!window) return start ? fail('ENGINE_STARTED', startedTooSoon(start)) : fail('NO_CRANKING', 'The crank never turned steadily; record 5–10 s of cranking.');
+  if (!window) return start ? fail('ENGINE_STARTED', startedTooSoon(start)) : fail('NO_CRANKING', NOT_STEADY);
   if (sampleRate > 0) {
     const fastest = Math.max(...sampleSpeeds(m0.s));
     const periodS = (2 * Math.PI) / wheel.positions / fastest;
@@ -236,7 +238,7 @@ export function runCrankSpeedMethod(
   const half = Math.min(...iv) / 2;
   const evidence = compressionEvidence(motion, fit, half);
   if (evidence.swing < MIN_COMPRESSION_SWING) {
-    warnings.push(warning('NO_COMPRESSION', `No compression signature: the crank speed varies only ${((evidence.swing - 1) * 100).toFixed(0)} % within each event (an engine with compression swings 2× or more; below ${Math.round((MIN_COMPRESSION_SWING - 1) * 100)} % nothing can be compared). Spark plugs out, a decompression device or the wrong channel give this; refit the plugs and record again.`));
+    warnings.push(noCompressionOnSpeed(evidence.swing));
   } else if (evidence.fired.size > 0) {
     warnings.push(warning('ENGINE_FIRED', `The engine fired during the test: ${evidence.fired.size} event(s) sped the crank up sharply after top dead centre and were left out. Disable fuel and ignition as the service information directs and record again.`));
     fit = runFit(motion, setup, synced, rotation, evidence.fired) ?? fit;
@@ -317,7 +319,7 @@ export function runSpeedChannelMethod(
   return { ok: true, run: { motion, fit, window, rpm: meanRpm(motion), identity: 'assumed', warnings: mismatch ? [mismatch] : [] } };
 }
 
-/** Crank angle is known from the teeth or the speed, so the acceleration's repeat rate checks the cylinder count. */
+/** Crank angle is known from the teeth or the speed, so the speed's repeat rate checks the cylinder count. */
 export function countCheck(motion: CrankMotion, setup: EngineSetup, where: string) {
   const grid = resampleByAngle(motion.thetaDeg, motion.s);
   return grid && eventCountWarning(grid.x, grid.samplesPerCycle, setup.cylinders, where, MIN_SPEED_ORDER_SHARE);

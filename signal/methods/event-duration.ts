@@ -10,20 +10,21 @@
  *    interval.
  */
 import { type EngineSetup, firingIntervals } from '../engine/firing';
+import { indexAtTime } from '../dsp/decimate';
 import { median, quantile, stdDev } from '../dsp/stats';
 import type { CylinderMarks } from '../import/edge-log';
 import { findEngineStart, startedTooSoon } from '../steps/cranking-end';
-import type { CrankingWindow } from '../steps/cranking-window';
+import { type CrankingWindow, NOT_STEADY } from '../steps/cranking-window';
 import { motionFromTeeth } from '../steps/crank-motion';
 import { detrendedDurations, type DurationEvent, eventSegments, timeAtAngle } from '../steps/event-durations';
 import { symmetryStep, degreesOfPositions } from '../steps/identity';
 import { cylinderIntervals } from '../steps/interval';
 import { healthyReference, round1, type Summary } from '../steps/summarize';
 import { eventKey, type FitEvent, type TorqueFit } from '../steps/torque-fit';
-import { MIN_COMPRESSION_SWING } from '../steps/compression-evidence';
+import { MIN_COMPRESSION_SWING, noCompressionOnSpeed } from '../steps/compression-evidence';
 import { type QualityWarning, warning } from '../steps/warnings';
 import { type ToothAngles, toothPatternPeriod, uniformAngles } from '../teeth/coarse-angles';
-import { findCycleMarks, toothIndexAt } from '../teeth/cycle-marks';
+import { type CycleMarks, findCycleMarks, toothIndexAt } from '../teeth/cycle-marks';
 import { wheelNotation } from '../teeth/wheel';
 import type { CylinderResult, EventMark, IdentitySource, WheelInfo } from '../types';
 import type { MethodOutcome } from './current';
@@ -77,10 +78,9 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   const teeth = input.teeth;
   if (teeth.length < 2 * n) return fail('NO_CRANKING', 'Too few crank teeth were recorded to time the compression events; record 5–10 s of cranking.');
 
-  // Crank angle: the learned wheel's, or the teeth per cycle spread evenly (from a cam's pattern, or the
-  // tooth pattern's repeat and the cylinder count).
-  // Without a wheel, the teeth per cycle: counted against a cycle mark, or else the tooth pattern's repeat
-  // once an event (a leaking cylinder breaks that repeat, so the mark comes first).
+  // Crank angle: the learned wheel's, or the teeth per cycle spread evenly. Without a wheel the teeth per cycle are
+  // counted against a cycle mark, or else taken from the tooth pattern's repeat once an event and the cylinder
+  // count (a leaking cylinder breaks that repeat, so the mark comes first).
   const cycle = input.angles ? null : findCycleMarks(input.marks, teeth);
   const patternTeeth = input.angles || cycle ? 0 : n * toothPatternPeriod(teeth);
   let angles: ToothAngles;
@@ -151,7 +151,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   const window = windowOverride ?? steadyWindow(all, speeds, start?.timeS ?? Infinity, n);
   if (!window) {
     if (start) return fail('ENGINE_STARTED', startedTooSoon(start));
-    return fail('NO_CRANKING', 'The crank never turned steadily; record 5–10 s of cranking.');
+    return fail('NO_CRANKING', NOT_STEADY);
   }
   const complete = (e: DurationEvent) => Number.isFinite(e.durationS) && e.startS >= window.startS - 1e-9 && e.endS <= window.endS + 1e-9;
   const events = all.filter((e) => e.timeS >= window.startS && e.timeS <= window.endS);
@@ -175,9 +175,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   const sign = coarse ? -1 : 1;
   // The compression signature over whole events (the speed falls into TDC and rises after it).
   const swing = coarse ? NaN : segmentSwing(angles, eventSegments(angles, tdc1, iv, maxStep).filter((e) => complete(e) && e.timeS >= window.startS && e.timeS <= window.endS));
-  if (Number.isFinite(swing) && swing < MIN_COMPRESSION_SWING) {
-    warnings.push(warning('NO_COMPRESSION', `No compression signature: the crank speed varies only ${((swing - 1) * 100).toFixed(0)} % within each event (an engine with compression swings 2× or more). Spark plugs out, a decompression device or the wrong channel give this; refit the plugs and record again.`));
-  }
+  if (Number.isFinite(swing) && swing < MIN_COMPRESSION_SWING) warnings.push(noCompressionOnSpeed(swing));
 
   const cylOf = (e: DurationEvent) => setup.firingOrder[positionOf(e)];
   const rByCyl: number[][] = Array.from({ length: n }, () => []);
@@ -191,21 +189,20 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   const fineMid = Math.min(0.6, Math.max(0.05, (rRef - 1) / rRef));
   const share = coarse ? COARSE_GAIN : { mid: fineMid, low: fineMid / FINE_SHARE_FACTOR, high: Math.min(0.8, fineMid * FINE_SHARE_FACTOR) };
   const toPercent = (r: number) => 100 * (1 + (sign * (r / rRef - 1)) / share.mid);
-  // Malformed events: far from their cylinder's others.
+  // Malformed events: far from their cylinder's others (more than 20 points, or five robust spreads).
+  const bounds = rByCyl.map((r) => {
+    const p = r.map(toPercent);
+    const mid = median(p);
+    return { mid, tolerance: Math.max(20, 5 * 1.4826 * median(p.map((x) => Math.abs(x - mid)))) };
+  });
   const rejected = new Set<number>();
   const pByCyl: number[][] = Array.from({ length: n }, () => []);
   const rawByCyl: number[][] = Array.from({ length: n }, () => []);
-  for (let c = 0; c < n; c++) {
-    const p = rByCyl[c].map(toPercent);
-    const mid = median(p);
-    const spread = 1.4826 * median(p.map((x) => Math.abs(x - mid)));
-    rByCyl[c] = rByCyl[c].filter((_, k) => Math.abs(p[k] - mid) <= Math.max(20, 5 * spread));
-  }
   events.forEach((e, j) => {
     if (!Number.isFinite(detrended[j])) return;
     const c = cylOf(e) - 1;
     const p = toPercent(detrended[j]);
-    if (!rByCyl[c].includes(detrended[j])) {
+    if (!(Math.abs(p - bounds[c].mid) <= bounds[c].tolerance)) {
       rejected.add(j);
       return;
     }
@@ -214,9 +211,8 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   });
   const pMeans = pByCyl.map((p) => (p.length ? p.reduce((a, b) => a + b, 0) / p.length : NaN));
   // The figures are already relative to the healthy cylinders' durations (rRef).
-  const pRef = 100;
   const maxR = Math.max(...rMeans.filter(Number.isFinite));
-  const figures = pMeans.map((m) => (Number.isFinite(m) ? round1((100 * m) / pRef) : null));
+  const figures = pMeans.map((m) => (Number.isFinite(m) ? round1(m) : null));
   const intervals = cylinderIntervals(pByCyl, figures, { lowLimitPercent: input.lowLimitPercent, floorPoints: coarse ? FLOOR.coarse : FLOOR.fine }).map((iv) =>
     iv ? widenForShare(iv, share) : null,
   );
@@ -228,7 +224,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
     if (iv) intervals[c] = [Math.max(0, iv[0]), Math.max(0, iv[1])];
   }
   const cylinders: CylinderResult[] = pMeans.map((m, c) => {
-    const perCycle = pByCyl[c].map((p) => round1((100 * p) / pRef));
+    const perCycle = pByCyl[c].map(round1);
     const ms = rawByCyl[c].length ? rawByCyl[c].reduce((a, b) => a + b, 0) / rawByCyl[c].length : 0;
     return {
       cylinder: c + 1,
@@ -284,7 +280,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   const motion = motionFromTeeth(angles.times, angles.angleDeg, window.startS, window.endS);
   // The events per cycle against the cylinder count: the speed's repeat on a fine wheel, the tooth pattern's
   // repeat against a cycle mark's teeth on a coarse one.
-  const mismatch = coarse ? coarseCountCheck(input.marks, teeth, n) : countCheck(motion, setup, 'crank speed');
+  const mismatch = coarse ? coarseCountCheck(cycle ?? findCycleMarks(input.marks, teeth), teeth, n) : countCheck(motion, setup, 'crank speed');
   if (mismatch) warnings.push(mismatch);
   return {
     ok: true,
@@ -389,8 +385,7 @@ function segmentSwing(a: ToothAngles, events: DurationEvent[]): number {
 /** Speeds, degrees per second, of the tooth periods inside a segment. */
 function toothSpeeds(a: ToothAngles, e: DurationEvent): number[] {
   const out: number[] = [];
-  for (let k = 0; k + 1 < a.times.length; k++) {
-    if (a.times[k] < e.startS) continue;
+  for (let k = indexAtTime(a.times, e.startS); k + 1 < a.times.length; k++) {
     if (a.times[k + 1] > e.endS) break;
     const dt = a.times[k + 1] - a.times[k];
     if (dt > 0) out.push((a.angleDeg[k + 1] - a.angleDeg[k]) / dt);
@@ -435,8 +430,7 @@ function angleAtTime(a: ToothAngles, x: number): number {
  * On a coarse wheel: a cycle mark that tells the revolutions apart counts the teeth a cycle, and the tooth
  * pattern repeats once an event, so their ratio is the events per cycle.
  */
-function coarseCountCheck(marks: CylinderMarks[] | undefined, teeth: Float64Array, n: number): QualityWarning | null {
-  const cycle = findCycleMarks(marks, teeth);
+function coarseCountCheck(cycle: CycleMarks | null, teeth: Float64Array, n: number): QualityWarning | null {
   if (!cycle || cycle.symmetric) return null;
   const events = cycle.teethPerCycle / toothPatternPeriod(teeth);
   const whole = Math.round(events);

@@ -4,6 +4,7 @@
  * compression and 1.01–1.03 with the plugs out (the recordings in captures-real/). An event whose speed after TDC runs far above the others' is combustion.
  */
 import { median } from '../dsp/stats';
+import { type QualityWarning, warning } from './warnings';
 import type { CrankMotion } from './crank-motion';
 import { eventKey, type TorqueFit } from './torque-fit';
 
@@ -15,6 +16,14 @@ import { eventKey, type TorqueFit } from './torque-fit';
  * over twice the largest plugs-out ripple above 1.
  */
 export const MIN_COMPRESSION_SWING = 1.08;
+/** The warning when the crank speed shows no compression signature (its median max/min within an event is `swing`). */
+export function noCompressionOnSpeed(swing: number): QualityWarning {
+  return warning(
+    'NO_COMPRESSION',
+    `No compression signature: the crank speed varies only ${((swing - 1) * 100).toFixed(0)} % within each event (an engine with compression swings 2× or more; below ${Math.round((MIN_COMPRESSION_SWING - 1) * 100)} % nothing can be compared). Spark plugs out, a decompression device or the wrong channel give this; refit the plugs and record again.`,
+  );
+}
+
 /** An event whose peak speed after TDC exceeds the median event's by this factor fired. */
 const FIRED_FACTOR = 1.45;
 

@@ -5,6 +5,12 @@
 import { movingAverage } from '../dsp/smooth';
 import { quantile } from '../dsp/stats';
 
+/** The sentence when no steady cranking is found on the crank's speed. */
+export const NOT_STEADY = 'The crank never turned steadily; record 5–10 s of cranking.';
+
+/** The sentence when the crank channel holds no teeth to read. */
+export const NO_TEETH = 'No crank teeth were found: the crank did not turn, or the crank sensor channel is not connected. Check the probe and record while cranking.';
+
 export interface CrankingWindow {
   startS: number;
   endS: number;

@@ -64,7 +64,8 @@ export function eventCountWarning(x: Float64Array, samplesPerCycle: number, cyli
   return countMismatch(`The ${where} repeats like ${bestCount} compression events per engine cycle, not ${cylinders}`, bestCount);
 }
 
-function meanAbs(x: Float64Array): number {
+/** Mean of |x|. */
+export function meanAbs(x: Float64Array): number {
   let s = 0;
   for (let i = 0; i < x.length; i++) s += Math.abs(x[i]);
   return x.length ? s / x.length : 0;
