@@ -22,15 +22,27 @@ export function useAnalysisWorker() {
   /** Counts workers started: a new one (strict-mode remount, fast refresh) must be loaded again. */
   const [generation, setGeneration] = useState(0);
 
+  /** Bumped to throw the worker away and start a new one (a worker that stopped answering). */
+  const [restarts, setRestarts] = useState(0);
+
   useEffect(() => {
     const w = new Worker(new URL('../../workers/analysis.worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
     remote.current = Comlink.wrap<AnalysisWorker>(w);
+    // A worker whose script could not load never answers: say so instead of waiting.
+    w.onerror = () => setLoad({ phase: 'error', error: { code: 'NO_WORKER', message: 'The analysis could not start in this browser; reload the page.' } });
     setGeneration((g) => g + 1);
     return () => {
       remote.current = null;
       w.terminate();
     };
+  }, [restarts]);
+
+  /** Throws the worker away and starts another; the page loads the capture into it again (see `generation`). */
+  const restart = useCallback(() => {
+    remote.current = null;
+    setLoad({ phase: 'idle' });
+    setRestarts((r) => r + 1);
   }, []);
 
   /** Downloads (when given a URL) and imports a capture into the worker. */
@@ -45,10 +57,13 @@ export function useAnalysisWorker() {
         setLoad({ phase: 'error', error: { code: 'DOWNLOAD', message: `The capture could not be downloaded (${res.status}); reload the page.` } });
         return null;
       }
-      blob = await res.blob();
+      blob = await downloadWithProgress(res, (fraction) => remote.current === r && setLoad({ phase: 'loading', stage: 'downloading', fraction }));
     } else blob = source;
+    if (remote.current !== r) return null;
     setLoad({ phase: 'loading', stage: 'parsing', fraction: 0 });
-    const out = await r.importCapture(blob, options, Comlink.proxy((stage: Stage, fraction: number) => setLoad({ phase: 'loading', stage, fraction })));
+    const out = await r.importCapture(blob, options, Comlink.proxy((stage: Stage, fraction: number) => remote.current === r && setLoad({ phase: 'loading', stage, fraction })));
+    // A worker thrown away meanwhile (restarted, unmounted) no longer speaks for the page.
+    if (remote.current !== r) return null;
     if (!out.ok) {
       setLoad({ phase: 'error', error: out.error });
       return null;
@@ -70,7 +85,28 @@ export function useAnalysisWorker() {
 
   const cancel = useCallback(() => remote.current?.cancel(), []);
 
-  return { load, open, analyze, decimate, cancel, generation };
+  return { load, open, analyze, decimate, cancel, generation, restart };
+}
+
+/** The response body as one Blob, reporting the fraction received (of Content-Length, when the server sent one). */
+async function downloadWithProgress(res: Response, onFraction: (f: number) => void): Promise<Blob> {
+  const total = Number(res.headers.get('content-length')) || 0;
+  if (!res.body || total === 0) return res.blob();
+  const parts: Uint8Array[] = [];
+  const reader = res.body.getReader();
+  let received = 0;
+  let reported = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    parts.push(value);
+    received += value.length;
+    if (received - reported >= Math.min(total / 100, 1 << 20)) {
+      reported = received;
+      onFraction(Math.min(1, received / total));
+    }
+  }
+  return new Blob(parts as BlobPart[]);
 }
 
 export type AnalysisWorkerHandle = ReturnType<typeof useAnalysisWorker>;

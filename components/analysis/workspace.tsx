@@ -46,36 +46,36 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   const [askMapping, setAskMapping] = useState(false);
   const trace = useRef<TraceHandle>(null);
 
-  // Load the capture into each worker this page starts (normally one).
-  const { generation, open } = w;
+  // Load the capture into each worker this page starts: a file this tab just uploaded is read locally, else the
+  // server's copy is downloaded.
+  const { generation, open, restart } = w;
   const loadOptions = useRef(importOptions(settings));
+  const serverCopy = useRef(false);
   useEffect(() => {
     if (generation === 0) return;
     const { mapping, sampleRateHz } = loadOptions.current;
-    let settled = false;
-    const read = (source: Blob | string) =>
-      open(source, { mapping, sampleRateHz }).then((summary) => {
-        if (settled) return;
-        settled = true;
-        if (summary && summary.confidence < SURE_MAPPING && !mapping) setAskMapping(true);
-      });
-    const local = localUpload(captureId);
-    void read(local ?? rawUrl);
-    // A file this tab just uploaded is read locally; should that read stop making progress, the server's copy is
-    // read instead.
-    const watch = local
-      ? setInterval(() => {
-          if (settled || Date.now() - lastLoadChange.current < LOCAL_READ_PATIENCE_MS) return;
-          clearInterval(watch);
-          void read(rawUrl);
-        }, 1000)
-      : undefined;
-    return () => clearInterval(watch);
+    let current = true;
+    const local = serverCopy.current ? undefined : localUpload(captureId);
+    void open(local ?? rawUrl, { mapping, sampleRateHz }).then((summary) => {
+      if (current && summary && summary.confidence < SURE_MAPPING && !mapping) setAskMapping(true);
+    });
+    return () => {
+      current = false;
+    };
   }, [generation, open, rawUrl, captureId]);
-  const lastLoadChange = useRef(Date.now());
+  // A read that makes no progress for a while is started again in a new worker, on the server's copy; twice at most.
+  const stalls = useRef(0);
+  const [stalled, setStalled] = useState(false);
   useEffect(() => {
-    lastLoadChange.current = Date.now();
-  }, [w.load]);
+    if (w.load.phase !== 'loading') return;
+    const t = setTimeout(() => {
+      if (stalls.current >= MAX_RESTARTS) return setStalled(true);
+      stalls.current += 1;
+      serverCopy.current = true;
+      restart();
+    }, READ_PATIENCE_MS);
+    return () => clearTimeout(t);
+  }, [w.load, restart]);
 
   // Re-run the engine whenever the settings change.
   const ready = w.load.phase === 'ready';
@@ -146,6 +146,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
           <progress className="mt-2 w-full" value={w.load.fraction} max={1} />
         </div>
       )}
+      {stalled && <Notice tone="error">Reading the capture stopped making progress; check the connection and reload the page.</Notice>}
       {w.load.phase === 'error' && (
         <Notice tone="error">
           <span data-testid="capture-error">
@@ -260,8 +261,10 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   return <CautionsGate userId={userId}>{body}</CautionsGate>;
 }
 
-/** How long a local read of a just-uploaded file may go without progress before the server's copy is read instead. */
-const LOCAL_READ_PATIENCE_MS = 12_000;
+/** How long reading the capture may go without progress before it is started again in a new worker. */
+const READ_PATIENCE_MS = 15_000;
+/** New workers started for one page's reading before the page says it stopped. */
+const MAX_RESTARTS = 2;
 
 /** An engine of `cylinders`: the first profile with that count, else even firing in number order on the same layout. */
 function engineOf(cylinders: number, profiles: ProfileOption[], layout: AnalysisSettingsValues['engine']['layout']): AnalysisSettingsValues['engine'] {

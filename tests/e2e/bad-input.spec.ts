@@ -134,6 +134,10 @@ test('the job page shows the reason for every refused file and lists nothing; an
   const ro = `BAD-UI-${Date.now().toString(36)}`;
   const jobId = await newJob(tech, ro);
   await page.context().addCookies((await tech.storageState()).cookies);
+  // What the page said, for a failure's message.
+  const said: string[] = [];
+  page.on('console', (m) => m.type() !== 'log' && said.push(`${m.type()}: ${m.text()}`));
+  page.on('pageerror', (e) => said.push(`page error: ${e.message}`));
   let kept = 0;
   for (const [i, c] of corpus.entries()) {
     // Uppy takes ten files per page: open the page afresh for every file.
@@ -156,7 +160,7 @@ test('the job page shows the reason for every refused file and lists nothing; an
       const mapping = page.locator('[role=dialog][aria-labelledby=mapping-title]');
       await expect(gate.or(mapping), c.name).toBeVisible({ timeout: 30_000 });
       if (await gate.isVisible()) await gate.click();
-      await expect(mapping, c.name).toBeVisible({ timeout: 30_000 });
+      await expect(mapping, `${c.name}; the page said:\n${said.join('\n')}`).toBeVisible({ timeout: 45_000 });
     } else {
       const alert = page.getByTestId('upload-errors');
       await expect(alert, c.name).toContainText(name, { timeout: 30_000 });

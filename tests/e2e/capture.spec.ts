@@ -84,6 +84,20 @@ test('the bars of a chosen file show from this device’s reading before its upl
   await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 30_000 });
 });
 
+test('a reading that stops making progress is started again in a new worker, on the server’s copy', async ({ page }) => {
+  await signInAs(page, 'technician');
+  const jobs = (await (await page.request.get('/api/jobs')).json()).jobs;
+  const job = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24101');
+  const captures = (await (await page.request.get(`/api/jobs/${job.id}/captures`)).json()).captures;
+  // The first worker's script is never answered (a stuck request), so that worker never reads anything.
+  let asked = 0;
+  await page.context().route('**/turbopack-worker-*.js*', (route) => (asked++ === 0 ? undefined : route.continue()));
+  await page.goto(`/jobs/${job.id}/captures/${captures[0].id}`);
+  await page.getByRole('button', { name: /I have read this/ }).click();
+  await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 60_000 });
+  expect(asked).toBe(2);
+});
+
 test('an advisor sees captures but cannot upload, in the page or through the API', async ({ page }) => {
   await signInAs(page, 'advisor');
   await openJob(page, 'RO-24101');
