@@ -15,6 +15,15 @@ import { getShopSettings } from './shops';
 
 export class ReportStateError extends Error {}
 
+/** The revision and version an editor loaded: `{ revision: 0, version: 0 }` when the job had no report yet. */
+export interface DraftBase {
+  revision: number;
+  version: number;
+}
+
+const CHANGED_ELSEWHERE =
+  'This report was saved or signed in another tab or by someone else since you opened it. Copy anything you want to keep, then reload the page to see the latest revision.';
+
 export function hashToken(token: string): string {
   return createHash('sha256').update(token).digest('hex');
 }
@@ -54,23 +63,30 @@ async function allowedAnalyses(shopId: string, jobId: string, ids: string[]) {
 
 /**
  * Saves the draft: updates the open draft, or starts the next revision after a signed one. The latest revision is
- * locked first, so a save and a signing of the same draft happen one after the other, never interleaved.
+ * locked first, so a save and a signing of the same draft happen one after the other, never interleaved. With a
+ * `base`, the save is refused (ReportStateError) unless the latest revision is still the one the editor loaded:
+ * two tabs saving the same draft, the second is told; a save made on a draft signed meanwhile is told.
  */
-export async function saveDraft(shopId: string, jobId: string, content: ReportContent) {
+export async function saveDraft(shopId: string, jobId: string, content: ReportContent, base?: DraftBase) {
   const allowed = new Set((await allowedAnalyses(shopId, jobId, content.analysisIds)).map((a) => a.id));
   const clean = { ...content, analysisIds: content.analysisIds.filter((id) => allowed.has(id)) };
   const db = await getDb();
   return db.transaction(async (tx) => {
     const [latest] = await tx.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.jobId, jobId))).orderBy(desc(reports.revision)).limit(1).for('update');
+    if (base && (base.revision !== (latest?.revision ?? 0) || base.version !== (latest?.version ?? 0))) throw new ReportStateError(CHANGED_ELSEWHERE);
     if (latest && latest.status === 'draft') {
-      const [r] = await tx.update(reports).set({ content: clean }).where(eq(reports.id, latest.id)).returning();
-      return r;
+      const [r] = await tx
+        .update(reports)
+        .set({ content: clean, version: latest.version + 1 })
+        .where(eq(reports.id, latest.id))
+        .returning();
+      return withoutSnapshot(r);
     }
     const [r] = await tx
       .insert(reports)
       .values({ shopId, jobId, revision: (latest?.revision ?? 0) + 1, status: 'draft', content: clean })
       .returning();
-    return r;
+    return withoutSnapshot(r);
   });
 }
 
@@ -79,7 +95,7 @@ export async function saveDraft(shopId: string, jobId: string, content: ReportCo
  * bundle as it stands is copied into the revision (the snapshot and its SHA-256), and the revision is marked
  * signed, so a save racing the signing either lands before it (and is what is signed) or starts the next revision.
  */
-export async function signReport(shopId: string, reportId: string, userId: string) {
+export async function signReport(shopId: string, reportId: string, userId: string, version?: number) {
   const db = await getDb();
   // Read before the transaction: the embedded database serves one connection, which the transaction holds.
   const shopSettings = await getShopSettings(shopId);
@@ -87,6 +103,7 @@ export async function signReport(shopId: string, reportId: string, userId: strin
     const [r] = await tx.select().from(reports).where(and(eq(reports.shopId, shopId), eq(reports.id, reportId))).for('update');
     if (!r) return null;
     if (r.status !== 'draft') throw new ReportStateError('This revision is already signed; edit the report to start a new revision.');
+    if (version !== undefined && version !== r.version) throw new ReportStateError(CHANGED_ELSEWHERE);
     if (r.content.analysisIds.length === 0) throw new ReportStateError('A report needs at least one saved analysis before it can be signed; include one.');
     const signedAt = new Date();
     const signedRow = { ...r, status: 'signed', signedBy: userId, signedAt };
@@ -95,7 +112,7 @@ export async function signReport(shopId: string, reportId: string, userId: strin
     const { text, sha256 } = writeSnapshot({ ...bundle, report: { ...signedRow, snapshot: null, snapshotSha256: null }, shopSettings });
     const [signed] = await tx
       .update(reports)
-      .set({ status: 'signed', signedBy: userId, signedAt, snapshot: text, snapshotSha256: sha256 })
+      .set({ status: 'signed', signedBy: userId, signedAt, snapshot: text, snapshotSha256: sha256, version: r.version + 1 })
       .where(and(eq(reports.id, r.id), eq(reports.status, 'draft')))
       .returning();
     return signed ? withoutSnapshot(signed) : null;

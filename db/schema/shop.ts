@@ -124,6 +124,8 @@ export const reports = pgTable(
       .references(() => jobs.id, { onDelete: 'cascade' }),
     revision: integer().notNull().default(1),
     status: text().notNull().default('draft'),
+    /** Counts the saves of this revision, and its signing: a save or a signing names the version it was made on. */
+    version: integer().notNull().default(1),
     content: jsonb().$type<ReportContent>().notNull(),
     signedBy: text().references(() => users.id, { onDelete: 'set null' }),
     signedAt: timestamp({ withTimezone: true }),

@@ -8,7 +8,6 @@ import { z } from 'zod';
 import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiPathsObject, type ZodOpenApiResponseObject } from 'zod-openapi';
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
 import { jobSchema, jobUpdateSchema, listQuerySchema } from '@/domain/job';
-import { reportContentSchema } from '@/domain/report';
 import { vehicleSchema } from '@/domain/vehicle';
 import { shopSettingsSchema } from '@/domain/shop-settings';
 import { screeningSchema } from '@/domain/screening';
@@ -20,6 +19,7 @@ import {
   inviteInput,
   memberRoleInput,
   saveAnalysisInput,
+  saveReportInput,
   sendReportInput,
   shareInput,
   signReportInput,
@@ -48,7 +48,7 @@ const analysisResult = z.looseObject({ engineVersion: z.string(), verdict: z.str
   description: 'The engine’s result: per-cylinder relative compression with a 90 % interval and a status, warnings, capture quality.',
 });
 const analysis = z.looseObject({ id, captureId: id, settings: analysisSettingsSchema, engineVersion: z.string(), fileSha256: z.string(), result: analysisResult, verdict: z.string(), createdAt: when }).meta({ id: 'Analysis' });
-const report = z.looseObject({ id, jobId: id, revision: z.number().int(), status: z.enum(['draft', 'signed']), signedAt: when.nullable() }).meta({ id: 'Report' });
+const report = z.looseObject({ id, jobId: id, revision: z.number().int(), version: z.number().int(), status: z.enum(['draft', 'signed']), signedAt: when.nullable() }).meta({ id: 'Report' });
 const shareLink = z.looseObject({ id, revision: z.number().int().optional(), expiresAt: when, revokedAt: when.nullable().optional() }).meta({ id: 'ShareLink' });
 const member = z.looseObject({ id, role: z.enum(['owner', 'technician', 'advisor']) }).meta({ id: 'Member' });
 const shop = z.object({ id, name: z.string() });
@@ -153,9 +153,9 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
   },
   '/api/jobs/{jobId}/report': {
     get: { summary: 'The job’s report: the draft or latest revision, every revision, share links and customer answers.', who: MEMBER, path: idParam('jobId'), ok: z.looseObject({ report: report.nullable(), revisions: z.array(report) }) },
-    put: { summary: 'Edits the draft (a signed report starts a new revision).', who: EDITORS, path: idParam('jobId'), body: reportContentSchema, ok: z.object({ report }), errors: [409, 413, 415] },
+    put: { summary: 'Edits the draft (a signed report starts a new revision); with `base`, a revision saved or signed since it was loaded answers 409.', who: EDITORS, path: idParam('jobId'), body: saveReportInput, ok: z.object({ report }), errors: [409, 413, 415] },
   },
-  '/api/jobs/{jobId}/report/sign': { post: { summary: 'Signs the draft as the signed-in member.', who: EDITORS, path: idParam('jobId'), body: signReportInput, ok: z.object({ report }), errors: [409, 413, 415] } },
+  '/api/jobs/{jobId}/report/sign': { post: { summary: 'Signs the draft as the signed-in member; with `version`, a draft saved since it was loaded answers 409.', who: EDITORS, path: idParam('jobId'), body: signReportInput, ok: z.object({ report }), errors: [409, 413, 415] } },
   '/api/reports/{reportId}/pdf': { get: { summary: 'The report revision as a PDF.', who: MEMBER, path: idParam('reportId'), ok: 'application/pdf' } },
   '/api/reports/{reportId}/send': {
     post: { summary: 'E-mails the PDF to one address (limits per member and shop per hour; audited).', who: MEMBER, path: idParam('reportId'), body: sendReportInput, ok: z.object({ sent: z.literal(true), to: z.string() }), errors: [413, 415] },

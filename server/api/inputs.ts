@@ -3,6 +3,7 @@
  * route, used by the route and by the published API description (server/api/description.ts).
  */
 import { z } from 'zod';
+import { reportContentSchema } from '@/domain/report';
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
 import { engineSchema } from '@/domain/vehicle';
 import { timeZoneSchema } from '@/domain/shop-settings';
@@ -11,7 +12,11 @@ export const ROLES = ['owner', 'technician', 'advisor'] as const;
 const role = z.enum(ROLES, { message: 'Choose owner, technician or advisor.' });
 
 export const saveAnalysisInput = z.object({ settings: analysisSettingsSchema });
-export const signReportInput = z.object({ reportId: z.string() });
+/** The revision and version an editor loaded (0 and 0 before the job had a report). */
+export const draftBaseInput = z.object({ revision: z.number().int().min(0).max(1_000_000), version: z.number().int().min(0).max(1_000_000_000) });
+/** A draft save: the content, and `base` (what the editor loaded) so that a save on a revision changed meanwhile is a 409. */
+export const saveReportInput = reportContentSchema.extend({ base: draftBaseInput.optional() });
+export const signReportInput = z.object({ reportId: z.string(), version: z.number().int().min(0).max(1_000_000_000).optional() });
 export const createProfileInput = z.object({ label: z.string().trim().min(2, 'Name the profile, for example "Shop V8 bank-by-bank".').max(80), engine: engineSchema });
 export const createShopInput = z.object({
   name: z.string().trim().min(2, 'Enter the shop name.').max(80, 'Keep the shop name under 80 characters.'),

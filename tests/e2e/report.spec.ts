@@ -77,3 +77,28 @@ test('a report without a saved analysis cannot be signed', async () => {
   expect(res.status()).toBe(409);
   expect((await res.json()).error.message).toMatch(/at least one saved analysis/);
 });
+
+test('two tabs on one draft: the second save is told the draft changed and keeps what was typed', async ({ page, context }) => {
+  const tech = await signIn(DEMO.technician);
+  const made = await tech.post('/api/jobs', {
+    data: { repairOrder: `TABS-${Date.now().toString(36)}`, concern: 'Two tabs.', vehicle: { make: 'Test', model: 'Tabs', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } } },
+  });
+  const { job } = await made.json();
+  await context.addCookies((await tech.storageState()).cookies);
+  const other = await context.newPage();
+  for (const p of [page, other]) {
+    await p.goto(`/jobs/${job.id}/report`);
+    await expect(p.getByLabel('Interpretation')).toBeVisible();
+  }
+  await page.getByLabel('Interpretation').fill('Typed in the first tab.');
+  await page.getByRole('button', { name: 'Save draft' }).click();
+  await expect(page.getByText(/Draft saved as revision 1/)).toBeVisible();
+  await other.getByLabel('Interpretation').fill('Typed in the second tab — “keep me”.\nLine two.');
+  await other.getByRole('button', { name: 'Save draft' }).click();
+  await expect(other.getByText(/saved or signed in another tab/)).toBeVisible();
+  // The second tab's text is still there to copy; the stored draft is the first tab's.
+  await expect(other.getByLabel('Interpretation')).toHaveValue('Typed in the second tab — “keep me”.\nLine two.');
+  const stored = await (await tech.get(`/api/jobs/${job.id}/report`)).json();
+  expect(stored.revisions).toHaveLength(1);
+  expect(stored.revisions[0].content.interpretation).toBe('Typed in the first tab.');
+});

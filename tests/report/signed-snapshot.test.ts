@@ -103,6 +103,45 @@ describe('a signed revision is a snapshot', () => {
   });
 });
 
+describe('drafts carry their version', () => {
+  const baseOf = (r: { revision: number; version: number }) => ({ revision: r.revision, version: r.version });
+
+  it('two tabs saving the same draft: one lands, the other is told, 100 times', async () => {
+    let draft = await q.saveDraft(shopId, reportJobId, content(['tabs']));
+    if (draft.status !== 'draft') draft = await q.saveDraft(shopId, reportJobId, content(['tabs']));
+    let lost = 0;
+    for (let i = 0; i < 100; i++) {
+      const base = baseOf(draft);
+      const out = await Promise.allSettled([q.saveDraft(shopId, reportJobId, content([`tab A ${i}`]), base), q.saveDraft(shopId, reportJobId, content([`tab B ${i}`]), base)]);
+      const landed = out.filter((o) => o.status === 'fulfilled');
+      const told = out.filter((o) => o.status === 'rejected' && o.reason instanceof q.ReportStateError);
+      if (landed.length !== 1 || told.length !== 1) lost++;
+      draft = (landed[0] as PromiseFulfilledResult<Awaited<ReturnType<typeof q.saveDraft>>>).value;
+      // What is stored is what the tab that landed sent.
+      const stored = (await q.reportBundle(shopId, draft.id))!.content.nextSteps[0];
+      if (stored !== draft.content.nextSteps[0]) lost++;
+    }
+    expect(lost).toBe(0);
+  });
+
+  it('a save or a signing made on a version changed meanwhile is refused; on the version loaded, it lands', async () => {
+    const loaded = await q.saveDraft(shopId, reportJobId, content(['loaded']));
+    const base = baseOf(loaded);
+    const other = await q.saveDraft(shopId, reportJobId, content(['saved in another tab']), base);
+    expect(other.version).toBe(loaded.version + 1);
+    await expect(q.signReport(shopId, loaded.id, userId, loaded.version)).rejects.toThrow(/another tab/);
+    const signed = (await q.signReport(shopId, other.id, userId, other.version))!;
+    expect(signed.status).toBe('signed');
+    // A save made on the draft as it was before the signing: refused, and the signed revision is untouched.
+    await expect(q.saveDraft(shopId, reportJobId, content(['after signing']), baseOf(other))).rejects.toThrow(/another tab/);
+    expect((await q.reportBundle(shopId, signed.id))!.content.nextSteps).toEqual(['saved in another tab']);
+    // Saving on the signed revision as loaded starts the next one.
+    const next = await q.saveDraft(shopId, reportJobId, content(['next']), baseOf(signed));
+    expect(next.revision).toBe(signed.revision + 1);
+    expect(next.version).toBe(1);
+  });
+});
+
 describe('an analysis whose capture went while it ran', () => {
   it('is not saved: null, which the route answers as 404 (never a 500)', async () => {
     const { saveAnalysis } = await import('@/db/queries/captures');

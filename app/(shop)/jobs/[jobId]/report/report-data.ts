@@ -6,6 +6,8 @@ import type { AnalysisResult } from '@/signal';
 export interface Revision {
   id: string;
   revision: number;
+  /** Counts the saves and the signing of this revision. */
+  version: number;
   status: 'draft' | 'signed';
   content: ReportContent;
   signedAt: string | null;

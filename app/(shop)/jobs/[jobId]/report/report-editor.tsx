@@ -26,36 +26,44 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
   const latest = q.data?.revisions[0];
   const [c, setC] = useState<ReportContent>(EMPTY);
   const [loadedFor, setLoadedFor] = useState<string | null>(null);
+  /** The revision and version this editor loaded or last saved: a save or signing on anything else is refused. */
+  const [base, setBase] = useState<{ id?: string; revision: number; version: number }>({ revision: 0, version: 0 });
+  /** Edits not saved yet: a revision saved elsewhere never replaces them (saving then says it changed). */
+  const [dirty, setDirty] = useState(false);
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [previewAt, setPreviewAt] = useState(0);
 
   useEffect(() => {
     if (!q.data) return;
     const id = latest ? `${latest.id}:${latest.revision}` : 'new';
-    if (loadedFor === id) return;
+    if (loadedFor === id || (dirty && loadedFor !== null)) return;
     setLoadedFor(id);
+    setBase(latest ? { id: latest.id, revision: latest.revision, version: latest.version } : { revision: 0, version: 0 });
     if (latest) setC({ ...EMPTY, ...latest.content });
     else {
       const mine = q.data.candidates.find((x) => x.jobId === jobId);
       setC({ ...EMPTY, analysisIds: mine ? [mine.id] : [], technicianName: defaultName, interpretation: mine ? interpretationFor(mine.result) : '', nextSteps: mine ? nextStepsFor(mine.result) : [] });
     }
-  }, [q.data, latest, loadedFor, jobId, defaultName]);
+  }, [q.data, latest, loadedFor, dirty, jobId, defaultName]);
 
   const refresh = () => qc.invalidateQueries({ queryKey: key });
   const save = useMutation({
-    mutationFn: () => api<{ report: Revision }>(`/api/jobs/${jobId}/report`, { method: 'PUT', json: c }),
+    mutationFn: () => api<{ report: Revision }>(`/api/jobs/${jobId}/report`, { method: 'PUT', json: { ...c, base: { revision: base.revision, version: base.version } } }),
     onSuccess: async (r) => {
       setMessage({ tone: 'ok', text: `Draft saved as revision ${r.report.revision}.` });
+      setDirty(false);
       setLoadedFor(`${r.report.id}:${r.report.revision}`);
+      setBase({ id: r.report.id, revision: r.report.revision, version: r.report.version });
       setPreviewAt(Date.now());
       await refresh();
     },
     onError: (e) => setMessage({ tone: 'error', text: errorText(e) }),
   });
   const sign = useMutation({
-    mutationFn: () => api(`/api/jobs/${jobId}/report/sign`, { method: 'POST', json: { reportId: latest!.id } }),
-    onSuccess: async () => {
-      const revision = latest!.revision;
+    mutationFn: () => api<{ report: Revision }>(`/api/jobs/${jobId}/report/sign`, { method: 'POST', json: { reportId: base.id ?? latest!.id, version: base.id ? base.version : 0 } }),
+    onSuccess: async (r) => {
+      const revision = r.report.revision;
+      setBase({ id: r.report.id, revision, version: r.report.version });
       // The page shows the signed revision everywhere before it says so.
       await refresh();
       setPreviewAt(Date.now());
@@ -69,7 +77,10 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
   const data = q.data!;
   const frozen = latest?.status === 'signed';
   const readOnly = !can.edit;
-  const set = (patch: Partial<ReportContent>) => setC({ ...c, ...patch });
+  const set = (patch: Partial<ReportContent>) => {
+    setDirty(true);
+    setC({ ...c, ...patch });
+  };
   const setCond = (patch: Partial<ReportContent['conditions']>) => set({ conditions: { ...c.conditions, ...patch } });
   const first = data.candidates.find((x) => x.id === c.analysisIds[0]);
 

@@ -2,9 +2,9 @@
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getJob } from '@/db/queries/jobs';
-import { candidateAnalyses, listApprovalsForJob, listRevisions, listShareLinksForJob, saveDraft } from '@/db/queries/reports';
-import { reportContentSchema } from '@/domain/report';
-import { notFound } from '@/server/http';
+import { candidateAnalyses, listApprovalsForJob, listRevisions, listShareLinksForJob, ReportStateError, saveDraft } from '@/db/queries/reports';
+import { saveReportInput } from '@/server/api/inputs';
+import { conflict, notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
 
 export const GET = withShop({ report: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop }) => {
@@ -18,10 +18,13 @@ export const GET = withShop({ report: ['read'] }, z.object({ jobId: z.string() }
   };
 });
 
-export const PUT = withShop({ report: ['edit'] }, reportContentSchema.extend({ jobId: z.string() }), async ({ input, shop, user }) => {
-  const { jobId, ...content } = input;
+/** Saves the draft; `base` (what the editor loaded) makes a save on a revision changed meanwhile a 409. */
+export const PUT = withShop({ report: ['edit'] }, saveReportInput.extend({ jobId: z.string() }), async ({ input, shop, user }) => {
+  const { jobId, base, ...content } = input;
   if (!(await getJob(shop.id, jobId))) throw notFound('That job');
-  const report = await saveDraft(shop.id, jobId, content);
+  const report = await saveDraft(shop.id, jobId, content, base).catch((e) => {
+    throw e instanceof ReportStateError ? conflict(e.message) : e;
+  });
   await recordAudit(shop.id, user.id, 'report.save', { type: 'report', id: report.id }, { jobId, revision: report.revision });
   return { report };
 });

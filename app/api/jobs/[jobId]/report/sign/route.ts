@@ -10,7 +10,7 @@ export const POST = withShop({ report: ['sign'] }, signReportInput.extend({ jobI
   const r = await getReport(shop.id, input.reportId);
   if (!r || r.jobId !== input.jobId) throw notFound('That report');
   try {
-    const signed = await signReport(shop.id, r.id, user.id);
+    const signed = await signReport(shop.id, r.id, user.id, input.version);
     if (!signed) throw notFound('That report');
     await recordAudit(shop.id, user.id, 'report.sign', { type: 'report', id: r.id }, { jobId: r.jobId, revision: r.revision });
     return { report: signed };
