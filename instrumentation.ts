@@ -1,21 +1,25 @@
 /**
  * At server start (Next.js calls this once per server process): the Node.js server checks that it can open the
- * embedded database, so a second server on the same data directory stops at once (server/start-check.ts).
+ * embedded database, so a second server on the same data directory stops at once (server/start-check.ts), and
+ * starts the sweep of objects left to remove (server/object-sweeper.ts).
  * Errors thrown while rendering a page are logged with their stack, the request id and Next.js's digest (the
  * reference the error page shows).
  */
 import type { Instrumentation } from 'next';
 
 export async function register(): Promise<void> {
-  if (process.env.NEXT_RUNTIME === 'nodejs') await (await import('./server/start-check')).checkStart();
+  if (process.env.NEXT_RUNTIME !== 'nodejs') return;
+  await (await import('./server/start-check')).checkStart();
+  // Objects whose rows were removed while object storage was down are removed once it answers again.
+  (await import('./server/object-sweeper')).startObjectSweeper();
 }
 
 export const onRequestError: Instrumentation.onRequestError = async (error, request, context) => {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
-  const { log } = await import('./server/log');
+  const { log, safeError } = await import('./server/log');
   const headers = request.headers as Record<string, string | string[] | undefined>;
   log.error(
-    { err: error, requestId: headers['x-request-id'], digest: (error as { digest?: string }).digest, route: context.routePath, routeType: context.routeType, method: request.method },
+    { err: safeError(error), requestId: headers['x-request-id'], digest: (error as { digest?: string }).digest, route: context.routePath, routeType: context.routeType, method: request.method },
     'error while rendering',
   );
 };

@@ -6,7 +6,7 @@
  * a new capture id and never overwritten, so several instances can share one bucket.
  */
 import { Readable } from 'node:stream';
-import { DeleteObjectsCommand, GetObjectCommand, HeadObjectCommand, NotFound, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectsCommand, GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, NotFound, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { Upload } from '@aws-sdk/lib-storage';
 
 export interface ObjectLocation {
@@ -35,7 +35,19 @@ export function parseObjectUrl(url: string): ObjectLocation {
   return { bucket: m[1], key: m[2] };
 }
 
-const g = globalThis as unknown as { __crankprintS3?: S3Client };
+const g = globalThis as unknown as { __crankprintS3?: S3Client; __crankprintS3DownUntil?: number };
+
+/** How long object storage may take to accept a connection, and stay silent during a request, before it fails. */
+export const STORAGE_TIMEOUTS = { connectMs: 5_000, idleMs: 15_000 };
+/** After a storage call failed only after the connect timeout (a silent endpoint), new requests fail at once for this long instead of each waiting out the timeouts. */
+const DOWN_FOR_MS = 15_000;
+
+/** Object storage did not answer (or refused): the routes answer 503 with this sentence. */
+export class StorageUnavailableError extends Error {
+  constructor(cause?: unknown) {
+    super('The capture storage is not answering; try again in a minute. Nothing was changed.', { cause });
+  }
+}
 
 /** The process's one S3 client. A custom endpoint (a local stand-in, MinIO, another provider) is addressed path-style. */
 export function s3(): S3Client {
@@ -43,10 +55,30 @@ export function s3(): S3Client {
   return (g.__crankprintS3 ??= new S3Client({
     region: process.env.AWS_REGION || process.env.AWS_DEFAULT_REGION || 'us-east-1',
     ...(endpoint ? { endpoint, forcePathStyle: true } : {}),
+    // A stalled endpoint fails the request after 5 s (connect) or 15 s of silence (per attempt, two attempts), never minutes.
+    requestHandler: { connectionTimeout: STORAGE_TIMEOUTS.connectMs, socketTimeout: STORAGE_TIMEOUTS.idleMs },
+    maxAttempts: 2,
     // Checksums only where S3 requires them: the SHA-256 of every file is ours, kept in the database and checked by db:check.
     requestChecksumCalculation: 'WHEN_REQUIRED',
     responseChecksumValidation: 'WHEN_REQUIRED',
   }));
+}
+
+/**
+ * Runs one storage call: while storage was recently found not answering it fails at once; a failure other than
+ * the caller's own abort becomes StorageUnavailableError (and marks storage down for a few seconds).
+ */
+async function guarded<T>(op: () => Promise<T>, signal?: AbortSignal): Promise<T> {
+  if ((g.__crankprintS3DownUntil ?? 0) > Date.now()) throw new StorageUnavailableError();
+  const started = Date.now();
+  try {
+    return await op();
+  } catch (e) {
+    if (signal?.aborted || e instanceof StorageUnavailableError) throw e;
+    // A refused connection fails at once anyway; a silent endpoint would hold every request for the timeouts.
+    if (Date.now() - started >= STORAGE_TIMEOUTS.connectMs) g.__crankprintS3DownUntil = Date.now() + DOWN_FOR_MS;
+    throw new StorageUnavailableError(e);
+  }
 }
 
 const PART_BYTES = 8 << 20;
@@ -57,19 +89,19 @@ export async function putObject(url: string, pieces: Uint8Array[], meta: { sha25
   const size = pieces.reduce((n, p) => n + p.length, 0);
   const params = { Bucket: bucket, Key: key, ContentType: meta.contentType, Metadata: { sha256: meta.sha256 } };
   if (size <= PART_BYTES) {
-    await s3().send(new PutObjectCommand({ ...params, Body: Buffer.concat(pieces, size), ContentLength: size }), { abortSignal: signal });
+    await guarded(() => s3().send(new PutObjectCommand({ ...params, Body: Buffer.concat(pieces, size), ContentLength: size }), { abortSignal: signal }), signal);
     return;
   }
   const upload = new Upload({ client: s3(), params: { ...params, Body: Readable.from(pieces) }, partSize: PART_BYTES, queueSize: 4, leavePartsOnError: false });
   signal?.addEventListener('abort', () => void upload.abort().catch(() => {}), { once: true });
-  await upload.done();
+  await guarded(() => upload.done(), signal);
 }
 
 /** The object's bytes as a web stream, with its length. */
 export async function objectStream(url: string, signal?: AbortSignal): Promise<{ stream: ReadableStream<Uint8Array>; size: number }> {
   const { bucket, key } = parseObjectUrl(url);
-  const r = await s3().send(new GetObjectCommand({ Bucket: bucket, Key: key }), { abortSignal: signal });
-  if (!r.Body) throw new Error(`${url} has no body`);
+  const r = await guarded(() => s3().send(new GetObjectCommand({ Bucket: bucket, Key: key }), { abortSignal: signal }), signal);
+  if (!r.Body) throw new StorageUnavailableError(new Error(`${url} has no body`));
   return { stream: r.Body.transformToWebStream() as ReadableStream<Uint8Array>, size: Number(r.ContentLength ?? 0) };
 }
 
@@ -89,7 +121,17 @@ export async function headObject(url: string): Promise<{ size: number; sha256?: 
     return { size: Number(r.ContentLength ?? 0), sha256: r.Metadata?.sha256 };
   } catch (e) {
     if (e instanceof NotFound || (e as { name?: string }).name === 'NotFound' || (e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404) return null;
-    throw e;
+    throw new StorageUnavailableError(e);
+  }
+}
+
+/** Whether the bucket answers a cheap listing of the capture prefix within `timeoutMs` (for the health check). */
+export async function storageAnswers(target: { bucket: string; prefix: string }, timeoutMs = 2_000): Promise<boolean> {
+  try {
+    await s3().send(new ListObjectsV2Command({ Bucket: target.bucket, Prefix: target.prefix, MaxKeys: 1 }), { abortSignal: AbortSignal.timeout(timeoutMs) });
+    return true;
+  } catch {
+    return false;
   }
 }
 
@@ -104,8 +146,8 @@ export async function deleteObjects(urls: string[]): Promise<void> {
   }
   for (const [bucket, keys] of byBucket) {
     for (let i = 0; i < keys.length; i += 1000) {
-      const r = await s3().send(new DeleteObjectsCommand({ Bucket: bucket, Delete: { Objects: keys.slice(i, i + 1000).map((Key) => ({ Key })), Quiet: true } }));
-      if (r.Errors?.length) throw new Error(`Object storage kept ${r.Errors.length} object(s): ${r.Errors[0].Message ?? r.Errors[0].Code}`);
+      const r = await guarded(() => s3().send(new DeleteObjectsCommand({ Bucket: bucket, Delete: { Objects: keys.slice(i, i + 1000).map((Key) => ({ Key })), Quiet: true } })));
+      if (r.Errors?.length) throw new StorageUnavailableError(new Error(`Object storage kept ${r.Errors.length} object(s): ${r.Errors[0].Message ?? r.Errors[0].Code}`));
     }
   }
 }

@@ -31,3 +31,24 @@ export function requestIdOf(headers: Headers): string {
 export function shortId(requestId: string): string {
   return requestId.slice(0, 8);
 }
+
+/** Characters of an error message a log line keeps: enough for the reason, never a query's parameters. */
+const MESSAGE_CHARS = 300;
+
+/**
+ * An error as a log line may hold it: name, code, the first line of its message (a failed query's text says
+ * "params: …" with the capture's result in it: cut there), the first stack frames, and the same of its cause.
+ */
+export function safeError(e: unknown, depth = 0): Record<string, unknown> | undefined {
+  if (e === undefined || e === null) return undefined;
+  if (!(e instanceof Error)) return { message: String(e).slice(0, MESSAGE_CHARS) };
+  const message = e.message.split(/\n|params:/)[0].slice(0, MESSAGE_CHARS);
+  const code = (e as { code?: unknown }).code;
+  return {
+    name: e.name,
+    ...(typeof code === 'string' || typeof code === 'number' ? { code } : {}),
+    message,
+    stack: e.stack?.split('\n').slice(1, 6).join('\n'),
+    ...(depth < 2 && e.cause ? { cause: safeError(e.cause, depth + 1) } : {}),
+  };
+}

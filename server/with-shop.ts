@@ -7,12 +7,13 @@ import { and, asc, eq } from 'drizzle-orm';
 import { type NextRequest, NextResponse } from 'next/server';
 import { z } from 'zod';
 import { getDb, shuttingDown } from '@/db/client';
+import { StorageUnavailableError } from '@/db/object-store';
 import { members, organizations, shopSettings } from '@/db/schema';
 import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { rememberMembership } from './membership-cache';
-import { log, requestIdOf, shortId } from './log';
+import { log, requestIdOf, safeError, shortId } from './log';
 import { findNul, readLimited } from './request-body';
 import { checkOrigin } from './origin';
 import { can, type Permission, type RoleName } from './permissions';
@@ -171,7 +172,11 @@ function admit(req: Request): void {
 
 function handleError(e: unknown, seen: Seen): Response {
   if (e instanceof HttpError) return errorResponse(e);
-  log.error({ err: e, requestId: seen.requestId, shopId: seen.shopId, memberId: seen.memberId }, 'unhandled error');
+  if (e instanceof StorageUnavailableError) {
+    log.warn({ err: safeError(e.cause), requestId: seen.requestId, shopId: seen.shopId }, 'object storage not answering');
+    return errorResponse(new HttpError(503, 'STORAGE_UNAVAILABLE', e.message));
+  }
+  log.error({ err: safeError(e), requestId: seen.requestId, shopId: seen.shopId, memberId: seen.memberId }, 'unhandled error');
   const err = new HttpError(500, 'INTERNAL', `Something went wrong on the server; try again, and if it keeps happening tell your shop owner the reference ${shortId(seen.requestId)}.`);
   err.detail = { requestId: seen.requestId };
   return errorResponse(err);

@@ -8,7 +8,8 @@ import { and, desc, eq } from 'drizzle-orm';
 import { readStoredPieces, type StoredPieces, storedStream } from '../capture-store';
 import { insertChunks } from '../chunks';
 import { getDb } from '../client';
-import { captureStoreTarget, deleteObjects, newCaptureUrl, putObject } from '../object-store';
+import { captureStoreTarget, newCaptureUrl, putObject } from '../object-store';
+import { flushObjectDeletes, queueObjectDeletes } from './object-deletes';
 import { analyses, captures, jobs } from '../schema';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
@@ -52,8 +53,11 @@ export async function createCapture(shopId: string, c: NewCapture, signal?: Abor
   const target = captureStoreTarget();
   const id = crypto.randomUUID();
   const storageUrl = target ? newCaptureUrl(target, shopId, id) : null;
-  const check = async (tx: Pick<typeof db, 'select'>) => {
-    const [job] = await tx.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, c.jobId)));
+  // Inside the transaction the job row is share-locked: a removal of the job waits for this capture (and then
+  // removes it with its object), or this insert waits for the removal and finds no job.
+  const check = async (tx: Pick<typeof db, 'select'>, lock = false) => {
+    const query = tx.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, c.jobId)));
+    const [job] = lock ? await query.for('share') : await query;
     if (!job) return false;
     const [dupe] = await tx.select({ id: captures.id }).from(captures).where(and(eq(captures.jobId, c.jobId), eq(captures.sha256, c.sha256)));
     if (dupe) throw new DuplicateCaptureError(dupe.id);
@@ -65,8 +69,8 @@ export async function createCapture(shopId: string, c: NewCapture, signal?: Abor
     await putObject(storageUrl, c.pieces, { sha256: c.sha256, contentType: c.contentType }, signal);
   }
   try {
-    return await db.transaction(async (tx) => {
-      if (!(await check(tx))) return null;
+    const row = await db.transaction(async (tx) => {
+      if (!(await check(tx, true))) return null;
       const [row] = await tx
         .insert(captures)
         .values({
@@ -87,10 +91,20 @@ export async function createCapture(shopId: string, c: NewCapture, signal?: Abor
       await tx.update(jobs).set({ updatedAt: new Date() }).where(eq(jobs.id, c.jobId));
       return row;
     });
+    // The job went while the object was written: the object goes too, before the answer.
+    if (!row && storageUrl) await removeOrQueue(storageUrl);
+    return row;
   } catch (e) {
-    if (storageUrl) await deleteObjects([storageUrl]).catch(() => {});
+    if (storageUrl) await removeOrQueue(storageUrl);
     throw e;
   }
+}
+
+/** Removes an object that no row names; queued for a retry if storage does not remove it now. */
+async function removeOrQueue(url: string): Promise<void> {
+  const db = await getDb();
+  await queueObjectDeletes(db, [url]);
+  await flushObjectDeletes([url]);
 }
 
 export async function listCaptures(shopId: string, jobId: string) {

@@ -2,9 +2,9 @@
 import 'server-only';
 import { and, desc, eq, ilike, or, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
-import { deleteObjects } from '../object-store';
-import { captures, jobs, vehicles } from '../schema';
+import { auditEvents, captures, jobs, vehicles } from '../schema';
 import type { JobValues } from '@/domain/job';
+import { flushObjectDeletes, queueObjectDeletes } from './object-deletes';
 import { engineSpec } from './vehicles';
 
 export class DuplicateRepairOrderError extends Error {}
@@ -92,21 +92,26 @@ export async function updateJob(shopId: string, jobId: string, patch: { status?:
 }
 
 /**
- * Removes a job with its captures, analyses, report and share links (the rows cascade), then the captures' objects
- * in object storage. The rows go first: an object left behind by a failed delete costs storage, a row whose
- * object is gone would be a broken capture. Returns the number of captures removed, or null for another shop's job.
+ * Removes a job with its captures, analyses, report and share links, in one transaction with its activity line:
+ * the job row is locked, the captures' objects are queued for removal, the rows go (they cascade). Then the
+ * objects are removed from object storage; any that storage does not remove now stay queued and are retried
+ * (db/queries/object-deletes.ts), so the removal never fails once its rows are gone. A signed report elsewhere
+ * that cites these analyses keeps its snapshot. Returns the number of captures removed, or null for another
+ * shop's job.
  */
-export async function deleteJob(shopId: string, jobId: string): Promise<{ captures: number } | null> {
+export async function deleteJob(shopId: string, jobId: string, actorId: string | null = null): Promise<{ captures: number; objectsLeft: number } | null> {
   const db = await getDb();
   const removed = await db.transaction(async (tx) => {
-    const [job] = await tx.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+    const [job] = await tx.select({ id: jobs.id, repairOrder: jobs.repairOrder }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId))).for('update');
     if (!job) return null;
     const rows = await tx.select({ storageUrl: captures.storageUrl }).from(captures).where(and(eq(captures.shopId, shopId), eq(captures.jobId, jobId)));
+    const urls = rows.flatMap((r) => (r.storageUrl ? [r.storageUrl] : []));
+    await tx.insert(auditEvents).values({ shopId, actorId, action: 'job.delete', subjectType: 'job', subjectId: job.id, detail: { repairOrder: job.repairOrder, captures: rows.length } });
+    await queueObjectDeletes(tx, urls);
     await tx.delete(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
-    return rows;
+    return { captures: rows.length, urls };
   });
   if (!removed) return null;
-  const urls = removed.flatMap((r) => (r.storageUrl ? [r.storageUrl] : []));
-  if (urls.length) await deleteObjects(urls);
-  return { captures: removed.length };
+  const { left } = removed.urls.length ? await flushObjectDeletes(removed.urls) : { left: 0 };
+  return { captures: removed.captures, objectsLeft: left };
 }

@@ -5,7 +5,7 @@
  */
 import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
-import { and, desc, eq, gt, inArray, isNull } from 'drizzle-orm';
+import { and, desc, eq, gt, inArray, isNull, ne } from 'drizzle-orm';
 import { getDb } from '../client';
 import { analyses, approvals, captures, jobs, organizations, reports, shareLinks, users, vehicles } from '../schema';
 import type { ReportContent } from '@/domain/report';
@@ -233,6 +233,31 @@ export async function listApprovalsForJob(shopId: string, jobId: string) {
     .innerJoin(reports, eq(approvals.reportId, reports.id))
     .where(and(eq(approvals.shopId, shopId), eq(reports.jobId, jobId)))
     .orderBy(desc(approvals.createdAt));
+}
+
+/**
+ * Report revisions on other jobs that include an analysis of this job's captures, for the removal dialog: signed
+ * ones keep what they cite (their snapshot), drafts lose it. Oldest job first, then by revision.
+ */
+export async function reportsCitingJob(shopId: string, jobId: string) {
+  const db = await getDb();
+  const [job] = await db.select({ vehicleId: jobs.vehicleId }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)));
+  if (!job) return [];
+  const own = await db
+    .select({ id: analyses.id })
+    .from(analyses)
+    .innerJoin(captures, eq(analyses.captureId, captures.id))
+    .where(and(eq(analyses.shopId, shopId), eq(captures.jobId, jobId)));
+  if (own.length === 0) return [];
+  const ids = new Set(own.map((a) => a.id));
+  // A report cites analyses of its own vehicle only: the other jobs of this vehicle are all there is to read.
+  const rows = await db
+    .select({ jobId: jobs.id, repairOrder: jobs.repairOrder, revision: reports.revision, status: reports.status, content: reports.content })
+    .from(reports)
+    .innerJoin(jobs, eq(reports.jobId, jobs.id))
+    .where(and(eq(reports.shopId, shopId), eq(jobs.vehicleId, job.vehicleId), ne(jobs.id, jobId)))
+    .orderBy(jobs.createdAt, reports.revision);
+  return rows.filter((r) => r.content.analysisIds.some((id) => ids.has(id))).map(({ content, ...r }) => (void content, r as typeof r & { status: 'draft' | 'signed' }));
 }
 
 /** Saved analyses the report can include: every capture on jobs of this job's vehicle, newest first. */

@@ -1,3 +1,4 @@
 export * from './auth';
 export * from './shop';
 export * from './limits';
+export * from './storage';

@@ -127,7 +127,7 @@ describe('captures in object storage', () => {
     const urls = (await db.select({ u: captures.storageUrl }).from(captures).where(eq(captures.jobId, jobId))).map((r) => r.u!);
     expect(urls.length).toBe(2);
     expect(await deleteJob('another-shop', jobId)).toBeNull();
-    expect(await deleteJob(shopId, jobId)).toEqual({ captures: 2 });
+    expect(await deleteJob(shopId, jobId)).toEqual({ captures: 2, objectsLeft: 0 });
     for (const u of urls) expect(await headObject(u)).toBeNull();
     expect(await db.select().from(captures).where(and(eq(captures.shopId, shopId), eq(captures.jobId, jobId)))).toEqual([]);
     expect(await objectCount()).toBe(0);

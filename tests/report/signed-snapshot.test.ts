@@ -58,6 +58,9 @@ describe('a signed revision is a snapshot', () => {
     expect(atSigning!.analyses).toHaveLength(1);
     expect(atSigning!.job.concern).toContain('Second line.');
 
+    // The removal dialog of the cited job names the signed revision that cites it.
+    expect(await q.reportsCitingJob(shopId, citedJobId)).toEqual([{ jobId: reportJobId, repairOrder: 'RO-SNAPSHOT-1', revision: signed.revision, status: 'signed' }]);
+    expect(await q.reportsCitingJob('another-shop', citedJobId)).toEqual([]);
     await jobsQ.updateJob(shopId, reportJobId, { concern: 'Changed after signing', odometer: 1 });
     await db.update(schema.users).set({ name: 'Someone Else' }).where(eq(schema.users.id, userId));
     expect(await jobsQ.deleteJob(shopId, citedJobId)).not.toBeNull();

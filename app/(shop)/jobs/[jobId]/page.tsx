@@ -6,7 +6,7 @@ import { listShopActivity } from '@/db/queries/audit';
 import { ActivityList } from '@/components/activity/activity-list';
 import { latestAnalysesForJob, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
-import { listApprovalsForJob, listRevisions } from '@/db/queries/reports';
+import { listApprovalsForJob, listRevisions, reportsCitingJob } from '@/db/queries/reports';
 import { buttonClass } from '@/components/ui/button';
 import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
 import { CaptureUpload } from './_components/capture-upload';
@@ -28,7 +28,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
     .filter((a) => a.subjectId === job.id || (a.detail as { jobId?: string } | null)?.jobId === job.id || (a.detail as { captureId?: string } | null)?.captureId && captureIds.has((a.detail as { captureId: string }).captureId))
     .slice(0, 20);
   const canUpload = m.can({ capture: ['upload'] });
-  const [revisions, approvals] = await Promise.all([listRevisions(m.shop.id, job.id), listApprovalsForJob(m.shop.id, job.id)]);
+  const [revisions, approvals, citing] = await Promise.all([listRevisions(m.shop.id, job.id), listApprovalsForJob(m.shop.id, job.id), reportsCitingJob(m.shop.id, job.id)]);
   const v = job.vehicle;
   const e = v.engine;
   return (
@@ -123,7 +123,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           <h2 id="remove" className="text-lg font-bold">
             Remove
           </h2>
-          <RemoveJob jobId={job.id} repairOrder={job.repairOrder} captures={captures.length} />
+          <RemoveJob jobId={job.id} repairOrder={job.repairOrder} captures={captures.length} citedBy={citing} />
         </section>
       )}
     </div>

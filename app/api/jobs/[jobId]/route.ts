@@ -20,10 +20,9 @@ export const PATCH = withShop({ job: ['update'] }, jobUpdateSchema.extend({ jobI
   return { job };
 });
 
+/** Removes the job (its activity line in the same transaction); objects storage could not remove now are retried later. */
 export const DELETE = withShop({ job: ['delete'] }, z.object({ jobId: z.string() }), async ({ input, shop, user }) => {
-  const job = await getJob(shop.id, input.jobId);
-  const removed = job && (await deleteJob(shop.id, input.jobId));
-  if (!job || !removed) throw notFound('That job');
-  await recordAudit(shop.id, user.id, 'job.delete', { type: 'job', id: job.id }, { repairOrder: job.repairOrder, captures: removed.captures });
-  return { removed: { jobId: job.id, captures: removed.captures } };
+  const removed = await deleteJob(shop.id, input.jobId, user.id);
+  if (!removed) throw notFound('That job');
+  return { removed: { jobId: input.jobId, captures: removed.captures } };
 });

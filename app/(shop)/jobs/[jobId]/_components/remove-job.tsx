@@ -8,7 +8,17 @@ import { useId, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { useRemoveJob } from '@/components/data/jobs/remove-job-mutation';
 
-export function RemoveJob({ jobId, repairOrder, captures }: { jobId: string; repairOrder: string; captures: number }) {
+/** A report revision on another job that includes one of this job's analyses. */
+export interface CitingRevision {
+  jobId: string;
+  repairOrder: string;
+  revision: number;
+  status: 'draft' | 'signed';
+}
+
+export function RemoveJob({ jobId, repairOrder, captures, citedBy }: { jobId: string; repairOrder: string; captures: number; citedBy: CitingRevision[] }) {
+  const signed = citedBy.filter((r) => r.status === 'signed');
+  const drafts = citedBy.filter((r) => r.status === 'draft');
   const [open, setOpen] = useState(false);
   const [typed, setTyped] = useState('');
   const remove = useRemoveJob();
@@ -34,6 +44,20 @@ export function RemoveJob({ jobId, repairOrder, captures }: { jobId: string; rep
         analysis, every report revision and every customer link. It cannot be undone; the shop activity keeps a line saying who removed it. A report already sent to the customer
         stays in their inbox.
       </p>
+      {citedBy.length > 0 && (
+        <div data-testid="removal-citations" className="flex flex-col gap-1">
+          {signed.length > 0 && (
+            <p>
+              Signed reports that include its analyses keep them exactly as signed: <Revisions list={signed} />.
+            </p>
+          )}
+          {drafts.length > 0 && (
+            <p>
+              Draft reports that include its analyses will no longer show them: <Revisions list={drafts} />.
+            </p>
+          )}
+        </div>
+      )}
       <label htmlFor={inputId} className="font-bold">
         Type the repair-order number <span className="figures">{repairOrder}</span> to confirm
       </label>
@@ -52,5 +76,21 @@ export function RemoveJob({ jobId, repairOrder, captures }: { jobId: string; rep
         </Button>
       </div>
     </form>
+  );
+}
+
+function Revisions({ list }: { list: CitingRevision[] }) {
+  return (
+    <>
+      {list.map((r, i) => (
+        <span key={`${r.jobId}:${r.revision}`}>
+          {i > 0 ? ', ' : ''}
+          <a className="figures font-bold underline" href={`/jobs/${r.jobId}/report`}>
+            {r.repairOrder}
+          </a>{' '}
+          revision {r.revision}
+        </span>
+      ))}
+    </>
   );
 }
