@@ -1,6 +1,13 @@
+import { execFileSync } from 'node:child_process';
 import { defineConfig } from '@playwright/test';
 
-const port = process.env.E2E_PORT || '3210';
+/** A port of 127.0.0.1 that nothing holds now (asked of a child process: the config is read synchronously). */
+const freePort = () =>
+  execFileSync(process.execPath, ['-e', "const s=require('net').createServer();s.listen(0,'127.0.0.1',()=>{process.stdout.write(String(s.address().port));s.close()})"], { encoding: 'utf8' });
+// Chosen once, in the runner; the test workers and the web server inherit them.
+process.env.E2E_PORT ||= freePort();
+process.env.MAIL_SINK_PORT ||= freePort();
+const port = process.env.E2E_PORT;
 export const BASE_URL = `http://127.0.0.1:${port}`;
 
 export default defineConfig({

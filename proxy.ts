@@ -17,14 +17,7 @@ export function proxy(request: NextRequest): NextResponse {
   return response;
 }
 
+// Every page response carries the policy, prefetches included (a prefetched page is shown without asking again).
 export const config = {
-  matcher: [
-    {
-      source: '/((?!api/|_next/static|_next/image|icon.svg).*)',
-      missing: [
-        { type: 'header', key: 'next-router-prefetch' },
-        { type: 'header', key: 'purpose', value: 'prefetch' },
-      ],
-    },
-  ],
+  matcher: ['/((?!api/|_next/static|_next/image|icon.svg).*)'],
 };

@@ -61,8 +61,9 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
       requireEmailVerification: true,
       minPasswordLength: 10,
       revokeSessionsOnPasswordReset: true,
+      // Not awaited: the answer must not take longer for an account that exists (see the auth route's floor).
       sendResetPassword: async ({ user, url }) => {
-        await sendMail({
+        void sendMailLogged({
           to: user.email,
           subject: 'Reset your Crankprint password',
           text: `Someone asked to reset the password for ${user.email}. If it was you, open this link within an hour:\n${url}\nIf it was not you, ignore this message.`,
@@ -80,10 +81,10 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
         });
       },
     },
-    // The session rides in a signed cookie for 2 minutes, so most requests skip its lookup (bench:load). Sign-out
-    // clears it at once; a session revoked elsewhere lasts at most that long. Shop membership and role are
-    // read from the database on every request (server/with-shop.ts), so removing a member takes effect at once.
-    session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24, cookieCache: { enabled: true, maxAge: 120 } },
+    // Every request looks its session up (no cookie cache): a sign-out, a password reset or a revoked session
+    // ends a copied cookie at once. Shop membership and role are read from the database on every request
+    // (server/with-shop.ts), so removing a member takes effect at once too.
+    session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24, cookieCache: { enabled: false } },
     databaseHooks: {
       session: {
         create: {
@@ -112,6 +113,14 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
       nextCookies(),
     ],
   });
+}
+
+/** Sends a message without the caller waiting; a failure is logged (without the message's link). */
+function sendMailLogged(message: Parameters<typeof sendMail>[0]): Promise<void> {
+  return sendMail(message).then(
+    () => undefined,
+    (e: Error) => log.warn({ reason: e.message.split('\n')[0].slice(0, 300), subject: message.subject }, 'mail not sent'),
+  );
 }
 
 export type Auth = ReturnType<typeof build>;

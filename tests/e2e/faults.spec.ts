@@ -12,11 +12,12 @@ import { join } from 'node:path';
 import { expect, test } from '@playwright/test';
 import { simulateCranking } from '../../signal/sim/simulate';
 import { simToCsv } from '../../signal/sim/to-csv';
-import { exited, signInCookie, startApp, waitReady } from '../../scripts/app-server';
+import { exited, freePort, signInCookie, startApp, waitReady } from '../../scripts/app-server';
 import { DEMO } from './helpers';
 
-const PORT = 3217;
-const BASE = `http://127.0.0.1:${PORT}`;
+// A port nothing holds, chosen before the tests (each server of this file starts on it in turn).
+let PORT = 0;
+let BASE = '';
 const DATA = '.e2e/faults';
 const ROUNDS = 20;
 
@@ -46,7 +47,9 @@ const capture = () => Buffer.from(`${base}6.1${String(++serial).padStart(6, '0')
 test.describe.configure({ mode: 'serial' });
 test.skip(!!(process.env.CRANKPRINT_TEST_PG_URL || process.env.DATABASE_URL), "these are the embedded database's faults: a PostgreSQL server has its own write-ahead log and locking");
 
-test.beforeAll(() => {
+test.beforeAll(async () => {
+  PORT = await freePort();
+  BASE = `http://127.0.0.1:${PORT}`;
   rmSync(DATA, { recursive: true, force: true });
   mkdirSync(DATA, { recursive: true });
 });

@@ -7,11 +7,10 @@
 import { request as httpRequest } from 'node:http';
 import { rmSync } from 'node:fs';
 import { expect, test } from '@playwright/test';
-import { exited, startApp, waitReady } from '../../scripts/app-server';
+import { exited, freePort, startApp, waitReady } from '../../scripts/app-server';
 import { createDatabase } from '../../scripts/pg-server.mjs';
 
-const PORT = 3219;
-const BASE = `http://127.0.0.1:${PORT}`;
+let BASE = '';
 const DATA = '.e2e/limits';
 const PROXY = '127.0.0.9';
 
@@ -54,7 +53,9 @@ test.beforeAll(async () => {
   const env: Record<string, string> = { CRANKPRINT_DATA_DIR: DATA, CRANKPRINT_RATE_LIMIT_SCALE: '1', CRANKPRINT_TRUSTED_PROXIES: PROXY };
   // The PostgreSQL pass: the counts live in the database, as several instances would share them.
   if (process.env.CRANKPRINT_TEST_PG_URL) env.DATABASE_URL = await createDatabase(process.env.CRANKPRINT_TEST_PG_URL, 'limits');
-  server = startApp(PORT, env, { logs: true });
+  const port = await freePort();
+  BASE = `http://127.0.0.1:${port}`;
+  server = startApp(port, env, { logs: true });
   await waitReady(server);
 });
 
@@ -74,6 +75,15 @@ test('sign-in: ten wrong passwords a minute per client, whatever X-Forwarded-For
   // Another address is a client of its own, and the right password still works there.
   const other = await hit('127.0.0.3', 'POST', '/api/auth/sign-in/email', { json: { ...wrongPassword, password: 'crank-demo-2026' } });
   expect(other.status).toBe(200);
+});
+
+test('changing a password spends the sign-in budget: five wrong sign-ins and five change attempts, then 429', async () => {
+  for (let i = 0; i < 5; i++) expect((await hit('127.0.0.4', 'POST', '/api/auth/sign-in/email', { json: wrongPassword })).status).toBe(401);
+  for (let i = 0; i < 5; i++) {
+    const r = await hit('127.0.0.4', 'POST', '/api/auth/change-password', { json: { currentPassword: 'guess-number-' + i, newPassword: 'another-password-1' } });
+    expect(r.status).toBe(401);
+  }
+  expect((await hit('127.0.0.4', 'POST', '/api/auth/change-password', { json: { currentPassword: 'one-more-guess', newPassword: 'another-password-1' } })).status).toBe(429);
 });
 
 test('share links: the page and the API spend one budget of 30 a minute; a rotating header does not reset it', async () => {

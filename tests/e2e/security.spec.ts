@@ -14,6 +14,15 @@ test('pages carry a CSP with frame-ancestors none, no-sniff and a referrer polic
   expect(h['x-content-type-options']).toBe('nosniff');
   expect(h['referrer-policy']).toBe('strict-origin-when-cross-origin');
   expect(h['x-powered-by']).toBeUndefined();
+  // Prefetched pages too: a browser shows them later without asking again.
+  const tech = await signIn(DEMO.technician);
+  const prefetches: Record<string, string>[] = [{ purpose: 'prefetch' }, { 'next-router-prefetch': '1', rsc: '1' }, { 'sec-purpose': 'prefetch' }];
+  for (const headers of prefetches) {
+    for (const path of ['/sign-in', '/jobs']) {
+      const r = await (path === '/jobs' ? tech : anon).get(path, { headers });
+      expect(r.headers()['content-security-policy'], `${path} ${JSON.stringify(headers)}`).toContain("frame-ancestors 'none'");
+    }
+  }
 });
 
 test('the health check names the database this pass runs on, and tells no more', async () => {

@@ -3,8 +3,8 @@
  * technician, who signs up, accepts, creates a job and finds it in the list. Screenshots go to artifacts/.
  */
 import { mkdirSync } from 'node:fs';
-import { expect, type Page, test } from '@playwright/test';
-import { DEMO, DEMO_PASSWORD, signIn, unique, waitForMail } from './helpers';
+import { expect, type Page, request, test } from '@playwright/test';
+import { BASE_URL, DEMO, DEMO_PASSWORD, newContext, signIn, unique, waitForMail } from './helpers';
 
 mkdirSync('artifacts/screens', { recursive: true });
 const shot = (page: Page, name: string) => page.screenshot({ path: `artifacts/screens/${name}.png`, fullPage: true });
@@ -125,7 +125,9 @@ test('an advisor reads jobs but is not offered, and cannot open, job creation', 
   await shot(page, 'jobs-dark');
 });
 
-test('password reset through the e-mailed link', async ({ page }) => {
+test('password reset through the e-mailed link; a session cookie copied before it stops working at once', async ({ page }) => {
+  const before = await signIn(DEMO.advisor);
+  expect((await before.get('/api/jobs')).status()).toBe(200);
   await page.goto('/forgot-password');
   await page.getByLabel('E-mail').fill(DEMO.advisor);
   await page.getByRole('button', { name: 'Send the reset link' }).click();
@@ -137,6 +139,29 @@ test('password reset through the e-mailed link', async ({ page }) => {
   await page.getByLabel('New password again').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Save the new password' }).click();
   await expect(page.getByText('Your password is changed.')).toBeVisible();
+  // The reset ended every session of the account, the copied cookie's included.
+  expect((await before.get('/api/jobs')).status()).toBe(401);
+});
+
+test('signing out ends a copied session cookie at once', async () => {
+  const a = await signIn(DEMO.technician);
+  const cookies = (await a.storageState()).cookies;
+  const b = await request.newContext({ baseURL: BASE_URL, extraHTTPHeaders: { origin: BASE_URL, cookie: cookies.map((c) => `${c.name}=${c.value}`).join('; ') } });
+  expect((await b.get('/api/jobs')).status()).toBe(200);
+  expect((await a.post('/api/auth/sign-out', { data: {} })).status()).toBe(200);
+  expect((await b.get('/api/jobs')).status()).toBe(401);
+});
+
+test('a reset request takes as long for an unknown e-mail as for a known one (both at least the 400 ms floor)', async () => {
+  const anon = await newContext();
+  for (const email of [DEMO.owner, 'nobody-here@example.com']) {
+    const t0 = Date.now();
+    const res = await anon.post('/api/auth/request-password-reset', { data: { email, redirectTo: '/reset-password' } });
+    const took = Date.now() - t0;
+    expect(res.status(), email).toBe(200);
+    // The floor is set in app/api/auth/[...all]/route.ts; a lower bound does not depend on the machine's speed.
+    expect(took, email).toBeGreaterThanOrEqual(400);
+  }
 });
 
 test('the last owner can be neither demoted nor removed', async () => {

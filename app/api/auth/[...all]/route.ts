@@ -11,11 +11,17 @@ import { readLimited } from '@/server/request-body';
 
 /** Which budget a POST to better-auth spends, by the path after /api/auth. */
 function purposeOf(path: string): Purpose {
-  if (path.startsWith('/sign-in')) return 'sign-in';
+  // Everything that checks a password spends the sign-in budget.
+  if (path.startsWith('/sign-in') || path === '/change-password' || path === '/change-email' || path === '/delete-user') return 'sign-in';
   if (path.startsWith('/sign-up')) return 'sign-up';
   if (path === '/request-password-reset' || path === '/reset-password' || path === '/send-verification-email') return 'password-reset';
   return 'auth';
 }
+
+/** The least time a password-reset request takes: longer than its work takes, so both answers take the same. */
+const RESET_FLOOR_MS = 400;
+
+const waitUntil = (at: number) => new Promise((r) => setTimeout(r, Math.max(0, at - performance.now())));
 
 async function handle(req: Request): Promise<Response> {
   try {
@@ -26,7 +32,10 @@ async function handle(req: Request): Promise<Response> {
       forward = new Request(req.url, { method: req.method, headers: req.headers, body: body as unknown as BodyInit, signal: req.signal });
     }
     const auth = await getAuth();
+    const started = performance.now();
     const res = await auth.handler(forward);
+    // A reset request answers no sooner than the floor, whether the account exists or not.
+    if (req.method === 'POST' && new URL(req.url).pathname.endsWith('/request-password-reset')) await waitUntil(started + RESET_FLOOR_MS);
     // Accepting an invitation or switching shops changes who is a member where.
     if (req.method === 'POST' && req.url.includes('/organization/')) forgetMemberships();
     return res;
