@@ -10,7 +10,7 @@ import { organization } from 'better-auth/plugins';
 import { getDb } from '@/db/client';
 import * as schema from '@/db/schema';
 import { recordAudit } from '@/db/queries/audit';
-import { log } from './log';
+import { authLogLine, log } from './log';
 import { sendMail } from './mail';
 import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
 import { ac, roles } from './permissions';
@@ -42,6 +42,8 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
     // Counted per client and purpose in the auth route (server/rate-limit.ts), shared across instances.
     rateLimit: { enabled: false },
     appName: 'Crankprint',
+    // Its lines go through our log as JSON, with the request id (server/log.ts).
+    logger: { level: 'warn', log: authLogLine },
     baseURL: APP_URL,
     secret: process.env.BETTER_AUTH_SECRET,
     database: drizzleAdapter(db, { provider: 'pg', schema, usePlural: true }),

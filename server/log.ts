@@ -5,6 +5,7 @@
  * written below are logged, and the usual secret fields are redacted should one slip into an error.
  */
 import 'server-only';
+import { AsyncLocalStorage } from 'node:async_hooks';
 import pino, { type Logger } from 'pino';
 import pretty from 'pino-pretty';
 
@@ -48,7 +49,30 @@ export function safeError(e: unknown, depth = 0): Record<string, unknown> | unde
     name: e.name,
     ...(typeof code === 'string' || typeof code === 'number' ? { code } : {}),
     message,
-    stack: e.stack?.split('\n').slice(1, 6).join('\n'),
+    // Frames only: a stack begins with the whole message, parameters included.
+    stack: e.stack
+      ?.split('\n')
+      .filter((l) => /^\s+at /.test(l))
+      .slice(0, 5)
+      .join('\n'),
     ...(depth < 2 && e.cause ? { cause: safeError(e.cause, depth + 1) } : {}),
   };
+}
+
+const requests = ((globalThis as unknown as { __crankprintRequests?: AsyncLocalStorage<{ requestId: string }> }).__crankprintRequests ??= new AsyncLocalStorage());
+
+/** Runs `fn` as the work of one request: lines logged inside it (better-auth's included) carry its id. */
+export function inRequest<T>(requestId: string, fn: () => T): T {
+  return requests.run({ requestId }, fn);
+}
+
+/** The id of the request whose work is running, if any. */
+export function currentRequestId(): string | undefined {
+  return requests.getStore()?.requestId;
+}
+
+/** better-auth's lines, through this log with the request id; an error argument is kept as safeError keeps it, nothing else. */
+export function authLogLine(level: 'debug' | 'info' | 'warn' | 'error', message: string, ...args: unknown[]): void {
+  const err = args.find((a) => a instanceof Error);
+  log[level]({ requestId: currentRequestId() ?? '-', source: 'better-auth', ...(err ? { err: safeError(err) } : {}) }, message);
 }

@@ -13,7 +13,7 @@ import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { rememberMembership } from './membership-cache';
-import { log, requestIdOf, safeError, shortId } from './log';
+import { inRequest, log, requestIdOf, safeError, shortId } from './log';
 import { findNul, readLimited } from './request-body';
 import { checkOrigin } from './origin';
 import { can, type Permission, type RoleName } from './permissions';
@@ -137,7 +137,12 @@ function describe(permission: Permission): string {
  * the typed error body. With `rawBody` the handler streams the body itself and may stop part-way: on an error
  * the rest is let go and the connection closed, so the client hears the answer.
  */
-async function respond(req: NextRequest, work: (seen: Seen) => Promise<unknown>, rawBody = false): Promise<Response> {
+function respond(req: NextRequest, work: (seen: Seen) => Promise<unknown>, rawBody = false): Promise<Response> {
+  // Lines logged during the work (better-auth's included) carry the request id.
+  return inRequest(requestIdOf(req.headers), () => respondInRequest(req, work, rawBody));
+}
+
+async function respondInRequest(req: NextRequest, work: (seen: Seen) => Promise<unknown>, rawBody: boolean): Promise<Response> {
   const started = performance.now();
   const seen: Seen = { requestId: requestIdOf(req.headers) };
   let res: Response;

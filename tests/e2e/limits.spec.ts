@@ -138,4 +138,11 @@ test('every API request is one JSON log line with its request id, route, status,
   const anonId = anon.headers.get('x-request-id')!;
   await expect.poll(() => server.lines.some((l) => l.includes(anonId)), { timeout: 5_000 }).toBe(true);
   expect(JSON.parse(server.lines.find((l) => l.includes(anonId))!)).toMatchObject({ status: 401, route: '/api/jobs' });
+  // better-auth's own line for a wrong password: JSON through the same log, with that request's id.
+  const wrong = await fetch(`${BASE}/api/auth/sign-in/email`, { method: 'POST', headers: { origin: BASE, 'content-type': 'application/json' }, body: JSON.stringify(wrongPassword) });
+  const wrongId = wrong.headers.get('x-request-id')!;
+  await expect.poll(() => server.lines.some((l) => l.includes(wrongId) && l.includes('better-auth')), { timeout: 5_000 }).toBe(true);
+  expect(JSON.parse(server.lines.find((l) => l.includes(wrongId) && l.includes('better-auth'))!)).toMatchObject({ requestId: wrongId, source: 'better-auth', level: 40 });
+  // None of better-auth's own coloured lines.
+  expect(server.lines.filter((l) => l.includes('[Better Auth]'))).toEqual([]);
 });

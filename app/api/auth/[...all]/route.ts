@@ -8,6 +8,7 @@ import { errorResponse, HttpError } from '@/server/http';
 import { forgetMemberships } from '@/server/membership-cache';
 import { type Purpose, spend } from '@/server/rate-limit';
 import { readLimited } from '@/server/request-body';
+import { inRequest, requestIdOf } from '@/server/log';
 
 /** Which budget a POST to better-auth spends, by the path after /api/auth. */
 function purposeOf(path: string): Purpose {
@@ -45,4 +46,6 @@ async function handle(req: Request): Promise<Response> {
   }
 }
 
-export { handle as GET, handle as POST };
+/** Each request runs with its id, so better-auth's own lines carry it. */
+const GET = (req: Request) => inRequest(requestIdOf(req.headers), () => handle(req));
+export { GET, GET as POST };
