@@ -5,7 +5,7 @@
  */
 import { createHash } from 'node:crypto';
 import type { Db } from './db-type';
-import { readPackedChunks, unpackPieces } from './chunks';
+import { readPackedChunks, unpackedChunkStream, unpackPieces } from './chunks';
 import { headObject, objectStream, readObject } from './object-store';
 
 export interface StoredCaptureRef {
@@ -31,11 +31,10 @@ export function joinStoredPieces(s: StoredPieces): Uint8Array {
   return unpackPieces(s.pieces, s.size, s.gzip);
 }
 
-/** The raw file as a stream: straight from object storage, or unpacked from the database's chunks. */
+/** The raw file as a stream with backpressure: straight from object storage, or unpacked chunk by chunk from the database. */
 export async function storedStream(db: Pick<Db, 'select'>, c: StoredCaptureRef, signal?: AbortSignal): Promise<ReadableStream<Uint8Array>> {
   if (c.storageUrl) return (await objectStream(c.storageUrl, signal)).stream;
-  const bytes = joinStoredPieces(await readStoredPieces(db, c));
-  return new Blob([bytes as Uint8Array<ArrayBuffer>]).stream();
+  return unpackedChunkStream(db, c.id);
 }
 
 /** What is wrong with a stored capture's bytes against its recorded size and SHA-256, or undefined when whole. */
@@ -50,9 +49,10 @@ export async function storedProblem(db: Pick<Db, 'select'>, c: StoredCaptureRef 
       size += piece.length;
     }
   } else {
-    const bytes = joinStoredPieces(await readStoredPieces(db, c));
-    hash.update(bytes);
-    size = bytes.length;
+    for await (const piece of unpackedChunkStream(db, c.id) as unknown as AsyncIterable<Uint8Array>) {
+      hash.update(piece);
+      size += piece.length;
+    }
   }
   if (size !== c.sizeBytes) return `${size} bytes are stored where ${c.sizeBytes} were uploaded`;
   if (hash.digest('hex') !== c.sha256) return 'the stored bytes do not match the SHA-256 recorded at upload';

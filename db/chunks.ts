@@ -2,7 +2,8 @@
  * Capture bytes as chunk rows. The bytes cross to the database as base64 text decoded in SQL: PGlite's own
  * bytea parameter encoding is about 14× slower for megabyte chunks (measured here), and a server takes it alike.
  */
-import { gunzipSync, gzipSync } from 'node:zlib';
+import { promisify } from 'node:util';
+import { gunzip, gunzipSync, gzipSync } from 'node:zlib';
 import { and, asc, eq, gte, lt, sql } from 'drizzle-orm';
 import type { Db } from './db-type';
 import { captureChunks } from './schema';
@@ -26,16 +27,22 @@ export async function insertChunks(db: Pick<Db, 'insert'>, captureId: string, ch
 /** Pieces read per query: small batches, so other requests' queries run between them (PGlite works on this thread). */
 const READ_BATCH = 4;
 
+/** Up to READ_BATCH compressed pieces from `seq` on, in order. */
+async function readBatch(db: Pick<Db, 'select'>, captureId: string, seq: number, count = READ_BATCH): Promise<Uint8Array[]> {
+  const rows = await db
+    .select({ b64: sql<string>`encode(${captureChunks.data}, 'base64')` })
+    .from(captureChunks)
+    .where(and(eq(captureChunks.captureId, captureId), gte(captureChunks.seq, seq), lt(captureChunks.seq, seq + count)))
+    .orderBy(asc(captureChunks.seq));
+  return rows.map((r) => Buffer.from(r.b64, 'base64'));
+}
+
 /** A capture's compressed pieces, in order, as stored (the engine's thread pool unpacks them). */
 export async function readPackedChunks(db: Pick<Db, 'select'>, captureId: string): Promise<Uint8Array[]> {
   const out: Uint8Array[] = [];
   for (;;) {
-    const rows = await db
-      .select({ b64: sql<string>`encode(${captureChunks.data}, 'base64')` })
-      .from(captureChunks)
-      .where(and(eq(captureChunks.captureId, captureId), gte(captureChunks.seq, out.length), lt(captureChunks.seq, out.length + READ_BATCH)))
-      .orderBy(asc(captureChunks.seq));
-    for (const r of rows) out.push(Buffer.from(r.b64, 'base64'));
+    const rows = await readBatch(db, captureId, out.length);
+    out.push(...rows);
     if (rows.length < READ_BATCH) return out;
     // Let the event loop serve others before the next batch.
     await new Promise((r) => setImmediate(r));
@@ -53,4 +60,32 @@ export function unpackPieces(pieces: Uint8Array[], size: number, gzip = true): U
     o += part.length;
   }
   return out;
+}
+
+const gunzipAsync = promisify(gunzip);
+
+/**
+ * The capture's plain bytes as a stream: chunk rows are read a few at a time as the reader asks for more, and each
+ * is unpacked on libuv's thread pool, so a large download neither holds the file in memory nor stalls the server.
+ */
+export function unpackedChunkStream(db: Pick<Db, 'select'>, captureId: string): ReadableStream<Uint8Array> {
+  let seq = 0;
+  let queue: Uint8Array[] = [];
+  let last = false;
+  return new ReadableStream<Uint8Array>(
+    {
+      async pull(ctrl) {
+        // One piece per query: the smallest slices of this thread's time, between which other requests run.
+        if (queue.length === 0 && !last) {
+          queue = await readBatch(db, captureId, seq, 1);
+          seq += queue.length;
+          last = queue.length < 1;
+        }
+        const next = queue.shift();
+        if (!next) return ctrl.close();
+        ctrl.enqueue(new Uint8Array(await gunzipAsync(next)));
+      },
+    },
+    { highWaterMark: 2 },
+  );
 }

@@ -67,24 +67,35 @@ const settled = (ms) => new Promise((resolve) => {
   };
 });
 
+/** Time kept at the end of a stop for closing the database and Next.js. */
+const CLOSE_MS = 1_500;
+const sleep = (ms) => new Promise((r) => setTimeout(r, Math.max(0, ms)));
+
 async function stop(signal) {
   if (life.stopping) return;
   life.stopping = true;
+  const code = signal === 'SIGINT' ? 130 : 143;
+  // Whatever happens below, the process is gone within STOP_AFTER_MS.
+  const deadline = Date.now() + STOP_AFTER_MS - 250;
+  setTimeout(() => process.exit(code), deadline - Date.now()).unref();
   // Keep listening so that new requests hear a 503 rather than a refused connection; idle ones close.
   server.closeIdleConnections();
-  await settled(STOP_AFTER_MS - CUTOFF_MS);
+  await settled(STOP_AFTER_MS - CUTOFF_MS - CLOSE_MS);
   // Still running: uploads stop reading and answer 503.
   life.cutOff = true;
   await settled(CUTOFF_MS / 2);
-  // Still running after that (a store or an analysis): the client hears a 503 before the database closes.
+  // Still running after that (a store, an analysis, a call to object storage that hangs): the client hears a 503
+  // before the database closes, never a reset.
   for (const res of open) {
     if (!res.headersSent) restarting(res, 'The server restarted before this finished; check the job, and send it again if it is not there.');
   }
   server.close();
+  // Let the 503s leave before the connections are cut.
+  await sleep(100);
   server.closeAllConnections();
-  await life.closeDatabase?.().catch(() => {});
-  await Promise.race([app.close().catch(() => {}), new Promise((r) => setTimeout(r, 300))]);
-  process.exit(signal === 'SIGINT' ? 130 : 143);
+  await Promise.race([life.closeDatabase?.().catch(() => {}), sleep(deadline - Date.now() - 400)]);
+  await Promise.race([app.close().catch(() => {}), sleep(Math.min(300, deadline - Date.now()))]);
+  process.exit(code);
 }
 process.once('SIGTERM', () => stop('SIGTERM'));
 process.once('SIGINT', () => stop('SIGINT'));

@@ -96,3 +96,43 @@ export async function chooseToBars(base: string, cookie: string, files: string[]
   }
   return { barsMs, confirmedMs };
 }
+
+/**
+ * /api/health while four downloads of a large stored capture and one upload of another as large run at once,
+ * against the same checks at rest. `big` is stored first (not timed); the upload sends it with one more line.
+ */
+export async function healthDuringTransfers(base: string, cookie: string, big: string): Promise<{ restP99: number; busyP99: number; downloadMs: number; uploadMs: number; errors: number }> {
+  const job = await inlineFourJob(base, cookie);
+  const post = (body: string, name: string) =>
+    fetch(`${base}/api/jobs/${job.id}/captures`, { method: 'POST', headers: { cookie, origin: base, 'content-type': 'text/csv', 'x-file-name': name }, body });
+  const first = await post(big, 'transfer-a.csv');
+  if (first.status !== 200) throw new Error(`the large upload answered ${first.status}: ${await first.text()}`);
+  const captureId = (await first.json()).capture.id as string;
+  const rest = await healthSamples(base, 3_000);
+  let errors = 0;
+  let busy: number[] = [];
+  let done = false;
+  const timed = async (work: () => Promise<boolean>) => {
+    const t0 = performance.now();
+    if (!(await work().catch(() => false))) errors++;
+    return performance.now() - t0;
+  };
+  const download = () =>
+    timed(async () => {
+      const r = await fetch(`${base}/api/captures/${captureId}/raw`, { headers: { cookie } });
+      let n = 0;
+      for await (const piece of r.body as unknown as AsyncIterable<Uint8Array>) n += piece.length;
+      return r.status === 200 && n === Buffer.byteLength(big);
+    });
+  const upload = () => timed(async () => (await (await post(`${big}10.5,1,0\n`, 'transfer-b.csv')).arrayBuffer(), true));
+  const sampler = (async () => {
+    const out: number[] = [];
+    while (!done) out.push(...(await healthSamples(base, 1_000)));
+    busy = out.sort((a, b) => a - b);
+  })();
+  const [downloads, uploadMs] = await Promise.all([Promise.all([download(), download(), download(), download()]), upload()]);
+  done = true;
+  await sampler;
+  downloads.sort((a, b) => a - b);
+  return { restP99: percentile(rest, 99), busyP99: percentile(busy, 99), downloadMs: percentile(downloads, 50), uploadMs, errors };
+}
