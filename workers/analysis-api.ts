@@ -18,6 +18,9 @@ import {
   toothPeriods,
 } from '../signal';
 
+/** The message a worker posts once it listens for calls. */
+export const WORKER_READY = 'crankprint-worker-ready';
+
 export type Stage = 'reading' | 'parsing' | 'analysing' | 'done';
 export type ProgressFn = (stage: Stage, fraction: number) => void;
 export type TraceChannel = 'current' | 'crank' | 'sync' | 'rpm' | 'battery' | 'toothPeriod';

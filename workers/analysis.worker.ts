@@ -2,7 +2,7 @@
 /** The analysis Web Worker: the API of analysis-api.ts over comlink, with decimated views transferred, not copied. */
 import * as Comlink from 'comlink';
 import type { AnalysisSettings, ImportOptions } from '../signal';
-import { createAnalysisApi, type ProgressFn, type TraceChannel, toWorkerError } from './analysis-api';
+import { createAnalysisApi, type ProgressFn, type TraceChannel, toWorkerError, WORKER_READY } from './analysis-api';
 
 const api = createAnalysisApi();
 
@@ -35,3 +35,6 @@ const exposed = {
 export type AnalysisWorker = typeof exposed;
 
 Comlink.expose(exposed);
+// Only now does the worker listen: the page sends nothing before it hears this (a call posted while the worker's
+// scripts were still loading could otherwise reach no listener and never be answered).
+self.postMessage(WORKER_READY);

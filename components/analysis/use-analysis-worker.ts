@@ -6,12 +6,12 @@
 import * as Comlink from 'comlink';
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { AnalysisResult, AnalysisSettings, ImportOptions } from '@/signal';
-import type { ImportSummary, Stage, TraceChannel, TraceView, WorkerError } from '@/workers/analysis-api';
+import { type ImportSummary, type Stage, type TraceChannel, type TraceView, WORKER_READY, type WorkerError } from '@/workers/analysis-api';
 import type { AnalysisWorker } from '@/workers/analysis.worker';
 
 export type LoadState =
   | { phase: 'idle' }
-  | { phase: 'loading'; stage: Stage | 'downloading'; fraction: number }
+  | { phase: 'loading'; stage: Stage | 'starting' | 'downloading'; fraction: number }
   | { phase: 'ready'; summary: ImportSummary }
   | { phase: 'error'; error: WorkerError };
 
@@ -28,11 +28,21 @@ export function useAnalysisWorker() {
   useEffect(() => {
     const w = new Worker(new URL('../../workers/analysis.worker.ts', import.meta.url), { type: 'module' });
     worker.current = w;
-    remote.current = Comlink.wrap<AnalysisWorker>(w);
+    setLoad({ phase: 'loading', stage: 'starting', fraction: 0 });
     // A worker whose script could not load never answers: say so instead of waiting.
     w.onerror = () => setLoad({ phase: 'error', error: { code: 'NO_WORKER', message: 'The analysis could not start in this browser; reload the page.' } });
-    setGeneration((g) => g + 1);
+    // Nothing is sent before the worker says it listens; then the page loads the capture into it (`generation`).
+    let live = true;
+    const onReady = (e: MessageEvent) => {
+      if (e.data !== WORKER_READY) return;
+      w.removeEventListener('message', onReady);
+      if (!live) return;
+      remote.current = Comlink.wrap<AnalysisWorker>(w);
+      setGeneration((g) => g + 1);
+    };
+    w.addEventListener('message', onReady);
     return () => {
+      live = false;
       remote.current = null;
       w.terminate();
     };
@@ -41,7 +51,6 @@ export function useAnalysisWorker() {
   /** Throws the worker away and starts another; the page loads the capture into it again (see `generation`). */
   const restart = useCallback(() => {
     remote.current = null;
-    setLoad({ phase: 'idle' });
     setRestarts((r) => r + 1);
   }, []);
 

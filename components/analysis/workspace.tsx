@@ -142,7 +142,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
     <div className="flex flex-col gap-4" onKeyDown={onKey} tabIndex={-1}>
       {w.load.phase === 'loading' && (
         <div role="status" aria-live="polite" className="rounded-xl border border-line bg-surface p-4">
-          <p className="font-bold">{w.load.stage === 'downloading' ? 'Fetching the capture…' : w.load.stage === 'parsing' ? 'Reading the numbers…' : 'Analysing…'}</p>
+          <p className="font-bold">{LOAD_WORDS[w.load.stage] ?? 'Analysing…'}</p>
           <progress className="mt-2 w-full" value={w.load.fraction} max={1} />
         </div>
       )}
@@ -260,6 +260,9 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
   );
   return <CautionsGate userId={userId}>{body}</CautionsGate>;
 }
+
+/** What the page says while the capture loads, by stage. */
+const LOAD_WORDS: Partial<Record<string, string>> = { starting: 'Starting the analysis…', downloading: 'Fetching the capture…', parsing: 'Reading the numbers…' };
 
 /** How long reading the capture may go without progress before it is started again in a new worker. */
 const READ_PATIENCE_MS = 15_000;
