@@ -76,9 +76,13 @@ test('a report without a saved analysis cannot be signed', async () => {
   const res = await tech.post(`/api/jobs/${jobs[0].id}/report/sign`, { data: { reportId: draft.id } });
   expect(res.status()).toBe(409);
   expect((await res.json()).error.message).toMatch(/at least one saved analysis/);
+  // A draft is never e-mailed: it can still change.
+  const send = await tech.post(`/api/reports/${draft.id}/send`, { data: { to: 'customer@example.com' } });
+  expect(send.status()).toBe(409);
+  expect((await send.json()).error.message).toMatch(/Sign the report before sending it/);
 });
 
-test('two tabs on one draft: the second save is told the draft changed and keeps what was typed', async ({ page, context }) => {
+test('two tabs on one draft: the second save is told the draft changed and keeps what was typed; Enter starts a next step', async ({ page, context }) => {
   const tech = await signIn(DEMO.technician);
   const made = await tech.post('/api/jobs', {
     data: { repairOrder: `TABS-${Date.now().toString(36)}`, concern: 'Two tabs.', vehicle: { make: 'Test', model: 'Tabs', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } } },
@@ -91,6 +95,9 @@ test('two tabs on one draft: the second save is told the draft changed and keeps
     await expect(p.getByLabel('Interpretation')).toBeVisible();
   }
   await page.getByLabel('Interpretation').fill('Typed in the first tab.');
+  // Typed as a person types, Enter included: each line is one step.
+  await page.getByLabel('Recommended next steps, one per line').pressSequentially('Check cam timing marks\nScope ignition coil 2', { delay: 20 });
+  await expect(page.getByLabel('Recommended next steps, one per line')).toHaveValue('Check cam timing marks\nScope ignition coil 2');
   await page.getByRole('button', { name: 'Save draft' }).click();
   await expect(page.getByText(/Draft saved as revision 1/)).toBeVisible();
   await other.getByLabel('Interpretation').fill('Typed in the second tab — “keep me”.\nLine two.');
@@ -101,4 +108,5 @@ test('two tabs on one draft: the second save is told the draft changed and keeps
   const stored = await (await tech.get(`/api/jobs/${job.id}/report`)).json();
   expect(stored.revisions).toHaveLength(1);
   expect(stored.revisions[0].content.interpretation).toBe('Typed in the first tab.');
+  expect(stored.revisions[0].content.nextSteps).toEqual(['Check cam timing marks', 'Scope ignition coil 2']);
 });

@@ -32,6 +32,7 @@ export function ReportDelivery({
   const { timeZone } = useShopSettings();
   const [to, setTo] = useState('');
   const [shareUrl, setShareUrl] = useState<string | null>(null);
+  const [copied, setCopied] = useState(false);
   const refresh = () => qc.invalidateQueries({ queryKey: reportKeys.forJob(jobId) });
   const send = useMutation({
     mutationFn: () => api(`/api/reports/${latest!.id}/send`, { method: 'POST', json: { to } }),
@@ -42,6 +43,7 @@ export function ReportDelivery({
     mutationFn: () => api<{ url: string }>(`/api/reports/${latest!.id}/share`, { method: 'POST', json: {} }),
     onSuccess: async (r) => {
       setShareUrl(r.url);
+      setCopied(false);
       await refresh();
     },
     onError: (e) => onMessage({ tone: 'error', text: errorText(e) }),
@@ -68,20 +70,23 @@ export function ReportDelivery({
                   <Input id="send-to" type="email" value={to} onChange={(e) => setTo(e.target.value)} />
                 </Field>
               </div>
-              <Button type="submit" className="mb-6" disabled={!to || send.isPending}>
+              <Button type="submit" className="mb-6" disabled={!to || !frozen || send.isPending}>
                 Send
               </Button>
             </form>
           )}
+          {!frozen && <p className="text-sm text-muted">Sign the report before sending or sharing it: a draft can still change.</p>}
           {can.share && (
             <div className="flex flex-col gap-2">
               <Button variant="secondary" onClick={() => share.mutate()} disabled={!frozen || share.isPending}>
                 Create a customer link (14 days)
               </Button>
-              {!frozen && <p className="text-sm text-muted">Sign the report before sharing it.</p>}
               {shareUrl && (
                 <Notice tone="ok">
-                  Link for the customer (shown once): <span className="figures break-all" data-testid="share-url">{shareUrl}</span>
+                  Link for the customer (shown once; copy it now): <span className="figures break-all" data-testid="share-url">{shareUrl}</span>{' '}
+                  <Button variant="secondary" onClick={() => void navigator.clipboard?.writeText(shareUrl).then(() => setCopied(true), () => setCopied(false))}>
+                    {copied ? 'Copied' : 'Copy the link'}
+                  </Button>
                 </Notice>
               )}
               <ul className="flex flex-col gap-1">

@@ -28,6 +28,8 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
   const [loadedFor, setLoadedFor] = useState<string | null>(null);
   /** The revision and version this editor loaded or last saved: a save or signing on anything else is refused. */
   const [base, setBase] = useState<{ id?: string; revision: number; version: number }>({ revision: 0, version: 0 });
+  /** The next-steps box as typed, or null to show the stored steps one per line. */
+  const [nextText, setNextText] = useState<string | null>(null);
   /** Edits not saved yet: a revision saved elsewhere never replaces them (saving then says it changed). */
   const [dirty, setDirty] = useState(false);
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
@@ -39,6 +41,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
     if (loadedFor === id || (dirty && loadedFor !== null)) return;
     setLoadedFor(id);
     setBase(latest ? { id: latest.id, revision: latest.revision, version: latest.version } : { revision: 0, version: 0 });
+    setNextText(null);
     if (latest) setC({ ...EMPTY, ...latest.content });
     else {
       const mine = q.data.candidates.find((x) => x.jobId === jobId);
@@ -118,12 +121,24 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
             <TextArea id="interp" rows={6} value={c.interpretation} onChange={(e) => set({ interpretation: e.target.value })} />
           </Field>
           {first && (
-            <Button type="button" variant="secondary" onClick={() => set({ interpretation: interpretationFor(first.result), nextSteps: nextStepsFor(first.result) })}>
+            <Button type="button" variant="secondary" onClick={() => {
+                setNextText(null);
+                set({ interpretation: interpretationFor(first.result), nextSteps: nextStepsFor(first.result) });
+              }}>
               Fill from the first analysis
             </Button>
           )}
           <Field id="next" label="Recommended next steps, one per line">
-            <TextArea id="next" rows={4} value={c.nextSteps.join('\n')} onChange={(e) => set({ nextSteps: e.target.value.split('\n').filter((l) => l.trim()) })} />
+            <TextArea
+              id="next"
+              rows={4}
+              value={nextText ?? c.nextSteps.join('\n')}
+              onChange={(e) => {
+                // The text as typed stays on screen (an Enter starts an empty line); the steps are its non-empty lines.
+                setNextText(e.target.value);
+                set({ nextSteps: e.target.value.split(/\r?\n/).filter((l) => l.trim()) });
+              }}
+            />
           </Field>
           <Field id="tech" label="Technician signing">
             <Input id="tech" value={c.technicianName ?? ''} onChange={(e) => set({ technicianName: e.target.value || undefined })} />

@@ -9,7 +9,7 @@ import { formatWhen } from '@/domain/time';
 import { z } from 'zod';
 import { releaseAction, reserveAction } from '@/db/queries/audit';
 import { reportBundle } from '@/db/queries/reports';
-import { HttpError, notFound } from '@/server/http';
+import { conflict, HttpError, notFound } from '@/server/http';
 import { sendMail } from '@/server/mail';
 import { renderPdf } from '@/server/engine/pool';
 import { pdfDataFor } from '@/server/pdf/build-report';
@@ -25,6 +25,8 @@ export const POST = withShop(
   async ({ input, shop, user, req }) => {
     const b = await reportBundle(shop.id, input.reportId);
     if (!b) throw notFound('That report');
+    // What goes to a customer is a record: a draft can change after it is sent.
+    if (b.report.status !== 'signed') throw conflict('Sign the report before sending it; a draft can still change.');
     // The send is counted before it is made (atomically, across instances), and given back if it fails.
     const reserved = await reserveAction(
       shop.id,
