@@ -2,7 +2,9 @@
 /** Engine setup, method and limits. Every change re-runs the analysis in the worker at once. */
 import { LayoutOptions } from '@/components/ui/engine-options';
 import { Field, Input, Select } from '@/components/ui/field';
+import { useState } from 'react';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
+import { DraftNumberField } from './draft-number-field';
 import { firingOrderProblem } from '@/signal';
 
 export interface ProfileOption {
@@ -26,6 +28,18 @@ export function SettingsPanel({
   const set = (patch: Partial<AnalysisSettingsValues>) => onChange({ ...settings, ...patch });
   const setEngine = (patch: Partial<AnalysisSettingsValues['engine']>) => set({ engine: { ...e, ...patch } });
   const orderText = e.firingOrder.join('-');
+  // The firing order is typed as a draft too: applied when whole and valid, its reason shown when not.
+  const [orderDraft, setOrderDraft] = useState<string | null>(null);
+  const [orderProblem, setOrderProblem] = useState<string | null>(null);
+  const applyOrder = () => {
+    if (orderDraft === null) return;
+    const order = orderDraft.split(/[\s,-]+/).filter(Boolean).map(Number);
+    const problem = firingOrderProblem(order, e.cylinders);
+    setOrderProblem(problem);
+    if (problem) return;
+    setOrderDraft(null);
+    if (order.join('-') !== orderText) setEngine({ firingOrder: order });
+  };
   return (
     <form className="flex flex-col gap-1" onSubmit={(ev) => ev.preventDefault()} aria-label="Analysis settings">
       <Field id="s-profile" label="Engine profile">
@@ -55,16 +69,22 @@ export function SettingsPanel({
           </Select>
         </Field>
       </div>
-      <Field id="s-order" label="Firing order" hint={e.intervalsDeg && new Set(e.intervalsDeg).size > 1 ? `Uneven firing: ${e.intervalsDeg.join('/')}°` : 'Even firing intervals'}>
+      <Field id="s-order" label="Firing order" error={orderProblem ?? undefined} hint={e.intervalsDeg && new Set(e.intervalsDeg).size > 1 ? `Uneven firing: ${e.intervalsDeg.join('/')}°` : 'Even firing intervals'}>
         <Input
           id="s-order"
           className="figures"
-          defaultValue={orderText}
-          key={orderText}
-          onBlur={(ev) => {
-            const order = ev.target.value.split(/[\s,-]+/).filter(Boolean).map(Number);
-            if (!firingOrderProblem(order, e.cylinders)) setEngine({ firingOrder: order });
-            else ev.target.value = orderText;
+          value={orderDraft ?? orderText}
+          invalid={!!orderProblem}
+          onChange={(ev) => {
+            setOrderDraft(ev.target.value);
+            setOrderProblem(null);
+          }}
+          onBlur={applyOrder}
+          onKeyDown={(ev) => {
+            if (ev.key === 'Enter') {
+              ev.preventDefault();
+              applyOrder();
+            }
           }}
         />
       </Field>
@@ -88,15 +108,9 @@ export function SettingsPanel({
         </Select>
       </Field>
       <div className="grid grid-cols-2 gap-x-3">
-        <Field id="s-low" label="Low limit (%)">
-          <Input id="s-low" type="number" min={50} max={99} className="figures" value={settings.lowLimitPercent} onChange={(ev) => ev.target.value && set({ lowLimitPercent: Number(ev.target.value) })} />
-        </Field>
-        <Field id="s-high" label="Upper limit (%)">
-          <Input id="s-high" type="number" min={101} max={200} className="figures" value={settings.highLimitPercent} onChange={(ev) => ev.target.value && set({ highLimitPercent: Number(ev.target.value) })} />
-        </Field>
-        <Field id="s-spread" label="Spread limit (%)">
-          <Input id="s-spread" type="number" min={1} max={50} className="figures" value={settings.spreadLimitPercent} onChange={(ev) => ev.target.value && set({ spreadLimitPercent: Number(ev.target.value) })} />
-        </Field>
+        <DraftNumberField id="s-low" label="Low limit (%)" field="lowLimitPercent" settings={settings} onChange={onChange} />
+        <DraftNumberField id="s-high" label="Upper limit (%)" field="highLimitPercent" settings={settings} onChange={onChange} />
+        <DraftNumberField id="s-spread" label="Spread limit (%)" field="spreadLimitPercent" settings={settings} onChange={onChange} />
       </div>
       {identityAssumed && (
         <div className="rounded-lg bg-raised p-3">

@@ -98,6 +98,50 @@ test('a reading that stops making progress is started again in a new worker, on 
   expect(asked).toBe(2);
 });
 
+test('settings typed like a person: a half-typed limit changes nothing, a wrong one says why, and the saved analysis has what was typed', async ({ page }) => {
+  await signInAs(page, 'technician');
+  const jobs = (await (await page.request.get('/api/jobs')).json()).jobs;
+  const job = jobs.find((j: { repairOrder: string; vehicle: { engine: { cylinders: number } } }) => j.vehicle.engine.cylinders === 4);
+  const captures = (await (await page.request.get(`/api/jobs/${job.id}/captures`)).json()).captures;
+  await page.goto(`/jobs/${job.id}/captures/${captures[0].id}`);
+  await page.getByRole('button', { name: /I have read this/ }).click();
+  await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 60_000 });
+  const urlSettings = () => JSON.parse(new URL(page.url()).searchParams.get('s') ?? '{}');
+  const type = async (label: string, text: string) => {
+    const field = page.getByLabel(label);
+    await field.click();
+    await field.press('ControlOrMeta+a');
+    await field.pressSequentially(text, { delay: 60 });
+  };
+  // A firing order of the shop's choosing first: it must survive everything below.
+  await type('Firing order', '1-2-4-3');
+  await page.getByLabel('Firing order').press('Tab');
+  await expect.poll(() => urlSettings().engine?.firingOrder).toEqual([1, 2, 4, 3]);
+  // Backspace twice and "85": nothing changes while typing, 85 on leaving the field.
+  const low = page.getByLabel('Low limit (%)');
+  await low.click();
+  await low.press('End');
+  await low.press('Backspace', { delay: 60 });
+  await low.press('Backspace', { delay: 60 });
+  await low.pressSequentially('85', { delay: 60 });
+  expect(urlSettings().lowLimitPercent ?? 90).toBe(90);
+  await low.press('Tab');
+  await expect.poll(() => urlSettings().lowLimitPercent).toBe(85);
+  // "1" in the upper limit is not a limit: its reason shows, and nothing else moves.
+  await type('Upper limit (%)', '1');
+  await page.getByLabel('Upper limit (%)').press('Tab');
+  await expect(page.locator('#s-high-error')).toContainText('above 100');
+  expect(urlSettings()).toMatchObject({ lowLimitPercent: 85, engine: { firingOrder: [1, 2, 4, 3] } });
+  await type('Upper limit (%)', '120');
+  await page.getByLabel('Upper limit (%)').press('Enter');
+  await expect.poll(() => urlSettings().highLimitPercent).toBe(120);
+  await expect(page.locator('#s-high-error')).toHaveText('');
+  await page.getByRole('button', { name: 'Save this analysis' }).click();
+  await expect(page.getByTestId('saved')).toBeVisible({ timeout: 30_000 });
+  const stored = await (await page.request.get(`/api/captures/${captures[0].id}`)).json();
+  expect(stored.analyses[0].settings).toMatchObject({ lowLimitPercent: 85, highLimitPercent: 120, engine: { firingOrder: [1, 2, 4, 3] } });
+});
+
 test('an advisor sees captures but cannot upload, in the page or through the API', async ({ page }) => {
   await signInAs(page, 'advisor');
   await openJob(page, 'RO-24101');
