@@ -47,5 +47,5 @@ async function handle(req: Request): Promise<Response> {
 }
 
 /** Each request runs with its id, so better-auth's own lines carry it. */
-const GET = (req: Request) => inRequest(requestIdOf(req.headers), () => handle(req));
-export { GET, GET as POST };
+const run = (req: Request) => inRequest(requestIdOf(req.headers), () => handle(req));
+export { run as GET, run as POST };
