@@ -19,7 +19,9 @@ test('sign, e-mail, share, approve, revoke; the old revision stays readable', as
   await page.getByRole('button', { name: 'Save draft' }).click();
   await expect(page.getByText(/Draft saved as revision 1/)).toBeVisible();
   await page.getByRole('button', { name: 'Sign revision 1' }).click();
-  await expect(page.getByText('Revision 1 is signed and frozen.')).toBeVisible();
+  await expect(page.getByText('Revision 1 is signed. Send it or share it with the customer below.')).toBeVisible();
+  // One notice says it is frozen, not two.
+  await expect(page.getByText(/signed and frozen/)).toHaveCount(1);
   await page.screenshot({ path: 'artifacts/screens/report-editor.png', fullPage: true });
 
   await page.getByLabel('E-mail the PDF to').fill('service-desk@example.com');

@@ -76,7 +76,7 @@ test('sign up, verify, create a shop, invite a technician who creates a job', as
   const activity = owner.getByTestId('activity');
   await expect(activity).toContainText(`invited ${techEmail} as technician`);
   await expect(activity).toContainText('New Technician signed in');
-  await expect(activity).toContainText('New Technician opened a job');
+  await expect(activity).toContainText('New Technician created a job');
   await shot(owner, 'shop-activity');
 });
 

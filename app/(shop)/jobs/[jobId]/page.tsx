@@ -83,7 +83,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
               return (
                 <li key={c.id}>
                   <Link href={`/jobs/${job.id}/captures/${c.id}`} className="flex min-h-touch items-center gap-4 rounded-xl border border-line p-3 hover:border-brand">
-                    {r ? <MiniBars cylinders={r.cylinders} label={`Last result: ${r.verdict}`} /> : <span className="text-sm text-muted">not saved yet</span>}
+                    {r ? <MiniBars cylinders={r.cylinders} label={`Last result: ${r.verdict}`} /> : <span className="text-sm text-muted">uploaded, not analysed yet</span>}
                     <span className="flex-1">
                       <span className="figures block font-bold">{c.fileName}</span>
                       <span className="figures block text-sm text-muted">

@@ -70,7 +70,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
       // The page shows the signed revision everywhere before it says so.
       await refresh();
       setPreviewAt(Date.now());
-      setMessage({ tone: 'ok', text: `Revision ${revision} is signed and frozen.` });
+      setMessage({ tone: 'ok', text: `Revision ${revision} is signed. Send it or share it with the customer below.` });
     },
     onError: (e) => setMessage({ tone: 'error', text: errorText(e) }),
   });
