@@ -2,7 +2,18 @@
 import { z } from 'zod';
 import { vehicleSchema } from './vehicle';
 
-export const JOB_STATUSES = ['open', 'waiting', 'done'] as const;
+/**
+ * Where a job stands: open (being worked on) → waiting (a signed report went to the customer) → approved or
+ * declined (the customer answered) → done (closed by a member, with a reason); a done job can be reopened.
+ */
+export const JOB_STATUSES = ['open', 'waiting', 'approved', 'declined', 'done'] as const;
+export type JobStatus = (typeof JOB_STATUSES)[number];
+
+/** A member moves a job: done (with a reason) or back to open. */
+export const jobStatusInput = z.object({
+  status: z.enum(['open', 'done'], { message: 'A job is set to done or reopened.' }),
+  reason: z.string().trim().max(500, 'Keep the reason under 500 characters.').optional(),
+});
 
 export const jobSchema = z
   .object({
@@ -24,7 +35,7 @@ export const jobSchema = z
   .refine((j) => !!j.vehicleId !== !!j.vehicle, { message: 'Choose a vehicle from the list or enter a new one.', path: ['vehicle'] });
 
 export const jobUpdateSchema = z.object({
-  status: z.enum(JOB_STATUSES, { message: 'The status is open, waiting or done.' }).optional(),
+  status: z.enum(JOB_STATUSES, { message: 'The status is open, waiting, approved, declined or done.' }).optional(),
   concern: z.string().trim().min(3).max(2000).optional(),
   odometer: z.coerce.number().int().min(0).max(3_000_000).optional(),
 });

@@ -7,7 +7,7 @@ import { defaultStatements, ownerAc } from 'better-auth/plugins/organization/acc
 
 export const statements = {
   ...defaultStatements,
-  job: ['create', 'read', 'update', 'delete'],
+  job: ['create', 'read', 'update', 'delete', 'status'],
   vehicle: ['create', 'read', 'update', 'delete'],
   capture: ['upload', 'read', 'delete'],
   analysis: ['save', 'read'],
@@ -20,7 +20,7 @@ export const ac = createAccessControl(statements);
 
 export const owner = ac.newRole({
   ...ownerAc.statements,
-  job: ['create', 'read', 'update', 'delete'],
+  job: ['create', 'read', 'update', 'delete', 'status'],
   vehicle: ['create', 'read', 'update', 'delete'],
   capture: ['upload', 'read', 'delete'],
   analysis: ['save', 'read'],
@@ -30,7 +30,7 @@ export const owner = ac.newRole({
 });
 
 export const technician = ac.newRole({
-  job: ['create', 'read', 'update'],
+  job: ['create', 'read', 'update', 'status'],
   vehicle: ['create', 'read', 'update'],
   capture: ['upload', 'read'],
   analysis: ['save', 'read'],
@@ -40,7 +40,8 @@ export const technician = ac.newRole({
 });
 
 export const advisor = ac.newRole({
-  job: ['read'],
+  // An advisor moves a job (done, reopened) but does not edit it.
+  job: ['read', 'status'],
   vehicle: ['read'],
   capture: ['read'],
   analysis: ['read'],

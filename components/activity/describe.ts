@@ -1,4 +1,6 @@
 /** An audit event in plain words: what happened, with the detail that matters to the shop. */
+import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
+import type { JobStatus } from '@/domain/job';
 
 interface Event {
   action: string;
@@ -11,6 +13,7 @@ const WORDS: Record<string, (d: Detail) => string> = {
   'auth.sign-in': () => 'signed in',
   'shop.create': () => 'created the shop',
   'job.create': () => 'created a job',
+  'job.status': (d) => `moved a job from ${statusWords(d.from)} to ${statusWords(d.to)}${d.reason ? `: “${d.reason}”` : d.cause ? ` (${d.cause})` : ''}`,
   'job.update': (d) => (d.status ? `set a job to ${d.status}` : 'changed a job'),
   'job.delete': (d) => `removed job ${d.repairOrder ?? ''} with ${d.captures ?? 0} capture(s)`.replace('  ', ' '),
   'vehicle.create': () => 'added a vehicle',
@@ -30,6 +33,8 @@ const WORDS: Record<string, (d: Detail) => string> = {
   'member.remove': (d) => `removed a member${d.role ? ` (${d.role})` : ''}`,
 };
 
+const statusWords = (s: unknown) => (JOB_STATUS_LABEL[s as JobStatus] ?? String(s ?? '')).toLowerCase();
+
 export function describeEvent(e: Event): string {
   const words = WORDS[e.action];
   return words ? words((e.detail ?? {}) as Detail) : e.action;
@@ -39,5 +44,7 @@ export function describeEvent(e: Event): string {
 export function actorLabel(e: Event & { actorName?: string | null }): string {
   if (e.actorName) return e.actorName;
   if (e.action === 'report.approve' || e.action === 'report.decline') return 'The customer';
+  // A job moved by the customer's answer.
+  if (e.action === 'job.status' && (e.detail as Detail | null)?.cause === 'customer answered') return 'The customer’s answer';
   return 'A removed account';
 }

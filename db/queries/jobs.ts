@@ -3,7 +3,7 @@ import 'server-only';
 import { and, desc, eq, ilike, or, type SQL } from 'drizzle-orm';
 import { getDb } from '../client';
 import { auditEvents, captures, jobs, vehicles } from '../schema';
-import type { JobValues } from '@/domain/job';
+import type { JobStatus, JobValues } from '@/domain/job';
 import { flushObjectDeletes, queueObjectDeletes } from './object-deletes';
 import { engineSpec } from './vehicles';
 
@@ -89,6 +89,22 @@ export async function updateJob(shopId: string, jobId: string, patch: { status?:
     .where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)))
     .returning();
   return row ?? null;
+}
+
+/**
+ * Moves a job to `to` when its status is one of `from`, with its activity line in the same transaction (who, or
+ * the customer when `actorId` is null; from, to, and the cause or reason). Returns the new status, or null when
+ * the job is not the shop's or was not in a status it moves from.
+ */
+export async function moveJob(shopId: string, jobId: string, to: JobStatus, from: readonly JobStatus[], actorId: string | null, why: { cause?: string; reason?: string } = {}) {
+  const db = await getDb();
+  return db.transaction(async (tx) => {
+    const [job] = await tx.select({ status: jobs.status }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId))).for('update');
+    if (!job || !from.includes(job.status as JobStatus) || job.status === to) return null;
+    await tx.update(jobs).set({ status: to, updatedAt: new Date() }).where(eq(jobs.id, jobId));
+    await tx.insert(auditEvents).values({ shopId, actorId, action: 'job.status', subjectType: 'job', subjectId: jobId, detail: { from: job.status, to, ...why } });
+    return to;
+  });
 }
 
 /**

@@ -7,7 +7,7 @@ import 'server-only';
 import { z } from 'zod';
 import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiPathsObject, type ZodOpenApiResponseObject } from 'zod-openapi';
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
-import { jobSchema, jobUpdateSchema, listQuerySchema } from '@/domain/job';
+import { JOB_STATUSES, jobSchema, jobStatusInput, jobUpdateSchema, listQuerySchema } from '@/domain/job';
 import { vehicleSchema } from '@/domain/vehicle';
 import { shopSettingsSchema } from '@/domain/shop-settings';
 import { screeningSchema } from '@/domain/screening';
@@ -132,6 +132,16 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
       who: OWNERS,
       path: idParam('jobId'),
       ok: z.object({ removed: z.object({ jobId: z.string(), captures: z.number().int() }) }),
+    },
+  },
+  '/api/jobs/{jobId}/status': {
+    post: {
+      summary: 'Closes the job (done, with a reason) or reopens it. Sending or sharing a signed report moves an open job to waiting; the customer’s answer to approved or declined. Every move is an activity line.',
+      who: MEMBER,
+      path: idParam('jobId'),
+      body: jobStatusInput,
+      ok: z.object({ job: z.object({ id: z.string(), status: z.enum(JOB_STATUSES) }) }),
+      errors: [409, 413, 415],
     },
   },
   '/api/jobs/{jobId}/captures': {

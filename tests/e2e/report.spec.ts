@@ -27,6 +27,9 @@ test('sign, e-mail, share, approve, revoke; the old revision stays readable', as
   await page.getByLabel('E-mail the PDF to').fill('service-desk@example.com');
   await page.getByRole('button', { name: 'Send', exact: true }).click();
   await expect(page.getByText('Report sent to service-desk@example.com.')).toBeVisible();
+  const tech = await signIn(DEMO.technician);
+  const [mine] = (await (await tech.get('/api/jobs?q=RO-24104')).json()).jobs;
+  expect(mine.status).toBe('waiting');
   const mail = (await waitForMail('service-desk@example.com', /compression test report for RO-24104/)) as unknown as { attachments: { filename: string; contentType: string }[] };
   expect(mail.attachments.map((a) => a.contentType)).toContain('application/pdf');
 
@@ -46,6 +49,18 @@ test('sign, e-mail, share, approve, revoke; the old revision stays readable', as
   const jobs = (await (await advisor.get('/api/jobs?q=RO-24104')).json()).jobs;
   const report = await (await advisor.get(`/api/jobs/${jobs[0].id}/report`)).json();
   expect(report.approvals[0]).toMatchObject({ decision: 'approve', typedName: 'Pat Customer', revision: 1 });
+  // The job followed the work: e-mailed (waiting on the customer), then answered (approved).
+  expect((await (await advisor.get(`/api/jobs/${jobs[0].id}`)).json()).job.status).toBe('approved');
+  // The advisor closes it with a reason, and may reopen it; a close without a reason is refused.
+  const noReason = await advisor.post(`/api/jobs/${jobs[0].id}/status`, { data: { status: 'done' } });
+  expect(noReason.status()).toBe(400);
+  expect((await advisor.post(`/api/jobs/${jobs[0].id}/status`, { data: { status: 'done', reason: 'Customer booked the repair — “next week”.' } })).status()).toBe(200);
+  expect((await (await advisor.get(`/api/jobs?status=done&q=RO-24104`)).json()).jobs.map((j: { repairOrder: string }) => j.repairOrder)).toContain('RO-24104');
+  expect((await advisor.post(`/api/jobs/${jobs[0].id}/status`, { data: { status: 'open' } })).status()).toBe(200);
+  await page.goto(`/jobs/${jobs[0].id}`);
+  await expect(page.getByTestId('activity')).toContainText('moved a job from customer approved to done: “Customer booked the repair — “next week”.”');
+  await expect(page.getByTestId('activity')).toContainText('The customer’s answer moved a job from waiting on customer to customer approved');
+  await page.goBack();
   // The advisor can send but not edit.
   expect((await advisor.put(`/api/jobs/${jobs[0].id}/report`, { data: { interpretation: 'changed' } })).status()).toBe(403);
   expect((await advisor.post(`/api/reports/${report.revisions[0].id}/send`, { data: { to: 'customer@example.com' } })).status()).toBe(200);

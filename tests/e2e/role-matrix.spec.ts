@@ -51,6 +51,8 @@ const ROWS: Row[] = [
   { file: 'jobs', method: 'POST', call: (c) => c.post('/api/jobs', { data: job(`RM-${++seq}`) }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 200 } },
   { file: 'jobs/[jobId]', method: 'GET', call: (c, f) => c.get(`/api/jobs/${f.jobId}`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'jobs/[jobId]', method: 'PATCH', call: (c, f) => c.patch(`/api/jobs/${f.jobId}`, { data: { status: 'open' } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
+  // Reopening an open job: every role may move a job (409: it is open already), another shop's is a 404.
+  { file: 'jobs/[jobId]/status', method: 'POST', call: (c, f) => c.post(`/api/jobs/${f.jobId}/status`, { data: { status: 'open' } }), expect: { anon: 401, owner: 409, technician: 409, advisor: 409, other: 404 } },
   { file: 'jobs/[jobId]', method: 'DELETE', call: (c) => c.delete('/api/jobs/no-such-job'), expect: { anon: 401, owner: 404, technician: 403, advisor: 403, other: 404 } },
   { file: 'jobs/[jobId]/captures', method: 'GET', call: (c, f) => c.get(`/api/jobs/${f.jobId}/captures`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'jobs/[jobId]/captures', method: 'POST', call: (c, f) => upload(c, f.jobId), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },

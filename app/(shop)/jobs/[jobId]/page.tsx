@@ -9,8 +9,10 @@ import { getJob } from '@/db/queries/jobs';
 import { listApprovalsForJob, listRevisions, reportsCitingJob } from '@/db/queries/reports';
 import { buttonClass } from '@/components/ui/button';
 import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
+import type { JobStatus } from '@/domain/job';
 import { CaptureUpload } from './_components/capture-upload';
 import { MiniBars } from './_components/mini-bars';
+import { JobStatusControl } from './_components/job-status';
 import { RemoveJob } from './_components/remove-job';
 import { pageMember } from '@/server/page-context';
 
@@ -38,7 +40,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           <h1 className="text-2xl font-bold">
             <span className="figures">{job.repairOrder}</span> · {[v.year, v.make, v.model].filter(Boolean).join(' ')}
           </h1>
-          <span className="rounded-md bg-raised px-2 py-1 font-bold">{JOB_STATUS_LABEL[job.status] ?? job.status}</span>
+          <span className="rounded-md bg-raised px-2 py-1 font-bold">{JOB_STATUS_LABEL[job.status as JobStatus] ?? job.status}</span>
         </div>
         <dl className="mt-3 grid gap-3 sm:grid-cols-4">
           <div>
@@ -112,6 +114,15 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           {revisions[0] ? 'Open the report' : m.can({ report: ['edit'] }) ? 'Write the report' : 'Report'}
         </Link>
       </section>
+      {m.can({ job: ['status'] }) && (
+        <section aria-labelledby="job-status" className="flex flex-col gap-2 rounded-2xl border border-line bg-surface p-5">
+          <h2 id="job-status" className="text-lg font-bold">
+            Status: {JOB_STATUS_LABEL[job.status as JobStatus] ?? job.status}
+          </h2>
+          <p className="text-sm text-muted">Sending or sharing a signed report sets it to waiting on the customer, and the customer’s answer to approved or declined.</p>
+          <JobStatusControl jobId={job.id} status={job.status} />
+        </section>
+      )}
       <section aria-labelledby="activity" className="rounded-2xl border border-line bg-surface p-5">
         <h2 id="activity" className="text-lg font-bold">
           Activity

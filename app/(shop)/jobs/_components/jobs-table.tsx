@@ -9,15 +9,11 @@ import { useEffect, useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Input, Notice } from '@/components/ui/field';
 import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
+import { JOB_STATUSES, type JobStatus } from '@/domain/job';
 import type { JobRow } from '@/components/data/jobs/types';
 import { useJobs } from '@/components/data/jobs/use-jobs';
 
-const FILTERS = [
-  { value: 'all', label: 'All' },
-  { value: 'open', label: 'Open' },
-  { value: 'waiting', label: 'Waiting on customer' },
-  { value: 'done', label: 'Done' },
-] as const;
+const FILTERS = [{ value: 'all', label: 'All' }, ...JOB_STATUSES.map((value) => ({ value, label: JOB_STATUS_LABEL[value] }))];
 
 
 function vehicleText(v: JobRow['vehicle']) {
@@ -46,7 +42,7 @@ const columns: ColumnDef<JobRow>[] = [
     ),
   },
   { accessorKey: 'concern', header: 'Concern', cell: (c) => <span className="line-clamp-2">{c.row.original.concern}</span> },
-  { accessorKey: 'status', header: 'Status', cell: (c) => <span className="rounded-md bg-raised px-2 py-1 text-sm font-bold">{JOB_STATUS_LABEL[c.row.original.status]}</span> },
+  { accessorKey: 'status', header: 'Status', cell: (c) => <span className="rounded-md bg-raised px-2 py-1 text-sm font-bold">{JOB_STATUS_LABEL[c.row.original.status as JobStatus] ?? c.row.original.status}</span> },
   {
     accessorKey: 'updatedAt',
     header: 'Updated',

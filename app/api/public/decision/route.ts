@@ -3,6 +3,7 @@ import { decisionInput } from '@/server/api/inputs';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
 import { recordAudit } from '@/db/queries/audit';
+import { moveJob } from '@/db/queries/jobs';
 import { findShareLink, recordApproval, reportBundle } from '@/db/queries/reports';
 import { HttpError } from '@/server/http';
 import { withPublic } from '@/server/with-shop';
@@ -19,6 +20,7 @@ export const POST = withPublic(
       throw new HttpError(409, 'ALREADY_ANSWERED', `An answer${earlier ? ` (${earlier.decision})` : ''} was already given through this link for this revision${when}; it stands. Ask the shop if it should change.`);
     }
     await recordAudit(link.shopId, null, `report.${input.decision}`, { type: 'report', id: link.reportId }, { jobId: b.job.id, typedName: input.typedName, revision: b.report.revision });
+    await moveJob(link.shopId, b.job.id, input.decision === 'approve' ? 'approved' : 'declined', ['open', 'waiting', 'approved', 'declined'], null, { cause: 'customer answered' });
     return { decision: a.decision, revision: a.revision, at: a.createdAt };
   },
 );

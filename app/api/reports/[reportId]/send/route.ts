@@ -8,6 +8,7 @@ import { sendReportInput } from '@/server/api/inputs';
 import { formatWhen } from '@/domain/time';
 import { z } from 'zod';
 import { releaseAction, reserveAction } from '@/db/queries/audit';
+import { moveJob } from '@/db/queries/jobs';
 import { reportBundle } from '@/db/queries/reports';
 import { conflict, HttpError, notFound } from '@/server/http';
 import { sendMail } from '@/server/mail';
@@ -58,6 +59,7 @@ export const POST = withShop(
       await releaseAction(shop.id, reserved.id);
       throw e;
     }
+    await moveJob(shop.id, b.job.id, 'waiting', ['open'], user.id, { cause: 'report e-mailed' });
     return { sent: true, to: input.to };
   },
 );

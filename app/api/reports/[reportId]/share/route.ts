@@ -2,6 +2,7 @@
 import { shareInput } from '@/server/api/inputs';
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
+import { moveJob } from '@/db/queries/jobs';
 import { createShareLink, getReport, listShareLinks } from '@/db/queries/reports';
 import { APP_URL } from '@/server/auth';
 import { conflict, notFound } from '@/server/http';
@@ -21,6 +22,7 @@ export const POST = withShop(
     if (r.status !== 'signed') throw conflict('Sign the report before sharing it with the customer.');
     const { token, link } = await createShareLink(shop.id, r.id, user.id, input.days);
     await recordAudit(shop.id, user.id, 'report.share', { type: 'report', id: r.id }, { jobId: r.jobId, linkId: link.id, expiresAt: link.expiresAt });
+    await moveJob(shop.id, r.jobId, 'waiting', ['open'], user.id, { cause: 'customer link made' });
     return { link: { id: link.id, expiresAt: link.expiresAt }, url: `${APP_URL}/r/${token}` };
   },
 );
