@@ -1,11 +1,10 @@
 /**
  * Reads an uploaded capture from the request stream: refuses what is too large (413), compressed or not text
- * (415), hashes it (SHA-256) in 1 MB pieces, and has the engine's thread pool import every byte as the analysis
- * will, so a file that cannot be read — or holds nothing to analyse for this engine — is refused (422) before
- * anything is stored; the pool also compresses the pieces for chunk rows (object storage takes them as they are).
+ * (415), and has the engine's thread pool hash it (SHA-256) and import every byte as the analysis will, so a
+ * file that cannot be read — or holds nothing to analyse for this engine — is refused (422) before anything is
+ * stored; the pool also compresses the pieces for chunk rows (object storage takes them as they are).
  */
 import 'server-only';
-import { createHash } from 'node:crypto';
 import { CHUNK_BYTES } from '@/db/chunks';
 import { pastCutOff } from '@/db/client';
 import { captureStoreTarget } from '@/db/object-store';
@@ -63,12 +62,11 @@ export function checkUploadHeaders(headers: Headers): { length: number; contentT
 }
 
 /**
- * Streams the body: checks its first bytes, counts and hashes every piece on the request thread; then the
- * engine's thread pool imports and analyses the whole file (refusing what holds nothing to analyse) and
+ * Streams the body: checks its first bytes and counts every piece on the request thread; then the engine's
+ * thread pool hashes, imports and analyses the whole file (refusing what holds nothing to analyse) and
  * compresses the pieces for storage. `signal` cancels that work when the client goes away.
  */
 export async function receiveCapture(body: ReadableStream<Uint8Array>, length: number, contentType: string, engine: EngineSpec, signal?: AbortSignal): Promise<ReceivedCapture> {
-  const hash = createHash('sha256');
   const pieces: Uint8Array[] = [];
   let size = 0;
   let pending: Uint8Array[] = [];
@@ -80,7 +78,6 @@ export async function receiveCapture(body: ReadableStream<Uint8Array>, length: n
       const kind = binaryKind(piece);
       if (kind) throw notText(kind);
     }
-    hash.update(piece);
     pieces.push(piece);
     pending = [];
     pendingBytes = 0;
@@ -104,8 +101,8 @@ export async function receiveCapture(body: ReadableStream<Uint8Array>, length: n
   }
   if (size === 0 || pieces.length === 0) throw new HttpError(400, 'EMPTY_FILE', 'The file is empty; export the capture again.');
   try {
-    const { chunks, result } = await screenUpload(pieces, length, settingsForEngine(engine), !captureStoreTarget(), signal);
-    return { contentType, sizeBytes: size, sha256: hash.digest('hex'), pieces, chunks, screening: result };
+    const { chunks, result, sha256 } = await screenUpload(pieces, length, settingsForEngine(engine), !captureStoreTarget(), signal);
+    return { contentType, sizeBytes: size, sha256, pieces, chunks, screening: result };
   } catch (e) {
     if (isCaptureError(e)) throw new UnreadableCaptureError(e);
     throw e;

@@ -70,7 +70,7 @@ const busy = () => new HttpError(503, 'BUSY', 'The server is busy analysing othe
  * job's engine and the gzip pieces for chunk rows (none when `compress` is false: the file goes to object storage
  * as it is).
  */
-export function screenUpload(pieces: Uint8Array[], length: number, settings: AnalysisSettingsValues, compress: boolean, signal?: AbortSignal): Promise<{ chunks: Uint8Array[]; result: AnalysisResult }> {
+export function screenUpload(pieces: Uint8Array[], length: number, settings: AnalysisSettingsValues, compress: boolean, signal?: AbortSignal): Promise<{ chunks: Uint8Array[]; result: AnalysisResult; sha256: string }> {
   return runTask({ kind: 'screen-upload', pieces, length, settings, compress }, signal);
 }
 

@@ -1,10 +1,11 @@
 /**
  * The engine's work on the server, run in a worker thread of the pool (server/engine/pool.ts), never on the
- * request thread: screening an upload (import every byte, analyse, refuse what holds nothing to analyse,
+ * request thread: screening an upload (hash it, import every byte, analyse, refuse what holds nothing to analyse,
  * compress the pieces for chunk rows), analysing a stored capture, drawing a stored capture's trace excerpt, and
  * rendering a report PDF.
  * Capture errors come back as data (a class does not cross threads).
  */
+import { createHash } from 'node:crypto';
 import type { StoredPieces } from '@/db/capture-store';
 import { compressPiece, unpackPieces } from '@/db/chunks';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
@@ -26,14 +27,16 @@ export interface EngineFailure {
 }
 export type EngineAnswer<T> = { ok: true; value: T } | EngineFailure;
 
-function screenUpload(t: Extract<EngineTask, { kind: 'screen-upload' }>): { chunks: Uint8Array[]; result: AnalysisResult } {
+function screenUpload(t: Extract<EngineTask, { kind: 'screen-upload' }>): { chunks: Uint8Array[]; result: AnalysisResult; sha256: string } {
+  const hash = createHash('sha256');
+  for (const piece of t.pieces) hash.update(piece);
   const importer = new CaptureImporter(t.pieces[0], Math.max(t.length, t.pieces[0].length));
   for (const piece of t.pieces) importer.push(piece);
   const imported = importer.finish();
   const result = analyzeCapture(imported.columns, engineSettings(t.settings), imported.warnings);
   const refusal = refusalFor(imported, result);
   if (refusal) throw refusal;
-  return { chunks: t.compress ? t.pieces.map(compressPiece) : [], result };
+  return { chunks: t.compress ? t.pieces.map(compressPiece) : [], result, sha256: hash.digest('hex') };
 }
 
 const bytesOf = (s: StoredPieces) => unpackPieces(s.pieces, s.size, s.gzip);
