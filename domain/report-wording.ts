@@ -1,5 +1,5 @@
 /** Interpretation wording drawn from a result's verdict and pattern: a starting point the technician edits. */
-import { type AnalysisResult, identityWords, intervalText, METHOD_NAMES, percentText } from '@/signal';
+import { type AnalysisResult, identityWords, intervalText, METHOD_NAMES, NUMBERING_ASSUMED, percentText } from '@/signal';
 
 export function interpretationFor(r: AnalysisResult): string {
   const method = METHOD_NAMES[r.method];
@@ -13,7 +13,8 @@ export function interpretationFor(r: AnalysisResult): string {
   if (low.length === 0) {
     return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found every cylinder within the ${r.settings.lowLimitPercent} % low limit (spread ${r.spreadPercent} points). ${r.pattern.hint}${doubt} ${identity}`;
   }
-  const list = low.map((c) => `cylinder ${c.cylinder} at ${percentText(c.relativePercent, 0)} % (90 % interval ${intervalText(c.interval)} %)`).join(', ');
+  const tag = r.identity === 'assumed' ? ` ${NUMBERING_ASSUMED}` : '';
+  const list = low.map((c) => `cylinder ${c.cylinder}${tag} at ${percentText(c.relativePercent, 0)} % (90 % interval ${intervalText(c.interval)} %)`).join(', ');
   return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found ${list} of the healthy cylinders, below the ${r.settings.lowLimitPercent} % low limit. ${r.pattern.hint}${doubt} ${identity} A relative test does not give pressure in psi or kPa; confirm with a gauge compression test before any teardown.`;
 }
 

@@ -150,7 +150,7 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   const statuses = result.cylinders.map((c) => c.status);
   // A cylinder read low stands even when another is uncertain; otherwise any doubt makes the verdict uncertain.
   const verdict: CylinderStatus = statuses.includes('low') ? 'low' : statuses.includes('high') ? 'high' : statuses.includes('uncertain') ? 'uncertain' : 'ok';
-  const pattern = describePattern(setup, result.cylinders, verdict === 'uncertain');
+  const pattern = describePattern(setup, result.cylinders, verdict === 'uncertain', result.identity === 'assumed');
   const quality = gradeCapture(result.cylinders, result.warnings, isThin(result.method, result.warnings, result.wheel), result.identity === 'assumed');
   return {
     engineVersion: ENGINE_VERSION,

@@ -18,6 +18,7 @@ export type { ToothWheel } from './teeth/wheel';
 export type * from './types';
 export type { QualityWarning, WarningCode } from './steps/warnings';
 export { refusalFor, SURE_MAPPING } from './steps/screen';
+export { NUMBERING_ASSUMED } from './steps/pattern';
 
 /** Imports and analyses a file held in memory: what the server does when it saves an analysis. */
 export function analyzeBytes(

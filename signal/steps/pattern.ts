@@ -11,7 +11,15 @@ export const NEXT_TESTS = {
   inspection: 'Borescope inspection of the cylinder before teardown',
 } as const;
 
-export function describePattern(setup: EngineSetup, cylinders: CylinderResult[], uncertain: boolean): PatternHint {
+/** Said after every cylinder number when no signal names cylinder 1: the numbers are the firing order's guess. */
+export const NUMBERING_ASSUMED = '(numbering assumed: no cylinder 1 signal)';
+
+/**
+ * The pattern and its next tests. With `numberingAssumed`, every sentence that names a cylinder says so, so a
+ * technician does not gauge or open the wrong one on the strength of a guess.
+ */
+export function describePattern(setup: EngineSetup, cylinders: CylinderResult[], uncertain: boolean, numberingAssumed = false): PatternHint {
+  const tag = numberingAssumed ? ` ${NUMBERING_ASSUMED}` : '';
   const low = cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder);
   if (uncertain) {
     return {
@@ -26,7 +34,7 @@ export function describePattern(setup: EngineSetup, cylinders: CylinderResult[],
     return {
       kind: 'high',
       cylinders: high,
-      hint: `Cylinder${high.length > 1 ? 's' : ''} ${high.join(', ')} read${high.length > 1 ? '' : 's'} above the others: carbon build-up or an oil-fouled chamber are possible causes (common on direct-injection engines); confirm with a gauge test.`,
+      hint: `Cylinder${high.length > 1 ? 's' : ''} ${high.join(', ')}${tag} read${high.length > 1 ? '' : 's'} above the others: carbon build-up or an oil-fouled chamber are possible causes (common on direct-injection engines); confirm with a gauge test.`,
       nextTests: [NEXT_TESTS.gauge, NEXT_TESTS.inspection],
     };
   }
@@ -45,8 +53,8 @@ export function describePattern(setup: EngineSetup, cylinders: CylinderResult[],
       kind: 'one-low',
       cylinders: low,
       hint: zero
-        ? `Cylinder ${low[0]} holds almost no compression: a hole in the piston, a broken or badly burnt valve are common causes.`
-        : `Cylinder ${low[0]} is low on its own: a leaking valve is the common cause; worn rings are also possible.`,
+        ? `Cylinder ${low[0]}${tag} holds almost no compression: a hole in the piston, a broken or badly burnt valve are common causes.`
+        : `Cylinder ${low[0]}${tag} is low on its own: a leaking valve is the common cause; worn rings are also possible.`,
       nextTests: [NEXT_TESTS.gauge, NEXT_TESTS.leakage, NEXT_TESTS.wet, ...(zero ? [NEXT_TESTS.inspection] : [])],
     };
   }
@@ -54,14 +62,14 @@ export function describePattern(setup: EngineSetup, cylinders: CylinderResult[],
     return {
       kind: 'neighbours-low',
       cylinders: low,
-      hint: `Cylinders ${low[0]} and ${low[1]} sit next to each other on the same bank and are both low: a head gasket failed between them is a common cause.`,
+      hint: `Cylinders ${low[0]} and ${low[1]}${tag} sit next to each other on the same bank and are both low: a head gasket failed between them is a common cause.`,
       nextTests: [NEXT_TESTS.gauge, NEXT_TESTS.leakageGasket],
     };
   }
   return {
     kind: 'scattered-low',
     cylinders: low,
-    hint: `Several cylinders (${low.join(', ')}) are low: general wear, ring trouble or cam timing are common causes.`,
+    hint: `Several cylinders (${low.join(', ')})${tag} are low: general wear, ring trouble or cam timing are common causes.`,
     nextTests: [NEXT_TESTS.gauge, NEXT_TESTS.wet, NEXT_TESTS.timing, NEXT_TESTS.leakage],
   };
 }

@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyzeBytes } from '@/signal';
 import { CaptureError } from '@/signal/errors';
+import { NUMBERING_ASSUMED } from '@/signal/steps/pattern';
 import { parseWheel } from '@/signal/teeth/wheel';
 import type { EngineSetup } from '@/signal/engine/firing';
 
@@ -34,6 +35,8 @@ describe('curated samples', () => {
     expect(low.length).toBe(lowTruth);
     if (m.synced) expect(low.map((c) => c.cylinder)).toEqual(m.truthPercent!.map((v, i) => (v < 90 ? i + 1 : 0)).filter(Boolean));
     if (lowTruth === 2 && m.synced) expect(result.pattern.kind).toBe('neighbours-low');
+    // A headline that names a cylinder says when its number is a guess (no cylinder 1 signal), and only then.
+    if (lowTruth > 0) expect(result.pattern.hint.includes(NUMBERING_ASSUMED)).toBe(result.identity === 'assumed');
   });
 
   it.each(manifest.filter((m) => m.verdict).map((m) => [m.file, m] as const))('%s gives its verdict and warning', (_f, m) => {
