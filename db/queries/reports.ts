@@ -225,6 +225,24 @@ export async function recordApproval(link: { id: string; shopId: string; reportI
   return { created: null, earlier };
 }
 
+/** The answer given through this link for this revision, if any (the customer's page shows it instead of the buttons). */
+export async function approvalThroughLink(link: { id: string; shopId: string }, revision: number) {
+  const db = await getDb();
+  const [a] = await db
+    .select({ decision: approvals.decision, typedName: approvals.typedName, createdAt: approvals.createdAt })
+    .from(approvals)
+    .where(and(eq(approvals.shopId, link.shopId), eq(approvals.shareLinkId, link.id), eq(approvals.revision, revision)));
+  return a ?? null;
+}
+
+/** Who made a share link, to tell them the customer answered (null when that account is gone). */
+export async function shareLinkMaker(link: { createdBy: string | null }) {
+  if (!link.createdBy) return null;
+  const db = await getDb();
+  const [u] = await db.select({ name: users.name, email: users.email }).from(users).where(eq(users.id, link.createdBy));
+  return u ?? null;
+}
+
 export async function listApprovalsForJob(shopId: string, jobId: string) {
   const db = await getDb();
   return db

@@ -43,6 +43,11 @@ test('sign, e-mail, share, approve, revoke; the old revision stays readable', as
   await customer.getByLabel('Your name').fill('Pat Customer');
   await customer.getByRole('button', { name: 'Approve the next step' }).click();
   await expect(customer.getByText('you approved the recommended next step')).toBeVisible();
+  // After a reload the page shows the answer and its time, not the buttons; the member who made the link is told.
+  await customer.reload();
+  await expect(customer.getByTestId('customer-answer')).toContainText('You approved the recommended next step');
+  await expect(customer.getByRole('button', { name: 'Approve the next step' })).toHaveCount(0);
+  await waitForMail(DEMO.technician, /RO-24104: the customer approved the recommended next step/);
 
   // The advisor sees the answer, against revision 1.
   const advisor = await signIn(DEMO.advisor);

@@ -4,7 +4,7 @@ import { headers } from 'next/headers';
 import { notFound } from 'next/navigation';
 import { LogoMark } from '@/components/brand/logo';
 import { CylinderBars } from '@/components/analysis/cylinder-bars';
-import { findShareLink, reportBundle } from '@/db/queries/reports';
+import { approvalThroughLink, findShareLink, reportBundle } from '@/db/queries/reports';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
 import { withinBudget } from '@/server/rate-limit';
@@ -28,6 +28,8 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
   const r = b.analyses[0]?.analysis.result;
   const vehicle = [b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ');
   const low = r?.cylinders.filter((c) => c.status === 'low') ?? [];
+  const { timeZone } = await getShopSettings(link.shopId);
+  const answer = await approvalThroughLink(link, b.report.revision);
   return (
     <main className="mx-auto flex max-w-2xl flex-col gap-5 px-4 py-8 text-lg">
       <header className="flex items-center gap-3">
@@ -59,9 +61,16 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
             <li key={s}>{s}</li>
           ))}
         </ol>
-        <DecisionForm token={token} revision={b.report.revision} />
+        {answer ? (
+          <p className="mt-3 rounded-xl bg-raised p-3 font-bold" data-testid="customer-answer">
+            {answer.decision === 'approve' ? 'You approved the recommended next step' : 'You declined the recommended next step for now'} on {formatWhen(answer.createdAt, timeZone)} (signed “{answer.typedName}”). The shop has been told; call
+            them to change it.
+          </p>
+        ) : (
+          <DecisionForm token={token} revision={b.report.revision} />
+        )}
       </section>
-      <p className="text-sm text-muted">Report revision {b.report.revision}. This page expires on {formatWhen(link.expiresAt, (await getShopSettings(link.shopId)).timeZone)}.</p>
+      <p className="text-sm text-muted">Report revision {b.report.revision}. This page expires on {formatWhen(link.expiresAt, timeZone)}.</p>
     </main>
   );
 }
