@@ -19,6 +19,7 @@ import { CylinderBars } from './cylinder-bars';
 import { Findings } from './findings';
 import { MappingDialog } from './mapping-dialog';
 import { ResultsTable } from './results-table';
+import { sameSettings } from './settings-differences';
 import { type ProfileOption, SettingsPanel } from './settings-panel';
 import { type TraceData, type TraceHandle, TraceChart, type TraceSeries } from './trace-chart';
 import { localUpload } from './local-files';
@@ -30,12 +31,14 @@ interface Props {
   captureId: string;
   rawUrl: string;
   initialSettings: AnalysisSettingsValues;
+  /** The saved analysis this page was opened on, if any: the page says whether the settings still match it. */
+  savedAs?: { when: string; settings: AnalysisSettingsValues };
   profiles: ProfileOption[];
   userId: string;
   canSave: boolean;
 }
 
-export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId, canSave }: Props) {
+export function Workspace({ captureId, rawUrl, initialSettings, savedAs, profiles, userId, canSave }: Props) {
   const router = useRouter();
   const [settings, setSettings] = useUrlSettings(initialSettings);
   const w = useAnalysisWorker();
@@ -111,11 +114,18 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
     [shown, decimate],
   );
 
+  // "Saved." speaks of the settings that were saved: a later change takes it away.
+  const settingsKey = JSON.stringify(settings);
+  const [savedWith, setSavedWith] = useState<string | null>(null);
   const save = useMutation({
-    mutationFn: () => api<{ analysis: { id: string; result: AnalysisResult } }>(`/api/captures/${captureId}/analyses`, { method: 'POST', json: { settings } }),
+    mutationFn: (key: string) => api<{ analysis: { id: string; result: AnalysisResult } }>(`/api/captures/${captureId}/analyses`, { method: 'POST', json: { settings } }).then(() => key),
     // The saved-analyses list is rendered on the server: refresh it.
-    onSuccess: () => router.refresh(),
+    onSuccess: (key) => {
+      setSavedWith(key);
+      router.refresh();
+    },
   });
+  const openedMatches = savedAs ? sameSettings(settings, savedAs.settings) : null;
 
   const events = result?.events ?? [];
   const onKey = (e: React.KeyboardEvent) => {
@@ -225,6 +235,11 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
                   </p>
                 )}
                 {result.identityNote && <p className="text-sm text-muted">{result.identityNote}</p>}
+                {savedAs && (
+                  <p className="text-sm font-bold" data-testid="opened-saved">
+                    {openedMatches ? `The saved analysis of ${savedAs.when}, with its settings.` : `Settings changed since the analysis of ${savedAs.when} was saved.`}
+                  </p>
+                )}
                 <CylinderBars cylinders={result.cylinders} lowLimit={settings.lowLimitPercent} highLimit={settings.highLimitPercent} onHover={setHighlighted} highlighted={highlighted} />
                 <Findings result={result} onTryCylinders={(k) => setSettings({ ...settings, engine: engineOf(k, profiles, settings.engine.layout), rotation: 0 })} />
                 <div className="mt-4">
@@ -240,10 +255,10 @@ export function Workspace({ captureId, rawUrl, initialSettings, profiles, userId
             <SettingsPanel settings={settings} onChange={setSettings} profiles={profiles} identityAssumed={result?.identity === 'assumed'} />
             {canSave ? (
               <div className="flex flex-col gap-2 border-t border-line pt-3">
-                <Button onClick={() => save.mutate()} disabled={!result || save.isPending}>
+                <Button onClick={() => save.mutate(settingsKey)} disabled={!result || save.isPending}>
                   {save.isPending ? 'Saving…' : 'Save this analysis'}
                 </Button>
-                {save.isSuccess && (
+                {save.isSuccess && savedWith === settingsKey && (
                   <Notice tone="ok">
                     <span data-testid="saved">Saved. The server re-ran the engine on the stored file.</span>
                   </Notice>

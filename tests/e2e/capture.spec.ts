@@ -140,6 +140,21 @@ test('settings typed like a person: a half-typed limit changes nothing, a wrong 
   await expect(page.getByTestId('saved')).toBeVisible({ timeout: 30_000 });
   const stored = await (await page.request.get(`/api/captures/${captures[0].id}`)).json();
   expect(stored.analyses[0].settings).toMatchObject({ lowLimitPercent: 85, highLimitPercent: 120, engine: { firingOrder: [1, 2, 4, 3] } });
+  // "Saved." speaks of the settings saved: a later change takes it away.
+  await type('Spread limit (%)', '12');
+  await page.getByLabel('Spread limit (%)').press('Enter');
+  await expect(page.getByTestId('saved')).toHaveCount(0);
+  // The list names what differs from the job's engine, and opens the analysis with its settings.
+  const newest = page.locator('section[aria-labelledby=history] li').first();
+  await expect(newest).toContainText('settings: firing order 1-2-4-3, low limit 85 %, upper limit 120 %');
+  await expect(newest).toContainText('analysis version');
+  await newest.getByTestId('open-saved').click();
+  await expect(page.getByTestId('opened-saved')).toHaveText(/with its settings/, { timeout: 60_000 });
+  await expect(page.getByLabel('Low limit (%)')).toHaveValue('85');
+  await expect(page.getByLabel('Spread limit (%)')).toHaveValue('10');
+  await type('Low limit (%)', '80');
+  await page.getByLabel('Low limit (%)').press('Enter');
+  await expect(page.getByTestId('opened-saved')).toHaveText(/Settings changed since/);
 });
 
 test('an advisor sees captures but cannot upload, in the page or through the API', async ({ page }) => {

@@ -3,6 +3,8 @@ import type { Metadata } from 'next';
 import { JobBreadcrumb } from '@/components/ui/job-breadcrumb';
 import { notFound } from 'next/navigation';
 import { Suspense } from 'react';
+import Link from 'next/link';
+import { settingsDifferences } from '@/components/analysis/settings-differences';
 import { Workspace } from '@/components/analysis/workspace';
 import { getCapture, listAnalyses } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
@@ -13,15 +15,22 @@ import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
 
 export const metadata: Metadata = { title: 'Analysis' };
 
-export default async function CapturePage({ params }: { params: Promise<{ jobId: string; captureId: string }> }) {
+export default async function CapturePage({ params, searchParams }: { params: Promise<{ jobId: string; captureId: string }>; searchParams: Promise<{ a?: string }> }) {
   const { jobId, captureId } = await params;
+  const { a: openedId } = await searchParams;
   const m = await pageMember(`/jobs/${jobId}/captures/${captureId}`);
   const [job, capture] = await Promise.all([getJob(m.shop.id, jobId), getCapture(m.shop.id, captureId)]);
   if (!job || !capture || capture.jobId !== job.id) notFound();
   const history = await listAnalyses(m.shop.id, capture.id);
   const fromVehicle = settingsForEngine(job.vehicle.engine);
-  const saved = history[0] ? analysisSettingsSchema.safeParse(history[0].settings) : null;
-  const initial = saved?.success ? saved.data : fromVehicle;
+  // A saved analysis opened from the list (?a=…) starts from its settings; otherwise the latest save's, or the job's engine.
+  const opened = history.find((h) => h.id === openedId) ?? null;
+  const settingsOf = (h: (typeof history)[number] | undefined) => {
+    const parsed = h ? analysisSettingsSchema.safeParse(h.settings) : null;
+    return parsed?.success ? parsed.data : null;
+  };
+  const initial = settingsOf(opened ?? history[0]) ?? fromVehicle;
+  const savedAs = opened && settingsOf(opened) ? { when: formatWhen(opened.createdAt, m.shop.settings.timeZone), settings: settingsOf(opened)! } : undefined;
   const own = await listProfiles(m.shop.id);
   const profiles = [
     ...own.map((p) => ({ key: `shop-${p.id}`, label: `${p.label} (shop)`, engine: { ...p.engine, numbering: p.engine.numbering ?? 'along-crank' } })),
@@ -36,7 +45,15 @@ export default async function CapturePage({ params }: { params: Promise<{ jobId:
         {[job.vehicle.year, job.vehicle.make, job.vehicle.model].filter(Boolean).join(' ')} — <span className="figures">{capture.fileName}</span>
       </h1>
       <Suspense>
-        <Workspace captureId={capture.id} rawUrl={`/api/captures/${capture.id}/raw`} initialSettings={initial} profiles={profiles} userId={m.user.id} canSave={m.can({ analysis: ['save'] })} />
+        <Workspace
+          captureId={capture.id}
+          rawUrl={`/api/captures/${capture.id}/raw`}
+          initialSettings={initial}
+          savedAs={savedAs}
+          profiles={profiles}
+          userId={m.user.id}
+          canSave={m.can({ analysis: ['save'] })}
+        />
       </Suspense>
       <section aria-labelledby="history" className="rounded-2xl border border-line bg-surface p-4">
         <h2 id="history" className="text-lg font-bold">
@@ -46,11 +63,23 @@ export default async function CapturePage({ params }: { params: Promise<{ jobId:
           <p className="text-muted">None yet. Each save adds one; none is overwritten.</p>
         ) : (
           <ul className="mt-2 flex flex-col divide-y divide-line">
-            {history.map((a) => (
-              <li key={a.id} className="figures py-2 text-sm">
-                {formatWhen(a.createdAt, m.shop.settings.timeZone)} · verdict {a.verdict} · {a.crankingRpm?.toFixed(0)} rpm · engine {a.engineVersion} · file {a.fileSha256.slice(0, 12)}…
-              </li>
-            ))}
+            {history.map((a) => {
+              const s = settingsOf(a);
+              const differs = s ? settingsDifferences(s, fromVehicle) : [];
+              return (
+                <li key={a.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2 text-sm">
+                  <span>
+                    <span className="figures">{formatWhen(a.createdAt, m.shop.settings.timeZone)}</span> · verdict {a.verdict} · <span className="figures">{a.crankingRpm?.toFixed(0)} rpm</span> ·{' '}
+                    {differs.length ? `settings: ${differs.join(', ')}` : 'the job’s engine and default limits'} · analysis version <span className="figures">{a.engineVersion}</span>
+                  </span>
+                  {s && (
+                    <Link className="font-bold underline" href={`/jobs/${job.id}/captures/${capture.id}?a=${a.id}&s=${encodeURIComponent(JSON.stringify(s))}`} data-testid="open-saved">
+                      Open with its settings
+                    </Link>
+                  )}
+                </li>
+              );
+            })}
           </ul>
         )}
       </section>
