@@ -24,7 +24,8 @@ export const jobSchema = z
       .max(30, 'Keep the repair-order number under 30 characters.')
       .refine((v) => ![...v].some((ch) => ch.charCodeAt(0) < 32 || ch.charCodeAt(0) === 127), 'Write the repair-order number on one line, without tabs or line breaks.'),
     odometer: z.preprocess(
-      (v) => (v === '' || v === null ? undefined : v),
+      // "92,400", "92 400" and "92.400" are how people write 92400: separators between groups of three go.
+      (v) => (v === '' || v === null ? undefined : typeof v === 'string' && /^\s*\d{1,3}([,.\s'’\u202f]\d{3})+\s*$/.test(v) ? v.replace(/[^\d]/g, '') : v),
       z.coerce.number().int('The odometer reading is a whole number.').min(0, 'The odometer cannot be negative.').max(3_000_000, 'That odometer reading is too large.').optional(),
     ),
     odometerUnit: z.enum(['km', 'mi']).default('km'),
