@@ -155,6 +155,9 @@ test('the job page shows the reason for every refused file and lists nothing; an
       const item = page.locator('[data-testid=capture-list] a', { hasText: name });
       await expect(item, c.name).toBeVisible({ timeout: 30_000 });
       await item.click();
+      // The job page may show its own cautions (for the file just chosen): wait until the workspace is the page.
+      await page.waitForURL(/\/captures\//);
+      await expect(page.getByRole('heading', { level: 1, name: new RegExp(name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')) })).toBeVisible({ timeout: 30_000 });
       // The cautions come first on this device, once; then the workspace asks which column is which.
       const gate = page.getByRole('button', { name: /I have read this/ });
       const mapping = page.locator('[role=dialog][aria-labelledby=mapping-title]');

@@ -34,6 +34,8 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
   const item = page.locator('[data-testid=capture-list] a', { hasText: 'i4-noisy-current-sync.csv' });
   await expect(item).toBeVisible({ timeout: 30_000 });
   await item.click();
+  // The workspace's own cautions, not the job page's (which may still be on screen while the page changes).
+  await page.waitForURL(/\/captures\//);
   await page.getByRole('button', { name: /I have read this/ }).click();
   await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 30_000 });
   await expect(page.getByTestId('row-1').getByTestId('status')).toHaveText('low');
@@ -192,6 +194,8 @@ test('a 1M-sample capture from choosing it to bars on screen (logged, not assert
   await expect(item).toBeVisible({ timeout: 60_000 });
   const uploaded = Date.now();
   await item.click();
+  // The workspace's own cautions, not the job page's (which may still be on screen while the page changes).
+  await page.waitForURL(/\/captures\//);
   await page.getByRole('button', { name: /I have read this/ }).click();
   await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 60_000 });
   const done = Date.now();
