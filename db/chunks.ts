@@ -70,20 +70,13 @@ const gunzipAsync = promisify(gunzip);
  */
 export function unpackedChunkStream(db: Pick<Db, 'select'>, captureId: string): ReadableStream<Uint8Array> {
   let seq = 0;
-  let queue: Uint8Array[] = [];
-  let last = false;
   return new ReadableStream<Uint8Array>(
     {
+      // One piece per query: the smallest slices of this thread's time, between which other requests run.
       async pull(ctrl) {
-        // One piece per query: the smallest slices of this thread's time, between which other requests run.
-        if (queue.length === 0 && !last) {
-          queue = await readBatch(db, captureId, seq, 1);
-          seq += queue.length;
-          last = queue.length < 1;
-        }
-        const next = queue.shift();
-        if (!next) return ctrl.close();
-        ctrl.enqueue(new Uint8Array(await gunzipAsync(next)));
+        const [piece] = await readBatch(db, captureId, seq++, 1);
+        if (!piece) return ctrl.close();
+        ctrl.enqueue(new Uint8Array(await gunzipAsync(piece)));
       },
     },
     { highWaterMark: 2 },

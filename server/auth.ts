@@ -10,7 +10,7 @@ import { organization } from 'better-auth/plugins';
 import { getDb } from '@/db/client';
 import * as schema from '@/db/schema';
 import { recordAudit } from '@/db/queries/audit';
-import { authLogLine, log } from './log';
+import { authLogLine, log, safeError } from './log';
 import { sendMail } from './mail';
 import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
 import { ac, roles } from './permissions';
@@ -121,7 +121,7 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
 function sendMailLogged(message: Parameters<typeof sendMail>[0]): Promise<void> {
   return sendMail(message).then(
     () => undefined,
-    (e: Error) => log.warn({ reason: e.message.split('\n')[0].slice(0, 300), subject: message.subject }, 'mail not sent'),
+    (e: unknown) => log.warn({ err: safeError(e), subject: message.subject }, 'mail not sent'),
   );
 }
 

@@ -3,7 +3,7 @@
  * minutes, in the server process only. Several instances may sweep at once: removing a removed object is no error.
  */
 import { flushObjectDeletes, pendingObjectDeleteCount } from '@/db/queries/object-deletes';
-import { log } from './log';
+import { log, safeError } from './log';
 
 const EVERY_MS = 5 * 60_000;
 const g = globalThis as unknown as { __crankprintSweeper?: NodeJS.Timeout };
@@ -23,7 +23,7 @@ export async function sweepObjectDeletes(): Promise<number> {
 
 export function startObjectSweeper(): void {
   if (g.__crankprintSweeper) return;
-  const run = () => void sweepObjectDeletes().catch((e: Error) => log.warn({ reason: e.message.split('\n')[0].slice(0, 300) }, 'object storage sweep failed'));
+  const run = () => void sweepObjectDeletes().catch((e: unknown) => log.warn({ err: safeError(e) }, 'object storage sweep failed'));
   setTimeout(run, 5_000).unref();
   g.__crankprintSweeper = setInterval(run, EVERY_MS).unref();
 }

@@ -17,7 +17,6 @@ export type LoadState =
 
 export function useAnalysisWorker() {
   const remote = useRef<Comlink.Remote<AnalysisWorker> | null>(null);
-  const worker = useRef<Worker | null>(null);
   const [load, setLoad] = useState<LoadState>({ phase: 'idle' });
   /** Counts workers started: a new one (strict-mode remount, fast refresh) must be loaded again. */
   const [generation, setGeneration] = useState(0);
@@ -27,7 +26,6 @@ export function useAnalysisWorker() {
 
   useEffect(() => {
     const w = new Worker(new URL('../../workers/analysis.worker.ts', import.meta.url), { type: 'module' });
-    worker.current = w;
     setLoad({ phase: 'loading', stage: 'starting', fraction: 0 });
     // A worker whose script could not load never answers: say so instead of waiting.
     w.onerror = () => setLoad({ phase: 'error', error: { code: 'NO_WORKER', message: 'The analysis could not start in this browser; reload the page.' } });

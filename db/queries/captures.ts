@@ -9,7 +9,7 @@ import { readStoredPieces, type StoredPieces, storedStream } from '../capture-st
 import { insertChunks } from '../chunks';
 import { getDb } from '../client';
 import { captureStoreTarget, newCaptureUrl, putObject } from '../object-store';
-import { flushObjectDeletes, queueObjectDeletes } from './object-deletes';
+import { removeObjectsNowOrLater } from './object-deletes';
 import { analyses, captures, jobs } from '../schema';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
@@ -92,19 +92,12 @@ export async function createCapture(shopId: string, c: NewCapture, signal?: Abor
       return row;
     });
     // The job went while the object was written: the object goes too, before the answer.
-    if (!row && storageUrl) await removeOrQueue(storageUrl);
+    if (!row && storageUrl) await removeObjectsNowOrLater([storageUrl]);
     return row;
   } catch (e) {
-    if (storageUrl) await removeOrQueue(storageUrl);
+    if (storageUrl) await removeObjectsNowOrLater([storageUrl]);
     throw e;
   }
-}
-
-/** Removes an object that no row names; queued for a retry if storage does not remove it now. */
-async function removeOrQueue(url: string): Promise<void> {
-  const db = await getDb();
-  await queueObjectDeletes(db, [url]);
-  await flushObjectDeletes([url]);
 }
 
 export async function listCaptures(shopId: string, jobId: string) {

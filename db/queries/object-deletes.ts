@@ -39,6 +39,12 @@ export async function flushObjectDeletes(urls?: string[]): Promise<{ removed: nu
   return { removed: batch.length, left: 0 };
 }
 
+/** Removes objects no row names any more: queued first, so one that storage does not remove now is retried later. */
+export async function removeObjectsNowOrLater(urls: string[]): Promise<{ removed: number; left: number }> {
+  await queueObjectDeletes(await getDb(), urls);
+  return flushObjectDeletes(urls);
+}
+
 /** How many objects wait to be removed (for db:check and the health of storage). */
 export async function pendingObjectDeleteCount(): Promise<number> {
   const db = await getDb();

@@ -7,19 +7,16 @@ import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { type Db, getDb } from '@/db/client';
-import { analyses, organizations } from '@/db/schema';
-import { seedDemoIfEmpty } from '@/db/seed';
+import type { Db } from '@/db/client';
+import { analyses } from '@/db/schema';
 import { safeError } from '@/server/log';
+import { seededDemo } from '../support/seeded-db';
 
 let db: Db;
 let shopId: string;
 
 beforeAll(async () => {
-  if (!process.env.DATABASE_URL) process.env.CRANKPRINT_DATA_DIR = mkdtempSync(join(tmpdir(), 'crankprint-log-'));
-  db = await getDb();
-  await seedDemoIfEmpty(db);
-  [{ id: shopId }] = await db.select({ id: organizations.id }).from(organizations).limit(1);
+  ({ db, shopId } = await seededDemo(mkdtempSync(join(tmpdir(), 'crankprint-log-'))));
 }, 60_000);
 
 describe('a database error as the log keeps it', () => {

@@ -14,15 +14,15 @@ import { join } from 'node:path';
 import { ListObjectsV2Command } from '@aws-sdk/client-s3';
 import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { type Db, getDb } from '@/db/client';
+import type { Db } from '@/db/client';
 import { captureStoreTarget, s3, STORAGE_TIMEOUTS, StorageUnavailableError, storageAnswers } from '@/db/object-store';
 import { createCapture, readCaptureStream } from '@/db/queries/captures';
 import { deleteJob } from '@/db/queries/jobs';
 import { pendingObjectDeleteCount } from '@/db/queries/object-deletes';
-import { auditEvents, captures, jobs, organizations, users } from '@/db/schema';
-import { seedDemoIfEmpty } from '@/db/seed';
+import { auditEvents, captures, jobs } from '@/db/schema';
 import { sweepObjectDeletes } from '@/server/object-sweeper';
 import { type LocalS3, startLocalS3 } from '../support/s3-server';
+import { seededDemo } from '../support/seeded-db';
 import { startSwitchProxy, type SwitchProxy } from '../support/switch-proxy';
 
 let store: LocalS3;
@@ -60,11 +60,7 @@ beforeAll(async () => {
   store = await startLocalS3('crankprint-faults', 'shops');
   proxy = await startSwitchProxy(Number(new URL(store.env.AWS_ENDPOINT_URL_S3).port));
   Object.assign(process.env, store.env, { AWS_ENDPOINT_URL_S3: proxy.url });
-  if (!process.env.DATABASE_URL) process.env.CRANKPRINT_DATA_DIR = mkdtempSync(join(tmpdir(), 'crankprint-faults-'));
-  db = await getDb();
-  await seedDemoIfEmpty(db);
-  [{ id: shopId }] = await db.select({ id: organizations.id }).from(organizations).limit(1);
-  [{ id: userId }] = await db.select({ id: users.id }).from(users).limit(1);
+  ({ db, shopId, userId } = await seededDemo(mkdtempSync(join(tmpdir(), 'crankprint-faults-'))));
 }, 60_000);
 
 afterAll(async () => {

@@ -13,14 +13,14 @@ import { DeleteObjectCommand, ListObjectsV2Command, PutObjectCommand } from '@aw
 import { and, eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { joinStoredPieces } from '@/db/capture-store';
-import { type Db, getDatabase, getDb } from '@/db/client';
+import { type Db, getDatabase } from '@/db/client';
 import { checkIntegrity } from '@/db/integrity';
 import { headObject, parseObjectUrl, s3 } from '@/db/object-store';
 import { createCapture, DuplicateCaptureError, readCapturePacked, readCaptureStream } from '@/db/queries/captures';
 import { deleteJob } from '@/db/queries/jobs';
-import { captures, jobs, organizations, users } from '@/db/schema';
-import { seedDemoIfEmpty } from '@/db/seed';
+import { captures, jobs } from '@/db/schema';
 import { type LocalS3, startLocalS3 } from '../support/s3-server';
+import { seededDemo } from '../support/seeded-db';
 
 const FILE = 'samples/i4-noisy-current-sync.csv';
 /** A command line, run without blocking this process (the S3 server the command talks to runs here). */
@@ -59,11 +59,7 @@ async function newJob(ro: string): Promise<string> {
 beforeAll(async () => {
   store = await startLocalS3();
   Object.assign(process.env, store.env);
-  if (!process.env.DATABASE_URL) process.env.CRANKPRINT_DATA_DIR = dataDir;
-  db = await getDb();
-  await seedDemoIfEmpty(db);
-  [{ id: shopId }] = await db.select({ id: organizations.id }).from(organizations).limit(1);
-  [{ id: userId }] = await db.select({ id: users.id }).from(users).limit(1);
+  ({ db, shopId, userId } = await seededDemo(dataDir));
 }, 60_000);
 
 afterAll(async () => {

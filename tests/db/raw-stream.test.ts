@@ -9,10 +9,10 @@ import { join } from 'node:path';
 import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { CHUNK_BYTES, compressPiece } from '@/db/chunks';
-import { type Db, getDb } from '@/db/client';
+import type { Db } from '@/db/client';
 import { createCapture, readCaptureStream } from '@/db/queries/captures';
-import { jobs, organizations, users } from '@/db/schema';
-import { seedDemoIfEmpty } from '@/db/seed';
+import { jobs } from '@/db/schema';
+import { seededDemo } from '../support/seeded-db';
 
 let db: Db;
 let shopId: string;
@@ -20,12 +20,8 @@ let userId: string;
 let jobId: string;
 
 beforeAll(async () => {
-  if (!process.env.DATABASE_URL) process.env.CRANKPRINT_DATA_DIR = mkdtempSync(join(tmpdir(), 'crankprint-raw-'));
   delete process.env.CAPTURE_STORE;
-  db = await getDb();
-  await seedDemoIfEmpty(db);
-  [{ id: shopId }] = await db.select({ id: organizations.id }).from(organizations).limit(1);
-  [{ id: userId }] = await db.select({ id: users.id }).from(users).limit(1);
+  ({ db, shopId, userId } = await seededDemo(mkdtempSync(join(tmpdir(), 'crankprint-raw-'))));
   [{ id: jobId }] = await db.select({ id: jobs.id }).from(jobs).where(eq(jobs.shopId, shopId)).limit(1);
 }, 60_000);
 
