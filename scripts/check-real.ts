@@ -82,6 +82,10 @@ function expectations(file: string, r: AnalysisResult, mappingConfidence: number
       ['3. plugs in: spread within the limit', r.spreadPercent <= r.settings.spreadLimitPercent && !codes.includes('SPREAD_HIGH')],
       [`3. plugs in: identity from the ${source} channel`, r.identity === source],
     );
+    if (file.startsWith('v6-')) {
+      // Issue 19, point 1: where the teeth are fine enough for the crank-speed fit, event duration checks it.
+      checks.push(['3. plugs-in V6: the event-duration reading of the same teeth checks the figures and agrees', r.crossCheck?.method === 'event-duration' && r.crossCheck.agree]);
+    }
     if (file.startsWith('i4-small')) {
       checks.push([
         '3. small I4: the two methods agree, or the wheel is said to be too coarse',

@@ -16,7 +16,8 @@ import { runFit } from './steps/run-fit';
 import { type QualityWarning, warning } from './steps/warnings';
 import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, CylinderStatus, Method, MethodResult, WheelInfo } from './types';
 import { ENGINE_VERSION } from './version';
-import { cylinderIntervals, widenToward } from './steps/interval';
+import { cylinderIntervals } from './steps/interval';
+import { crossCheck as compareMethods } from './steps/cross-check';
 import { gradeCapture, holdAfterLow, holdHigh, isThin, type Limits, settleStatuses } from './steps/status';
 import { quantileProbe } from './dsp/stats';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
@@ -79,7 +80,14 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
       const read = readTeeth();
       if (!read) return { ok: false, warnings: [warning('NO_CRANKING', NO_TEETH)] };
       return runEventDurationMethod(
-        { teeth: read.teeth, ...wheelForDurations(read, columns.marks), marks: columns.marks, markOffsetDeg: settings.markOffsetDeg, lowLimitPercent: lowLimit },
+        {
+          teeth: read.teeth,
+          ...wheelForDurations(read, columns.marks),
+          marks: columns.marks,
+          markOffsetDeg: settings.markOffsetDeg,
+          sync: columns.sync && columns.time ? { time: columns.time, values: columns.sync } : undefined,
+          lowLimitPercent: lowLimit,
+        },
         setup,
         rotation,
         settings.window,
@@ -116,33 +124,22 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
 
   let crossCheck: AnalysisResult['crossCheck'];
   const electrical: Method | null = hasCurrent ? 'current' : hasBattery ? 'battery' : null;
+  // Teeth fine enough for a speed curve are timed event by event as well, when no electrical channel checks them
+  // (not where the engine fired: crank speed leaves those events out, event duration cannot tell them).
+  const fired = result.warnings.some((w) => w.code === 'ENGINE_FIRED');
+  const teethCheck: Method | null = primary === 'crank-speed' && hasTeeth && result.wheel && !result.wheel.tooCoarse && !fired ? 'event-duration' : null;
   const otherMethod: Method | null =
-    choice !== 'auto' ? null : primary === 'crank-speed' || primary === 'event-duration' ? electrical : hasCrank ? 'crank-speed' : null;
+    choice !== 'auto' ? null : primary === 'crank-speed' || primary === 'event-duration' ? (electrical ?? teethCheck) : hasCrank ? 'crank-speed' : null;
   if (otherMethod) {
     const other = resultOf(otherMethod);
     // A method whose own evidence is thin (a wheel too coarse for crank speed, say) is no check on the other.
-    const otherThin = isThin(other.method, other.warnings, other.wheel);
-    if (!otherThin && other.fitQuality > 0 && result.cylinders.every((c) => c.relativePercent !== null) && other.cylinders.every((c) => c.relativePercent !== null)) {
-      let maxDifference = 0;
-      for (let c = 0; c < result.cylinders.length; c++) {
-        maxDifference = Math.max(maxDifference, Math.abs(result.cylinders[c].relativePercent! - other.cylinders[c].relativePercent!));
-      }
-      const sameLow = result.cylinders.every((c, i) => (c.status === 'low') === (other.cylinders[i].status === 'low'));
-      const agree = sameLow && maxDifference <= 8;
-      crossCheck = {
-        method: otherMethod,
-        cylinders: other.cylinders.map((c) => ({ cylinder: c.cylinder, relativePercent: c.relativePercent, status: c.status })),
-        agree,
-        maxDifference: Math.round(maxDifference * 10) / 10,
-      };
-      // Disagreement widens each interval halfway to the other method's figure, and the statuses follow.
-      for (let c = 0; c < result.cylinders.length; c++) {
-        const mine = result.cylinders[c];
-        if (mine.interval) mine.interval = widenToward(mine.interval, other.cylinders[c].relativePercent!);
-      }
+    const checked = !isThin(other.method, other.warnings, other.wheel) && other.fitQuality > 0 ? compareMethods(result, other, setup.firingOrder) : null;
+    if (checked) {
+      crossCheck = checked;
       settle(result.cylinders, result.method, result.warnings, result.wheel, setup, limits);
-      if (!agree) {
-        result.warnings.push(warning('METHODS_DISAGREE', `The ${METHOD_WORDS[primary]} and ${METHOD_WORDS[otherMethod]} methods differ by up to ${crossCheck.maxDifference} points; check both probes and the firing order before trusting either.`));
+      if (!checked.agree) {
+        const check = otherMethod === teethCheck ? 'the wheel, the cylinder count and the firing order' : 'both probes and the firing order';
+        result.warnings.push(warning('METHODS_DISAGREE', `The ${METHOD_WORDS[primary]} and ${METHOD_WORDS[otherMethod]} methods differ by up to ${checked.maxDifference} points; check ${check} before trusting either.`));
       }
     }
   }

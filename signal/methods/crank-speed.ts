@@ -12,7 +12,7 @@ import { type CrankMotion, meanRpm, motionFromSpeed, motionFromTeeth } from '../
 import { runFit } from '../steps/run-fit';
 import { eventCountWarning, meanAbs, MIN_SPEED_ORDER_SHARE, resampleByAngle } from '../steps/event-count';
 import { orderAmplitude } from '../dsp/event-rate';
-import { findSyncPulses } from '../steps/sync-pulses';
+import { findSyncPulses, SYNC_PULSE_MISSING } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../steps/warnings';
 import { guessSensorKind, type SensorKind, toothTimesFromWaveform } from '../teeth/from-waveform';
 import { dropGlitches, learnWheel, type WheelAngles, wheelAngles } from '../teeth/learn-wheel';
@@ -211,7 +211,7 @@ export function runCrankSpeedMethod(
       shiftAngles(motion, angleAtTime(angles.times, angles.angleDeg, pulses[0]));
       identity = 'sync';
     } else {
-      warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
+      warnings.push(warning('SYNC_NOT_FOUND', SYNC_PULSE_MISSING));
     }
   } else if (input.marks?.length) {
     // A cam with several windows a cycle is first reduced to its once-a-cycle edge.

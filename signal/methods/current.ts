@@ -14,7 +14,7 @@ import { findPeaks } from '../steps/find-peaks';
 import { symmetryStep } from '../steps/identity';
 import { runFit } from '../steps/run-fit';
 import { eventCountWarning } from '../steps/event-count';
-import { findSyncPulses } from '../steps/sync-pulses';
+import { findSyncPulses, SYNC_PULSE_MISSING } from '../steps/sync-pulses';
 import type { TorqueFit } from '../steps/torque-fit';
 import type { Summary } from '../steps/summarize';
 import type { IdentitySource, WheelInfo } from '../types';
@@ -109,7 +109,7 @@ export function runCurrentMethod(
       const mismatch = eventCountWarning(slice, (rate * 120) / rpm, n, 'starter current between cylinder 1 sync pulses');
       if (mismatch) warnings.push(mismatch);
     } else {
-      warnings.push(warning('SYNC_NOT_FOUND', 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.'));
+      warnings.push(warning('SYNC_NOT_FOUND', SYNC_PULSE_MISSING));
     }
   }
   if (identity === 'assumed') {

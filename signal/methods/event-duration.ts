@@ -1,19 +1,20 @@
 /**
  * The event-duration method, for any wheel, from one tooth per compression event upward: the time the crank takes
  * through each cylinder's segment of crank angle.
- *  - On a fine wheel the segment is the compression half (half a firing interval before TDC up to it), timed
- *    against the time it would take at its entry speed: a stronger cylinder slows the crank more into TDC, and a
- *    slow entry after a weak neighbour does not count. The healthy cylinders' excess is the share compression adds.
- *  - On a coarse wheel (or teeth spread evenly by count) segments are whole events between teeth, each over its
- *    engine cycle's mean so the speed trend cancels, and a cylinder is read from the event after it (a leaking
- *    cylinder lengthens that one most: COARSE_GAIN), with the gain's range and the neighbours' readings in the
- *    interval.
+ *  - On a fine wheel the segment is the compression half (half a firing interval before TDC up to it); on a
+ *    coarse wheel (or teeth spread evenly by count) a whole event between teeth.
+ *  - Each duration per degree is taken over its engine cycle's mean, so the speed trend cancels, and over the
+ *    healthy events of its own shape (uneven firing intervals give events of two kinds).
+ *  - A cylinder is read from the event after it: a leaking cylinder lengthens that one most (FINE_GAIN, COARSE_GAIN),
+ *    with the gain's range and the neighbours' readings in the interval.
+ *  - Where the teeth also give a speed curve, the crank-speed method leads and this one checks it.
  */
 import { type EngineSetup, firingIntervals } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { median, quantile, stdDev } from '../dsp/stats';
 import type { CylinderMarks } from '../import/edge-log';
 import { findEngineStart, startedTooSoon } from '../steps/cranking-end';
+import { findSyncPulses, SYNC_PULSE_MISSING } from '../steps/sync-pulses';
 import { type CrankingWindow, NOT_STEADY } from '../steps/cranking-window';
 import { motionFromTeeth } from '../steps/crank-motion';
 import { detrendedDurations, type DurationEvent, eventSegments, timeAtAngle } from '../steps/event-durations';
@@ -42,6 +43,8 @@ export interface DurationInput {
   wheel?: WheelInfo;
   marks?: CylinderMarks[];
   markOffsetDeg?: number;
+  /** A cylinder 1 sync channel (a pulse at its compression TDC) and its sample times. */
+  sync?: { time: Float64Array; values: Float64Array };
   lowLimitPercent: number;
 }
 
@@ -65,8 +68,21 @@ const MAX_EVENT_RPM = 450;
  * spanning its range.
  */
 const COARSE_GAIN = { mid: 0.35, low: 0.2, high: 0.6 };
-/** On a fine wheel the measured share is good to this factor either way (the entry speed is not quite the no-compression speed). */
-const FINE_SHARE_FACTOR = 1.3;
+/**
+ * On a fine wheel each segment is the compression half of an event (half a firing interval before TDC up to it),
+ * where the speed the crank enters with matters most, and a cylinder is read from the next event's half too. Its
+ * lengthening per unit of lost compression grows with the cylinder count (shorter events, less time to recover):
+ * measured on the simulator with leaks through the stroke, one and two leaking cylinders at 37–75 %, 0.2 on an I3,
+ * 0.42 on an I4, 0.75 on an I5, 1.0 on an I6 and 0.8–1.1 on an odd-fire V6, 1.1–1.35 on a V8: about a quarter
+ * per cylinder past 2.2, good to the factor FINE_GAIN_FACTOR either way.
+ */
+function fineGain(cylinders: number): { mid: number; low: number; high: number } {
+  const mid = Math.min(1.5, Math.max(0.15, 0.25 * (cylinders - 2.2)));
+  return { mid, low: mid / FINE_GAIN_FACTOR, high: mid * FINE_GAIN_FACTOR };
+}
+const FINE_GAIN_FACTOR = 1.4;
+/** How far a neighbour's deviation from 100 % reaches into a cylinder's interval: see widenForNeighbours. */
+const NEIGHBOUR_REACH = { fine: 0.3, coarse: 1 };
 /** Smallest interval half-width, points: on a fine wheel, and on a coarse one. */
 const FLOOR = { fine: 4, coarse: 5 };
 
@@ -112,7 +128,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   }
   const perEvent = teethPerCycle / n;
   // Teeth spread evenly by count (no wheel learned) are only sure at whole events: read as coarse.
-  const coarse = perEvent < FINE_TEETH_PER_EVENT || !input.angles;
+  const coarse = perEvent < FINE_TEETH_PER_EVENT || !input.angles || process.env.FINE_MODE === 'whole';
   // A left-out stretch (a revolution that did not match the wheel) breaks a segment.
   const maxStep = coarse ? 1.5 * pitchDeg : 4.5 * pitchDeg;
   const snap = coarse && Number.isInteger(Math.round(perEvent * 1000) / 1000) ? pitchDeg : 0;
@@ -126,7 +142,14 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   let identityNote: string | undefined;
   let tdc1 = phase;
   const markSource = input.angles ? findCycleMarks(input.marks, teeth, input.cycleTeeth) : cycle;
-  if (markSource?.symmetric) {
+  const syncAngle = input.sync ? firstSyncAngle(input.sync, angles, teethPerCycle) : undefined;
+  if (input.sync && syncAngle === undefined) {
+    warnings.push(warning('SYNC_NOT_FOUND', SYNC_PULSE_MISSING));
+  } else if (syncAngle !== undefined) {
+    // The pulse is cylinder 1's TDC: on a coarse wheel it picks the cycle of the phase the speed found.
+    tdc1 = coarse && perEvent >= 2 ? phase + Math.round((syncAngle - phase) / period) * period : syncAngle;
+    identity = 'sync';
+  } else if (markSource?.symmetric) {
     warnings.push(warning('SYNC_NOT_FOUND', `"${markSource.marks.channel}" repeats the same pattern every revolution, so it cannot tell which revolution holds cylinder 1's compression; cylinder numbers below are assumed.`));
   } else if (markSource) {
     const markAngle = Array.from(markSource.marks.times, (x) => angleAtTime(angles, x)).find(Number.isFinite) ?? NaN;
@@ -165,30 +188,41 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   }
   const positionOf = (e: DurationEvent) => (((e.position - shift) % n) + n) % n;
 
-  // Durations over their cycle's mean, per cylinder; on a fine wheel each over the time the segment would take at
-  // its entry speed (so a slow entry, after a weak cylinder, does not read as compression).
-  const own = coarse
-    ? detrendedDurations(events.map((e) => (complete(e) ? e.durationS : NaN)), n)
-    : events.map((e) => (complete(e) && e.entryDegPerS > 0 ? (e.durationS * e.entryDegPerS) / e.spanDeg : NaN));
-  // On a coarse wheel a cylinder is read from the event after it (a longer one: a weaker cylinder).
-  const detrended = coarse ? own.map((_, j) => own[j + 1] ?? NaN) : own;
-  const sign = coarse ? -1 : 1;
+  // Durations per degree over their cycle's mean (so a drift in cranking speed cancels). A cylinder is read from the
+  // event after it: the compression a weak cylinder loses is energy the crank lacks, so it enters the next event
+  // slower and lingers there (a longer one: a weaker cylinder).
+  const own = detrendedDurations(events.map((e) => (complete(e) ? e.durationS / e.spanDeg : NaN)), n);
+  const next = own.map((_, j) => own[j + 1] ?? NaN);
   // The compression signature over whole events (the speed falls into TDC and rises after it).
   const swing = coarse ? NaN : segmentSwing(angles, eventSegments(angles, tdc1, iv, maxStep).filter((e) => complete(e) && e.timeS >= window.startS && e.timeS <= window.endS));
   if (Number.isFinite(swing) && swing < MIN_COMPRESSION_SWING) warnings.push(noCompressionOnSpeed(swing));
 
   const cylOf = (e: DurationEvent) => setup.firingOrder[positionOf(e)];
+  // Uneven firing intervals give events of two or more shapes: each is read against the events of its own shape
+  // (the positions one symmetry step apart), never against a shorter or longer kind.
+  const shapeOf = (j: number) => (positionOf(events[j]) + 1) % step;
+  const byShape = new Map<number, number[][]>();
+  events.forEach((e, j) => {
+    if (!Number.isFinite(next[j])) return;
+    const cyls = byShape.get(shapeOf(j)) ?? Array.from({ length: n }, () => []);
+    cyls[cylOf(e) - 1].push(next[j]);
+    byShape.set(shapeOf(j), cyls);
+  });
+  const refOf = new Map<number, number>();
+  for (const [shape, cyls] of byShape) {
+    const means = cyls.filter((r) => r.length).map((r) => r.reduce((a, b) => a + b, 0) / r.length);
+    // The healthy events are the short ones here: the reference is taken on their speeds (one over a duration).
+    refOf.set(shape, coarse ? median(means) : 1 / healthyReference(means.map((m) => 1 / m), 100 - (100 - input.lowLimitPercent) * 0.25));
+  }
+  // Each reading over its shape's healthy reference: 1 for a healthy cylinder, above 1 for a weaker one.
+  const detrended = next.map((r, j) => r / (refOf.get(shapeOf(j)) ?? NaN));
   const rByCyl: number[][] = Array.from({ length: n }, () => []);
   events.forEach((e, j) => {
     if (Number.isFinite(detrended[j])) rByCyl[cylOf(e) - 1].push(detrended[j]);
   });
   const rMeans = rByCyl.map((r) => (r.length ? r.reduce((a, b) => a + b, 0) / r.length : NaN));
-  const rRef = coarse ? median(rMeans) : healthyReference(rMeans, 100 - (100 - input.lowLimitPercent) * 0.25);
-  // On a fine wheel a segment with no compression would take its entry-speed time (ratio 1): the healthy
-  // cylinders' excess over 1 is the share compression adds.
-  const fineMid = Math.min(0.6, Math.max(0.05, (rRef - 1) / rRef));
-  const share = coarse ? COARSE_GAIN : { mid: fineMid, low: fineMid / FINE_SHARE_FACTOR, high: Math.min(0.8, fineMid * FINE_SHARE_FACTOR) };
-  const toPercent = (r: number) => 100 * (1 + (sign * (r / rRef - 1)) / share.mid);
+  const share = coarse ? COARSE_GAIN : fineGain(n);
+  const toPercent = (r: number) => 100 * (1 - (r - 1) / share.mid);
   // Malformed events: far from their cylinder's others (more than 20 points, or five robust spreads).
   const bounds = rByCyl.map((r) => {
     const p = r.map(toPercent);
@@ -210,13 +244,13 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
     rawByCyl[c].push(e.durationS * 1000);
   });
   const pMeans = pByCyl.map((p) => (p.length ? p.reduce((a, b) => a + b, 0) / p.length : NaN));
-  // The figures are already relative to the healthy cylinders' durations (rRef).
-  const maxR = Math.max(...rMeans.filter(Number.isFinite));
+  // The plain index: the shortest reading (the strongest cylinder) over each cylinder's, in percent.
+  const minR = Math.min(...rMeans.filter(Number.isFinite));
   const figures = pMeans.map((m) => (Number.isFinite(m) ? round1(m) : null));
   const intervals = cylinderIntervals(pByCyl, figures, { lowLimitPercent: input.lowLimitPercent, floorPoints: coarse ? FLOOR.coarse : FLOOR.fine }).map((iv) =>
     iv ? widenForShare(iv, share) : null,
   );
-  if (coarse) widenForNeighbours(intervals, figures, setup.firingOrder);
+  widenForNeighbours(intervals, figures, setup.firingOrder, coarse ? NEIGHBOUR_REACH.coarse : NEIGHBOUR_REACH.fine);
   // No cylinder holds less than no compression: a figure or interval end below 0 % is 0 %.
   for (let c = 0; c < n; c++) {
     if (figures[c] !== null) figures[c] = Math.max(0, figures[c]!);
@@ -234,7 +268,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
       events: pByCyl[c].length,
       rejected: events.filter((e, j) => rejected.has(j) && cylOf(e) === c + 1).length,
       spreadPercent: round1(stdDev(perCycle)),
-      plainPercent: Number.isFinite(rMeans[c]) ? round1((100 * rMeans[c]) / maxR) : null,
+      plainPercent: Number.isFinite(rMeans[c]) ? round1((100 * minR) / rMeans[c]) : null,
       raw: Math.round(ms * 100) / 100,
       perCycle,
     };
@@ -394,11 +428,13 @@ function toothSpeeds(a: ToothAngles, e: DurationEvent): number[] {
 }
 
 /**
- * On a coarse wheel a weak cylinder moves its neighbours' events too (measured on the simulator: the cylinder
- * before a leaking one reads about 16 points low, the one after 14 high, and two leaks in a row mask each other):
- * each interval reaches as far either side as its firing-order neighbours read away from 100 %.
+ * A weak cylinder moves its neighbours' events too (measured on the simulator: on a coarse wheel the cylinder
+ * before a leaking one reads about 16 points low, the one after 14 high, and two leaks in a row mask each other;
+ * on a fine wheel the one before reads 10–18 points high and the one after 5–13 low for a cylinder 60 points
+ * down): each interval reaches either side by `reach` times as far as its firing-order neighbours read away from
+ * 100 %.
  */
-function widenForNeighbours(intervals: ([number, number] | null)[], figures: (number | null)[], order: number[]): void {
+function widenForNeighbours(intervals: ([number, number] | null)[], figures: (number | null)[], order: number[], reach: number): void {
   const n = order.length;
   for (let p = 0; p < n; p++) {
     const c = order[p] - 1;
@@ -406,7 +442,7 @@ function widenForNeighbours(intervals: ([number, number] | null)[], figures: (nu
     const fig = figures[c];
     if (!iv || fig === null) continue;
     const away = [order[(p + n - 1) % n], order[(p + 1) % n]].map((k) => Math.abs((figures[k - 1] ?? 100) - 100));
-    const w = Math.max(...away);
+    const w = reach * Math.max(...away);
     intervals[c] = [round1(Math.min(iv[0], fig - w)), round1(Math.max(iv[1], fig + w))];
   }
 }
@@ -417,6 +453,16 @@ function widenForShare(iv: [number, number], share: { mid: number; low: number; 
   const lo = Math.min(iv[0], at(iv[0], share.low), at(iv[0], share.high));
   const hi = Math.max(iv[1], at(iv[1], share.low), at(iv[1], share.high));
   return [round1(lo), round1(hi)];
+}
+
+/** The crank angle of the first sync pulse on the teeth (pulses a cycle apart, at least two), or undefined. */
+function firstSyncAngle(sync: { time: Float64Array; values: Float64Array }, a: ToothAngles, teethPerCycle: number): number | undefined {
+  const periods: number[] = [];
+  for (let k = 1; k < a.times.length; k += Math.max(1, Math.floor(a.times.length / 400))) periods.push(a.times[k] - a.times[k - 1]);
+  const cycleS = median(periods) * teethPerCycle;
+  const pulses = findSyncPulses(sync.time, sync.values, 0.6 * cycleS);
+  if (pulses.length < 2) return undefined;
+  return pulses.map((x) => angleAtTime(a, x)).find(Number.isFinite);
 }
 
 function angleAtTime(a: ToothAngles, x: number): number {

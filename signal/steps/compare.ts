@@ -1,5 +1,6 @@
 /** Before and after a repair: a cylinder changed only when its two 90 % intervals do not overlap. */
 import type { AnalysisResult } from '../types';
+import { intervalsOverlap } from './cross-check';
 
 export interface CylinderChange {
   cylinder: number;
@@ -14,7 +15,7 @@ export function compareResults(before: Pick<AnalysisResult, 'cylinders'>, after:
     const bi = b?.interval;
     const ai = a.interval;
     if (!bi || !ai) return { cylinder: a.cylinder, change: 'unknown', sentence: `Cylinder ${a.cylinder}: no interval on one of the two tests, so no change can be read.` };
-    const change = ai[0] > bi[1] ? 'up' : ai[1] < bi[0] ? 'down' : 'none';
+    const change = intervalsOverlap(ai, bi) ? 'none' : ai[0] > bi[1] ? 'up' : 'down';
     const words = { up: 'higher after', down: 'lower after', none: 'no clear change (the intervals overlap)' }[change];
     return { cylinder: a.cylinder, change, sentence: `Cylinder ${a.cylinder}: ${bi[0]}–${bi[1]} % before, ${ai[0]}–${ai[1]} % after: ${words}.` };
   });

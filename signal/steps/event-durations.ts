@@ -19,8 +19,6 @@ export interface DurationEvent {
   spanDeg: number;
   /** Segment duration, s; NaN when the segment is not wholly inside the teeth or crosses a left-out stretch. */
   durationS: number;
-  /** Speed over the segment's first third, degrees per second (NaN on a coarse wheel, where it is one tooth). */
-  entryDegPerS: number;
 }
 
 /** Index of the last tooth at or before angle `theta`, or −1. */
@@ -65,9 +63,7 @@ export function eventSegments(a: ToothAngles, tdc1Deg: number, intervalsDeg: num
       const startS = timeAtAngle(a, from, maxStepDeg);
       const endS = timeAtAngle(a, to, maxStepDeg);
       const timeS = timeAtAngle(a, tdc, maxStepDeg);
-      const lead = (to - from) / 3;
-      const entryDegPerS = snapDeg > 0 ? NaN : lead / (timeAtAngle(a, from + lead, maxStepDeg) - startS);
-      out.push({ position: p, tdcDeg: tdc, timeS, startS, endS, spanDeg: to - from, durationS: endS - startS, entryDegPerS });
+      out.push({ position: p, tdcDeg: tdc, timeS, startS, endS, spanDeg: to - from, durationS: endS - startS });
     }
   }
   return out;

@@ -1,6 +1,9 @@
 /** Cylinder-1 sync pulses (ignition or injector trigger, cam sensor): rising edges through a hysteresis band. */
 import { quantilesProbe } from '../dsp/stats';
 
+/** What a sync channel with no usable pulse means, for every method that reads one. */
+export const SYNC_PULSE_MISSING = 'The sync channel holds no clear pulse once per cycle; check the probe on the cylinder 1 trigger. Cylinder numbers below are assumed.';
+
 /** Times (s) of the sync channel's rising edges, at least `minSpacingS` apart; empty when there is no clear pulse. */
 export function findSyncPulses(t: Float64Array, v: Float64Array, minSpacingS: number): number[] {
   const [lo, hi] = quantilesProbe(v, [0.05, 0.999], 40_000);

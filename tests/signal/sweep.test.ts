@@ -12,7 +12,7 @@ import type { EngineSetup } from '@/signal/engine/firing';
 import { simulateCranking, type SimChannel } from '@/signal/sim/simulate';
 import type { AnalysisResult, CaptureColumns } from '@/signal/types';
 
-type Method = 'current+sync' | 'teeth' | 'hall+sync' | 'vr';
+type Method = 'current+sync' | 'teeth' | 'hall+sync' | 'vr' | 'teeth, event duration';
 const ENGINES: Record<string, EngineSetup> = {
   I3: { cylinders: 3, firingOrder: [1, 2, 3] },
   I4: { cylinders: 4, firingOrder: [1, 3, 4, 2] },
@@ -27,13 +27,17 @@ const LEAKS: Record<string, (n: number) => number[]> = {
   'two leaks': (n) => Array.from({ length: n }, (_, i) => (i === 0 || i === 2 ? 1.5 : 0)),
 };
 /** Mean absolute error per method on this sweep, percentage points (measured; figures as they are, not capped at 100). */
-const TOLERANCE: Record<Method, number> = { 'current+sync': 1.7, teeth: 1.5, 'hall+sync': 1.5, vr: 1.5 };
+const TOLERANCE: Record<Method, number> = { 'current+sync': 1.7, teeth: 1.5, 'hall+sync': 1.5, vr: 1.5, 'teeth, event duration': 6 };
+/** Teeth a speed curve is read from are timed event by event too: the two readings agree on a share of the captures at least this. */
+const TEETH_CHECK_AGREES = 0.8;
 
 function run(engine: EngineSetup, leak: number[], method: Method, seed: number): { r: AnalysisResult; truth: Float64Array } {
   const channels: SimChannel[] = method === 'current+sync' ? ['current', 'sync'] : method === 'hall+sync' ? ['hall', 'sync'] : method === 'vr' ? ['vr'] : [];
-  const sim = simulateCranking({ engine, leakPerS: leak, channels, seed, sampleRateHz: method === 'current+sync' || method === 'teeth' ? 10_000 : 50_000 });
-  const columns: CaptureColumns = method === 'teeth' ? { toothTimes: sim.toothTimes } : { time: sim.time, current: sim.current, sync: sim.sync, crank: sim.hall ?? sim.vr };
-  return { r: analyzeCapture(columns, { engine, sensor: method === 'vr' ? 'vr' : undefined }), truth: sim.truth.relativePercent };
+  const sim = simulateCranking({ engine, leakPerS: leak, channels, seed, sampleRateHz: method === 'hall+sync' || method === 'vr' ? 50_000 : 10_000 });
+  const teethOnly = method === 'teeth' || method === 'teeth, event duration';
+  const columns: CaptureColumns = teethOnly ? { toothTimes: sim.toothTimes } : { time: sim.time, current: sim.current, sync: sim.sync, crank: sim.hall ?? sim.vr };
+  const settings = { engine, sensor: method === 'vr' ? ('vr' as const) : undefined, method: method === 'teeth, event duration' ? ('event-duration' as const) : undefined };
+  return { r: analyzeCapture(columns, settings), truth: sim.truth.relativePercent };
 }
 
 /** Without sync the capture cannot tell the rotation: compare at the rotation that fits best. */
@@ -58,16 +62,19 @@ function aligned(r: AnalysisResult, truth: Float64Array, engine: EngineSetup) {
 }
 
 describe('recovery sweep on the realistic simulator', () => {
-  const errors: Record<Method, number[]> = { 'current+sync': [], teeth: [], 'hall+sync': [], vr: [] };
-  const uncertain: Record<Method, number> = { 'current+sync': 0, teeth: 0, 'hall+sync': 0, vr: 0 };
+  const perMethod = <T>(make: () => T): Record<Method, T> => ({ 'current+sync': make(), teeth: make(), 'hall+sync': make(), vr: make(), 'teeth, event duration': make() });
+  const errors = perMethod<number[]>(() => []);
+  const uncertain = perMethod(() => 0);
   const wrong: string[] = [];
-  const inside: Record<Method, number[]> = { 'current+sync': [], teeth: [], 'hall+sync': [], vr: [] };
-  const widths: Record<Method, number[]> = { 'current+sync': [], teeth: [], 'hall+sync': [], vr: [] };
+  const inside = perMethod<number[]>(() => []);
+  const widths = perMethod<number[]>(() => []);
+  const teethChecks: boolean[] = [];
   for (const [name, engine] of Object.entries(ENGINES)) {
     for (const method of Object.keys(errors) as Method[]) {
       it(`${name} × ${method}`, () => {
         for (const [kind, leakOf] of Object.entries(LEAKS)) {
           const { r, truth } = run(engine, leakOf(engine.cylinders), method, 11);
+          if (method === 'teeth' && r.crossCheck?.method === 'event-duration') teethChecks.push(r.crossCheck.agree);
           const { got, status, interval } = aligned(r, truth, engine);
           for (let i = 0; i < engine.cylinders; i++) {
             const t = truth[i];
@@ -98,7 +105,12 @@ describe('recovery sweep on the realistic simulator', () => {
       means.push([m, mean]);
       coverage.push(cover);
     }
+    const agreed = teethChecks.filter(Boolean).length / Math.max(1, teethChecks.length);
+    lines.push(`crank speed checked by event duration on the same teeth: ${teethChecks.length} captures, agreeing on ${(100 * agreed).toFixed(0)} %`);
     console.log(`sweep:\n${lines.join('\n')}\nconfident wrong flags: ${wrong.length}\n${wrong.join('\n')}`);
+    // Every teeth-only capture with figures is checked (issue 19, point 1), and the two readings mostly agree.
+    expect(teethChecks.length).toBe(Object.keys(ENGINES).length * Object.keys(LEAKS).length);
+    expect(agreed).toBeGreaterThanOrEqual(TEETH_CHECK_AGREES);
     for (const [m, mean] of means) expect(mean, m).toBeLessThanOrEqual(TOLERANCE[m]);
     expect(wrong).toEqual([]);
     // Calibration (issue: 88–97 % of true values inside the 90 % intervals), per method.
