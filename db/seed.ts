@@ -62,8 +62,9 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
   await db.transaction(async (tx) => {
     const shopId = crypto.randomUUID();
     await tx.insert(organizations).values({ id: shopId, name: 'Demo Engine Clinic', slug: 'demo-engine-clinic' });
-    // The demo shop keeps its dates in a US zone and its temperatures in °F, to show both conversions.
-    await tx.insert(shopSettings).values({ shopId, timeZone: 'America/Chicago', temperatureUnit: 'F' });
+    // The demo shop keeps its dates in a US zone, its temperatures in °F and distances in miles, to show the
+    // conversions; its phone number is in the range kept for fiction, its address invented.
+    await tx.insert(shopSettings).values({ shopId, timeZone: 'America/Chicago', temperatureUnit: 'F', distanceUnit: 'mi', phone: '(555) 010-4821', address: '48 Gearwheel Lane\nRivertown' });
     const ids: string[] = [];
     for (const a of DEMO_ACCOUNTS) {
       const userId = crypto.randomUUID();
@@ -88,7 +89,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
         vehicleId: vehicleIds[j.vehicle],
         repairOrder: j.ro,
         odometer: j.odometer,
-        odometerUnit: 'km',
+        odometerUnit: 'mi',
         concern: j.concern,
         status: j.status,
         createdBy: ids[1],

@@ -75,7 +75,17 @@ export function resolveMembership(s: SessionContext): Promise<Membership> {
 async function lookUpMembership(s: SessionContext): Promise<Membership> {
   const db = await getDb();
   const rows = await db
-    .select({ memberId: members.id, role: members.role, shopId: organizations.id, shopName: organizations.name, timeZone: shopSettings.timeZone, temperatureUnit: shopSettings.temperatureUnit })
+    .select({
+      memberId: members.id,
+      role: members.role,
+      shopId: organizations.id,
+      shopName: organizations.name,
+      timeZone: shopSettings.timeZone,
+      temperatureUnit: shopSettings.temperatureUnit,
+      distanceUnit: shopSettings.distanceUnit,
+      phone: shopSettings.phone,
+      address: shopSettings.address,
+    })
     .from(members)
     .innerJoin(organizations, eq(members.organizationId, organizations.id))
     .leftJoin(shopSettings, eq(shopSettings.shopId, organizations.id))

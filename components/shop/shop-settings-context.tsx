@@ -1,5 +1,5 @@
 'use client';
-/** The shop's settings (time zone, temperature unit) for client components inside the signed-in pages. */
+/** The shop's settings (time zone, units, contact) for client components inside the signed-in pages. */
 import { createContext, type ReactNode, useContext } from 'react';
 import { DEFAULT_SHOP_SETTINGS, type ShopSettings } from '@/domain/shop-settings';
 

@@ -60,7 +60,7 @@ export async function getInvitation(shopId: string, invitationId: string) {
   return i ?? null;
 }
 
-/** Sets the shop's time zone and temperature unit (one row per shop, created on first save). */
+/** Sets the shop's settings and contact details (one row per shop, created on first save). */
 export async function saveShopSettings(shopId: string, settings: ShopSettings) {
   const db = await getDb();
   await db
@@ -72,6 +72,6 @@ export async function saveShopSettings(shopId: string, settings: ShopSettings) {
 /** The shop's settings, or the defaults when its owner has not chosen any. */
 export async function getShopSettings(shopId: string): Promise<ShopSettings> {
   const db = await getDb();
-  const [row] = await db.select({ timeZone: shopSettings.timeZone, temperatureUnit: shopSettings.temperatureUnit }).from(shopSettings).where(eq(shopSettings.shopId, shopId));
+  const [row] = await db.select().from(shopSettings).where(eq(shopSettings.shopId, shopId));
   return shopSettingsFrom(row);
 }

@@ -221,5 +221,9 @@ export const shopSettings = pgTable('shop_settings', {
     .references(() => organizations.id, { onDelete: 'cascade' }),
   timeZone: text().notNull().default('UTC'),
   temperatureUnit: text().notNull().default('C'),
+  distanceUnit: text().notNull().default('km'),
+  /** How customers reach the shop, shown on their report page and in e-mail: free text, line breaks kept. */
+  phone: text().notNull().default(''),
+  address: text().notNull().default(''),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });

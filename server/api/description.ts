@@ -168,7 +168,14 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
   '/api/jobs/{jobId}/report/sign': { post: { summary: 'Signs the draft as the signed-in member; with `version`, a draft saved since it was loaded answers 409.', who: EDITORS, path: idParam('jobId'), body: signReportInput, ok: z.object({ report }), errors: [409, 413, 415] } },
   '/api/reports/{reportId}/pdf': { get: { summary: 'The report revision as a PDF.', who: MEMBER, path: idParam('reportId'), ok: 'application/pdf' } },
   '/api/reports/{reportId}/send': {
-    post: { summary: 'E-mails the PDF to one address (limits per member and shop per hour; audited).', who: MEMBER, path: idParam('reportId'), body: sendReportInput, ok: z.object({ sent: z.literal(true), to: z.string() }), errors: [413, 415] },
+    post: {
+      summary: 'E-mails the signed PDF to one address, with an optional note and, with link: true, a new customer link (limits per member and shop per hour; audited).',
+      who: MEMBER,
+      path: idParam('reportId'),
+      body: sendReportInput,
+      ok: z.object({ sent: z.literal(true), to: z.string(), link: z.object({ id: z.string(), expiresAt: when }).optional() }),
+      errors: [413, 415],
+    },
   },
   '/api/reports/{reportId}/share': {
     get: { summary: 'The revision’s customer links.', who: MEMBER, path: idParam('reportId'), ok: z.object({ links: z.array(shareLink) }) },

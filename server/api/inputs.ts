@@ -28,6 +28,8 @@ export const shareInput = z.object({ days: z.coerce.number().int().min(1, 'A lin
 export const sendReportInput = z.object({
   to: z.string().trim().toLowerCase().email('Enter the e-mail address to send the report to.'),
   note: z.string().trim().max(1000, 'Keep the note under 1,000 characters.').optional(),
+  /** With a new customer link (14 days) in the e-mail, for the customer to read the result and answer. */
+  link: z.boolean().default(false),
 });
 export const decisionInput = z.object({
   token: z.string().max(100),

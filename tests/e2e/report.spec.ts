@@ -24,14 +24,22 @@ test('sign, e-mail, share, approve, revoke; the old revision stays readable', as
   await expect(page.getByText(/signed and frozen/)).toHaveCount(1);
   await page.screenshot({ path: 'artifacts/screens/report-editor.png', fullPage: true });
 
+  // The e-mail carries the advisor's note (its lines kept) and a link the customer can answer from.
+  const note = 'Hi — the test is done; see cylinder ü 3 “below”, 100% sure?\n\n二行目 🚗';
   await page.getByLabel('E-mail the PDF to').fill('service-desk@example.com');
+  await page.getByLabel('Note to go with it (optional)').fill(note);
+  await expect(page.getByLabel('Include a link the customer can answer from (open 14 days)')).toBeChecked();
   await page.getByRole('button', { name: 'Send', exact: true }).click();
-  await expect(page.getByText('Report sent to service-desk@example.com.')).toBeVisible();
+  await expect(page.getByText(/Report sent to service-desk@example\.com, with a link to answer from, open until/)).toBeVisible();
   const tech = await signIn(DEMO.technician);
   const [mine] = (await (await tech.get('/api/jobs?q=RO-24104')).json()).jobs;
   expect(mine.status).toBe('waiting');
-  const mail = (await waitForMail('service-desk@example.com', /compression test report for RO-24104/)) as unknown as { attachments: { filename: string; contentType: string }[] };
+  const mail = (await waitForMail('service-desk@example.com', /compression test report for RO-24104/)) as unknown as { text: string; links: string[]; attachments: { filename: string; contentType: string }[] };
   expect(mail.attachments.map((a) => a.contentType)).toContain('application/pdf');
+  expect(mail.text.startsWith(note)).toBe(true);
+  expect(mail.text).toContain('Phone (555) 010-4821');
+  const mailed = mail.links.find((l) => l.includes('/r/'))!;
+  expect((await (await newContext()).get(mailed.replace(/^https?:\/\/[^/]+/, ''))).status()).toBe(200);
 
   await page.getByRole('button', { name: 'Create a customer link (14 days)' }).click();
   const url = (await page.getByTestId('share-url').textContent())!;
@@ -39,7 +47,18 @@ test('sign, e-mail, share, approve, revoke; the old revision stays readable', as
   const customer = await (await browser.newContext()).newPage();
   await customer.goto(path);
   await expect(customer.getByText('What we recommend next')).toBeVisible();
+  // Plain words: a sentence per finding, no interval notation or status codes; the shop's phone and address.
+  await expect(customer.getByTestId('customer-findings')).toContainText(/measured (alike|normal)|holds about \d+ % of the pressure of the others/);
+  const words = (await customer.locator('main').innerText()).replace(/\s+/g, ' ');
+  expect(words).not.toMatch(/\d–\d|✓|\bok\b|uncertain|interval/);
+  await expect(customer.getByRole('link', { name: '(555) 010-4821' }).first()).toHaveAttribute('href', 'tel:5550104821');
+  await expect(customer.getByText('48 Gearwheel Lane')).toBeVisible();
   await customer.screenshot({ path: 'artifacts/screens/customer.png', fullPage: true });
+  // At 390 px nothing is wider than the screen.
+  await customer.setViewportSize({ width: 390, height: 844 });
+  expect(await customer.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  await customer.screenshot({ path: 'artifacts/screens/customer-390.png', fullPage: true });
+  await customer.setViewportSize({ width: 1280, height: 800 });
   await customer.getByLabel('Your name').fill('Pat Customer');
   await customer.getByRole('button', { name: 'Approve the next step' }).click();
   await expect(customer.getByText('you approved the recommended next step')).toBeVisible();

@@ -1,7 +1,8 @@
 /**
- * A shop's time zone and temperature unit: the zone starts as the creator's browser's, the owner changes both,
+ * A shop's time zone, units and contact: the zone starts as the creator's browser's, the owner changes them,
  * and pages, the report e-mail and the PDF show dates in that zone with the zone named and the coolant in that
- * unit. Expected zone names follow the IANA database's rules (Europe/Berlin is UTC+1 in winter, UTC+2 in summer).
+ * unit; a new job's odometer starts in the shop's distance unit; the customer's page and the e-mail carry the
+ * shop's phone and address, lines kept. Expected zone names follow the IANA database's rules (Europe/Berlin is UTC+1 in winter, UTC+2 in summer).
  */
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
@@ -11,16 +12,23 @@ import { DEMO, signIn, signUpVerified, unique, waitForMail } from './helpers';
 const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
 
 
-test('a new shop starts in the creator’s zone; the owner sets Berlin and °F; the PDF and e-mail follow', async () => {
+test('a new shop starts in the creator’s zone; the owner sets Berlin, °F, miles and a contact; the PDF, e-mail, job form and customer page follow', async ({ page, context }) => {
   const owner = await signUpVerified(unique('zone-owner'), 'Zone Owner');
   const created = await owner.post('/api/shops', { data: { name: 'Zone Test Garage', timeZone: 'Asia/Kolkata' } });
   expect(created.status(), await created.text()).toBe(200);
-  expect((await (await owner.get('/api/shop')).json()).shop.settings).toEqual({ timeZone: 'Asia/Kolkata', temperatureUnit: 'C' });
+  expect((await (await owner.get('/api/shop')).json()).shop.settings).toEqual({ timeZone: 'Asia/Kolkata', temperatureUnit: 'C', distanceUnit: 'km', phone: '', address: '' });
   // A zone the database does not know is refused in words.
   const bad = await owner.patch('/api/shop', { data: { timeZone: 'Mars/Olympus', temperatureUnit: 'C' } });
   expect(bad.status()).toBe(400);
   expect((await bad.json()).error.fields.timeZone).toMatch(/Choose a time zone/);
-  expect((await owner.patch('/api/shop', { data: { timeZone: 'Europe/Berlin', temperatureUnit: 'F' } })).status()).toBe(200);
+  // Typed text keeps its lines (CR/LF becomes LF) and any Unicode.
+  const address = 'Hof 3 — Ölweg 12 "Werkstatt"\r\n北区 🚗 100%';
+  const patched = await owner.patch('/api/shop', { data: { timeZone: 'Europe/Berlin', temperatureUnit: 'F', distanceUnit: 'mi', phone: '+49 30 1234567', address } });
+  expect(patched.status(), await patched.text()).toBe(200);
+  expect((await patched.json()).settings.address).toBe('Hof 3 — Ölweg 12 "Werkstatt"\n北区 🚗 100%');
+  await context.addCookies((await owner.storageState()).cookies);
+  await page.goto('/jobs/new');
+  await expect(page.getByLabel('Unit')).toHaveValue('mi');
 
   const job = await owner.post('/api/jobs', { data: { repairOrder: 'ZONE-1', concern: 'Dates in the shop zone.', vehicle: { make: 'Test', model: 'Zone', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } } } });
   const jobId = (await job.json()).job.id as string;
@@ -40,6 +48,11 @@ test('a new shop starts in the creator’s zone; the owner sets Berlin and °F; 
   expect((await owner.post(`/api/reports/${draft.revisions[0].id}/send`, { data: { to } })).status()).toBe(200);
   const mail = (await waitForMail(to, /compression test report for ZONE-1/)) as unknown as { text: string };
   expect(mail.text).toMatch(/signed [A-Z][a-z]{2} \d+, \d{4}, \d{2}:\d{2} GMT\+[12]/);
+  expect(mail.text).toContain('Hof 3 — Ölweg 12 "Werkstatt"\n北区 🚗 100%\nPhone +49 30 1234567');
+  const shared = await owner.post(`/api/reports/${draft.revisions[0].id}/share`, { data: {} });
+  await page.goto(new URL((await shared.json()).url).pathname);
+  await expect(page.getByText('北区 🚗 100%')).toBeVisible();
+  await expect(page.getByRole('link', { name: '+49 30 1234567' }).first()).toHaveAttribute('href', 'tel:+49301234567');
 });
 
 test('the demo shop’s pages show dates in its zone, named', async ({ page }) => {

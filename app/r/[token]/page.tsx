@@ -3,7 +3,8 @@ import type { Metadata } from 'next';
 import { headers } from 'next/headers';
 import { notFound } from 'next/navigation';
 import { LogoMark } from '@/components/brand/logo';
-import { CylinderBars } from '@/components/analysis/cylinder-bars';
+import { CustomerBars } from '@/components/report/customer-bars';
+import { customerFindings } from '@/domain/customer-words';
 import { approvalThroughLink, findShareLink, reportBundle } from '@/db/queries/reports';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
@@ -28,7 +29,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
   const r = b.analyses[0]?.analysis.result;
   const vehicle = [b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ');
   const low = r?.cylinders.filter((c) => c.status === 'low') ?? [];
-  const { timeZone } = await getShopSettings(link.shopId);
+  const { timeZone, phone, address } = await getShopSettings(link.shopId);
   const answer = await approvalThroughLink(link, b.report.revision);
   return (
     <main className="mx-auto flex max-w-2xl flex-col gap-5 px-4 py-8 text-lg">
@@ -36,6 +37,8 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
         <LogoMark size={36} />
         <div>
           <p className="text-xl font-bold">{b.shop.name}</p>
+          {address && <p className="whitespace-pre-line text-base">{address}</p>}
+          {phone && <ShopPhone phone={phone} />}
           <p className="text-base text-muted">Repair order {b.job.repairOrder}</p>
         </div>
       </header>
@@ -48,8 +51,15 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
           <h2 id="result" className="text-xl font-bold">
             {low.length === 0 ? 'All cylinders measured alike' : `${low.length === 1 ? 'One cylinder is' : `${low.length} cylinders are`} weaker than the others`}
           </h2>
-          <CylinderBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} highLimit={r.settings.highLimitPercent} />
-          <p className="text-base text-muted">Each bar compares a cylinder with the healthy ones. This is a screening test; the next step confirms it.</p>
+          <ul className="my-3 flex flex-col gap-1" data-testid="customer-findings">
+            {customerFindings(r).map((f) => (
+              <li key={f.sentence} className={f.weak ? 'font-bold' : ''}>
+                {f.sentence}
+              </li>
+            ))}
+          </ul>
+          <CustomerBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} />
+          <p className="mt-2 text-base">This is a screening test; the next step confirms it.</p>
         </section>
       )}
       <section aria-labelledby="next" className="rounded-2xl border-2 border-brand bg-surface p-4">
@@ -67,10 +77,30 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
             them to change it.
           </p>
         ) : (
-          <DecisionForm token={token} revision={b.report.revision} />
+          <>
+            {phone && (
+              <p className="mt-3 text-base">
+                Questions before you answer? Call {b.shop.name} at <ShopPhone phone={phone} inline />.
+              </p>
+            )}
+            <DecisionForm token={token} revision={b.report.revision} />
+          </>
         )}
       </section>
       <p className="text-sm text-muted">Report revision {b.report.revision}. This page expires on {formatWhen(link.expiresAt, timeZone)}.</p>
     </main>
   );
+}
+
+/** The shop's phone as a link a phone can dial (the digits and a leading +), shown as typed. */
+function ShopPhone({ phone, inline = false }: { phone: string; inline?: boolean }) {
+  const dial = phone.replace(/[^\d+]/g, '');
+  const link = dial.length >= 3 ? (
+    <a className="font-bold underline" href={`tel:${dial}`}>
+      {phone}
+    </a>
+  ) : (
+    <span className="font-bold">{phone}</span>
+  );
+  return inline ? link : <p className="text-base">Phone {link}</p>;
 }

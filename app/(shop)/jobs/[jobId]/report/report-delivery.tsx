@@ -10,7 +10,7 @@ import { reportKeys } from '@/components/data/reports/keys';
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { formatWhen } from '@/domain/time';
 import { Button } from '@/components/ui/button';
-import { Field, Input, Notice } from '@/components/ui/field';
+import { Field, Input, Notice, TextArea } from '@/components/ui/field';
 import { errorText, type ReportData, type Revision } from './report-data';
 
 export function ReportDelivery({
@@ -31,12 +31,18 @@ export function ReportDelivery({
   const qc = useQueryClient();
   const { timeZone } = useShopSettings();
   const [to, setTo] = useState('');
+  const [note, setNote] = useState('');
+  const [withLink, setWithLink] = useState(true);
   const [shareUrl, setShareUrl] = useState<string | null>(null);
   const [copied, setCopied] = useState(false);
   const refresh = () => qc.invalidateQueries({ queryKey: reportKeys.forJob(jobId) });
   const send = useMutation({
-    mutationFn: () => api(`/api/reports/${latest!.id}/send`, { method: 'POST', json: { to } }),
-    onSuccess: () => onMessage({ tone: 'ok', text: `Report sent to ${to}.` }),
+    mutationFn: () =>
+      api<{ link?: { expiresAt: string } }>(`/api/reports/${latest!.id}/send`, { method: 'POST', json: { to, note: note || undefined, link: can.share && withLink } }),
+    onSuccess: async (r) => {
+      onMessage({ tone: 'ok', text: r.link ? `Report sent to ${to}, with a link to answer from, open until ${formatWhen(r.link.expiresAt, timeZone)}.` : `Report sent to ${to}.` });
+      if (r.link) await refresh();
+    },
     onError: (e) => onMessage({ tone: 'error', text: errorText(e) }),
   });
   const share = useMutation({
@@ -59,20 +65,29 @@ export function ReportDelivery({
           <h2 className="text-lg font-bold">Send and share revision {latest.revision}</h2>
           {can.send && (
             <form
-              className="flex flex-wrap items-end gap-2"
+              className="flex flex-col gap-2"
               onSubmit={(e) => {
                 e.preventDefault();
                 send.mutate();
               }}
             >
-              <div className="min-w-64 flex-1">
-                <Field id="send-to" label="E-mail the PDF to">
-                  <Input id="send-to" type="email" value={to} onChange={(e) => setTo(e.target.value)} />
-                </Field>
+              <Field id="send-to" label="E-mail the PDF to">
+                <Input id="send-to" type="email" value={to} onChange={(e) => setTo(e.target.value)} />
+              </Field>
+              <Field id="send-note" label="Note to go with it (optional)" hint="Shown first in the e-mail, line by line as typed.">
+                <TextArea id="send-note" rows={3} maxLength={1000} value={note} onChange={(e) => setNote(e.target.value)} />
+              </Field>
+              {can.share && (
+                <label className="flex items-center gap-2">
+                  <input type="checkbox" checked={withLink} onChange={(e) => setWithLink(e.target.checked)} />
+                  Include a link the customer can answer from (open 14 days)
+                </label>
+              )}
+              <div>
+                <Button type="submit" disabled={!to || !frozen || send.isPending} title={frozen ? undefined : 'Sign the report first: a draft can still change.'}>
+                  Send
+                </Button>
               </div>
-              <Button type="submit" className="mb-6" disabled={!to || !frozen || send.isPending}>
-                Send
-              </Button>
             </form>
           )}
           {!frozen && <p className="text-sm text-muted">Sign the report before sending or sharing it: a draft can still change.</p>}

@@ -10,6 +10,7 @@ import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
 import { ApiError } from '@/components/data/api';
 import { useCreateJob } from '@/components/data/jobs/create-job-mutation';
 import { useVehicles } from '@/components/data/vehicles/use-vehicles';
+import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { type JobInput, type JobValues, jobSchema } from '@/domain/job';
 
 interface Profile {
@@ -27,11 +28,12 @@ export function NewJobForm({ profiles }: { profiles: Profile[] }) {
   const vehicles = useVehicles();
   const [mode, setMode] = useState<'new' | 'existing'>('new');
   const [formError, setFormError] = useState<string | null>(null);
+  const { distanceUnit } = useShopSettings();
   const form = useForm<JobInput, unknown, JobValues>({
     resolver: zodResolver(jobSchema),
     defaultValues: {
       repairOrder: '',
-      odometerUnit: 'km',
+      odometerUnit: distanceUnit,
       concern: '',
       vehicle: { vin: '', make: '', model: '', engine: { cylinders: 4, layout: 'inline', numbering: 'along-crank', firingOrder: '1-3-4-2' } },
     },

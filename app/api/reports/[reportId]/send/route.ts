@@ -1,6 +1,6 @@
 /**
- * E-mails the report PDF to the advisor or the customer, one recipient a send; recorded in the audit log with
- * the recipient. Sends are limited per member and per shop over the last hour, reserved in the audit log before
+ * E-mails the report PDF to the advisor or the customer, one recipient a send, with the advisor's note and, when
+ * asked, a new customer link to read the result and answer; recorded in the audit log with the recipient. Sends are limited per member and per shop over the last hour, reserved in the audit log before
  * the send under a lock every instance shares (so concurrent sends cannot pass one count), and given back when the
  * send fails.
  */
@@ -9,7 +9,10 @@ import { formatWhen } from '@/domain/time';
 import { z } from 'zod';
 import { releaseAction, reserveAction } from '@/db/queries/audit';
 import { moveJob } from '@/db/queries/jobs';
-import { reportBundle } from '@/db/queries/reports';
+import { createShareLink, reportBundle, revokeShareLink } from '@/db/queries/reports';
+import { recordAudit } from '@/db/queries/audit';
+import { APP_URL } from '@/server/auth';
+import { can } from '@/server/permissions';
 import { conflict, HttpError, notFound } from '@/server/http';
 import { sendMail } from '@/server/mail';
 import { renderPdf } from '@/server/engine/pool';
@@ -23,7 +26,8 @@ const SENDS_PER_SHOP_HOUR = 40;
 export const POST = withShop(
   { report: ['send'] },
   sendReportInput.extend({ reportId: z.string() }),
-  async ({ input, shop, user, req }) => {
+  async ({ input, shop, user, member, req }) => {
+    if (input.link && !can(member.role, { report: ['share'] })) throw new HttpError(403, 'FORBIDDEN', 'Your role cannot make customer links; send the PDF without one, or ask the advisor.');
     const b = await reportBundle(shop.id, input.reportId);
     if (!b) throw notFound('That report');
     // What goes to a customer is a record: a draft can change after it is sent.
@@ -46,20 +50,36 @@ export const POST = withShop(
           : `The shop has sent ${SENDS_PER_SHOP_HOUR} reports in the last hour, the most it may; try again later.`,
       );
     }
+    let link: Awaited<ReturnType<typeof createShareLink>> | null = null;
     try {
       const pdf = await renderPdf(await pdfDataFor(b), req.signal);
       const name = `${b.job.repairOrder}-rev${b.report.revision}.pdf`;
+      const zone = shop.settings.timeZone;
+      if (input.link) link = await createShareLink(shop.id, b.report.id, user.id);
+      const vehicle = [b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ');
+      const lines = [
+        ...(input.note ? [input.note, ''] : []),
+        `The relative compression report for ${vehicle} (${b.job.repairOrder}) is attached (revision ${b.report.revision}, signed ${formatWhen(b.report.signedAt ?? new Date(), zone)}).`,
+        ...(link ? [`See the result and approve or decline the next step here: ${APP_URL}/r/${link.token}`, `The link is open until ${formatWhen(link.link.expiresAt, zone)}.`] : []),
+        '',
+        b.shop.name,
+        ...(shop.settings.address ? [shop.settings.address] : []),
+        ...(shop.settings.phone ? [`Phone ${shop.settings.phone}`] : []),
+        `Sent by ${user.name}, ${formatWhen(new Date(), zone)}.`,
+      ];
       await sendMail({
         to: input.to,
         subject: `${b.shop.name}: compression test report for ${b.job.repairOrder}`,
-        text: `${input.note ? `${input.note}\n\n` : ''}The relative compression report for ${[b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ')} (${b.job.repairOrder}) is attached (revision ${b.report.revision}${b.report.signedAt ? `, signed ${formatWhen(b.report.signedAt, shop.settings.timeZone)}` : ', a draft'}).\nSent by ${user.name}, ${b.shop.name}, ${formatWhen(new Date(), shop.settings.timeZone)}.`,
+        text: lines.join('\n'),
         attachments: [{ filename: name, content: pdf, contentType: 'application/pdf' }],
       });
     } catch (e) {
       await releaseAction(shop.id, reserved.id);
+      if (link) await revokeShareLink(shop.id, link.link.id);
       throw e;
     }
+    if (link) await recordAudit(shop.id, user.id, 'report.share', { type: 'report', id: b.report.id }, { jobId: b.job.id, linkId: link.link.id, expiresAt: link.link.expiresAt, by: 'e-mail' });
     await moveJob(shop.id, b.job.id, 'waiting', ['open'], user.id, { cause: 'report e-mailed' });
-    return { sent: true, to: input.to };
+    return { sent: true, to: input.to, ...(link ? { link: { id: link.link.id, expiresAt: link.link.expiresAt } } : {}) };
   },
 );
