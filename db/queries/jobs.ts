@@ -1,8 +1,8 @@
 /** Jobs (repair orders) of one shop. Every function takes the shop id it is scoped to. */
 import 'server-only';
-import { and, desc, eq, ilike, or, type SQL } from 'drizzle-orm';
+import { and, desc, eq, ilike, or, type SQL, sql } from 'drizzle-orm';
 import { getDb } from '../client';
-import { auditEvents, captures, jobs, vehicles } from '../schema';
+import { analyses, auditEvents, captures, jobs, reports, vehicles } from '../schema';
 import type { JobStatus, JobValues } from '@/domain/job';
 import { flushObjectDeletes, queueObjectDeletes } from './object-deletes';
 import { engineSpec } from './vehicles';
@@ -28,6 +28,12 @@ const jobColumns = {
   },
 };
 
+/** What a job waits on, for the queues each role sees first: captures not analysed, a signed report. */
+const workColumns = {
+  unanalysed: sql<number>`(select count(*)::int from ${captures} where ${captures.jobId} = ${jobs.id} and not exists (select 1 from ${analyses} where ${analyses.captureId} = ${captures.id}))`.mapWith(Number),
+  signedReport: sql<boolean>`exists (select 1 from ${reports} where ${reports.jobId} = ${jobs.id} and ${reports.status} = 'signed')`.mapWith(Boolean),
+};
+
 export async function listJobs(shopId: string, filter: { q?: string; status?: string } = {}) {
   const db = await getDb();
   const where: SQL[] = [eq(jobs.shopId, shopId)];
@@ -37,7 +43,7 @@ export async function listJobs(shopId: string, filter: { q?: string; status?: st
     where.push(or(ilike(jobs.repairOrder, like), ilike(jobs.concern, like), ilike(vehicles.vin, like))!);
   }
   return db
-    .select(jobColumns)
+    .select({ ...jobColumns, ...workColumns })
     .from(jobs)
     .innerJoin(vehicles, eq(jobs.vehicleId, vehicles.id))
     .where(and(...where))

@@ -59,6 +59,10 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
   await page.getByRole('link', { name: 'RO-24099' }).click();
   await page.getByRole('link', { name: 'All tests on this vehicle' }).click();
   await expect(page.getByTestId('before-after')).toBeVisible();
+  // The newest test is "after"; only the others are offered as "before", never the test with itself.
+  const listed = page.getByRole('region', { name: 'Tests on this vehicle' }).getByRole('listitem');
+  await expect(listed.first()).toContainText('shown as “after”');
+  await expect(listed.getByRole('link', { name: 'Use as “before”' })).toHaveCount((await listed.count()) - 1);
   await page.screenshot({ path: 'artifacts/screens/before-after.png', fullPage: true });
 });
 

@@ -20,7 +20,7 @@ export default async function JobsPage() {
         )}
       </div>
       <Suspense>
-        <JobsTable />
+        <JobsTable role={m.member.role} />
       </Suspense>
     </div>
   );

@@ -1,3 +1,5 @@
+import type { JobStatus } from '@/domain/job';
+
 /** A job row as the jobs route returns it. */
 export interface JobRow {
   id: string;
@@ -5,7 +7,11 @@ export interface JobRow {
   odometer: number | null;
   odometerUnit: string;
   concern: string;
-  status: 'open' | 'waiting' | 'done';
+  status: JobStatus;
+  /** Captures with no saved analysis. */
+  unanalysed: number;
+  /** Whether a revision of the job's report is signed. */
+  signedReport: boolean;
   createdAt: string;
   updatedAt: string;
   vehicle: { id: string; vin: string | null; year: number | null; make: string; model: string; engine: { cylinders: number; layout: string; firingOrder: number[] } };

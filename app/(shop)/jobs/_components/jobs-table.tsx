@@ -1,5 +1,8 @@
 'use client';
-/** The jobs table: quick filters and search kept in the URL, sortable columns, pages of 20. */
+/**
+ * The jobs list: what needs the member's role first, then quick filters and search kept in the URL, sortable
+ * columns and pages of 20; on a phone each job is a card with its status and date.
+ */
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { formatWhen } from '@/domain/time';
 import { type ColumnDef, flexRender, getCoreRowModel, getPaginationRowModel, getSortedRowModel, type SortingState, useReactTable } from '@tanstack/react-table';
@@ -10,6 +13,7 @@ import { Button } from '@/components/ui/button';
 import { Input, Notice } from '@/components/ui/field';
 import { JOB_STATUS_LABEL } from '@/components/data/jobs/status';
 import { JOB_STATUSES, type JobStatus } from '@/domain/job';
+import { jobNeeds } from '@/domain/job-queue';
 import type { JobRow } from '@/components/data/jobs/types';
 import { useJobs } from '@/components/data/jobs/use-jobs';
 
@@ -42,7 +46,7 @@ const columns: ColumnDef<JobRow>[] = [
     ),
   },
   { accessorKey: 'concern', header: 'Concern', cell: (c) => <span className="line-clamp-2">{c.row.original.concern}</span> },
-  { accessorKey: 'status', header: 'Status', cell: (c) => <span className="rounded-md bg-raised px-2 py-1 text-sm font-bold">{JOB_STATUS_LABEL[c.row.original.status as JobStatus] ?? c.row.original.status}</span> },
+  { accessorKey: 'status', header: 'Status', cell: (c) => <StatusBadge status={c.row.original.status} /> },
   {
     accessorKey: 'updatedAt',
     header: 'Updated',
@@ -50,13 +54,62 @@ const columns: ColumnDef<JobRow>[] = [
   },
 ];
 
+function StatusBadge({ status }: { status: JobStatus }) {
+  return <span className="rounded-md bg-raised px-2 py-1 text-sm font-bold">{JOB_STATUS_LABEL[status] ?? status}</span>;
+}
+
+/** The jobs that need this role now, each with what it needs, newest first. */
+function NeedsYou({ rows, role }: { rows: JobRow[]; role: string }) {
+  const waiting = rows.map((r) => ({ r, need: jobNeeds(r, role) })).filter((x): x is { r: JobRow; need: string } => x.need !== null);
+  if (!waiting.length) return null;
+  return (
+    <section aria-labelledby="needs-you" className="rounded-xl border-2 border-brand bg-surface p-3" data-testid="needs-you">
+      <h2 id="needs-you" className="text-lg font-bold">
+        Needs you ({waiting.length})
+      </h2>
+      <ul className="mt-1 flex flex-col gap-1">
+        {waiting.slice(0, 10).map(({ r, need }) => (
+          <li key={r.id} className="flex flex-wrap items-baseline gap-x-2">
+            <Link className="figures font-bold text-brand underline" href={`/jobs/${r.id}`}>
+              {r.repairOrder}
+            </Link>
+            <span>{vehicleText(r.vehicle)}</span>
+            <span className="font-bold">· {need}</span>
+          </li>
+        ))}
+      </ul>
+    </section>
+  );
+}
+
+/** On a phone: a card per job with its status and date, instead of columns. */
+function JobCards({ rows }: { rows: JobRow[] }) {
+  return (
+    <ul className="flex flex-col gap-2 md:hidden" data-testid="job-cards">
+      {rows.map((r) => (
+        <li key={r.id} className="rounded-xl border border-line bg-surface p-3">
+          <div className="flex flex-wrap items-center justify-between gap-2">
+            <Link className="figures font-bold text-brand underline" href={`/jobs/${r.id}`}>
+              {r.repairOrder}
+            </Link>
+            <StatusBadge status={r.status} />
+          </div>
+          <div className="font-bold">{vehicleText(r.vehicle)}</div>
+          <p className="line-clamp-2">{r.concern}</p>
+          <UpdatedAt at={r.updatedAt} />
+        </li>
+      ))}
+    </ul>
+  );
+}
+
 /** In the shop's time zone, with the zone named, as on every page. */
 function UpdatedAt({ at }: { at: string }) {
   const { timeZone } = useShopSettings();
   return <span className="figures text-sm">{formatWhen(at, timeZone)}</span>;
 }
 
-export function JobsTable() {
+export function JobsTable({ role }: { role: string }) {
   const params = useSearchParams();
   const router = useRouter();
   const path = usePathname();
@@ -94,6 +147,7 @@ export function JobsTable() {
 
   return (
     <div className="flex flex-col gap-3">
+      <NeedsYou rows={data} role={role} />
       <div className="flex flex-wrap items-center gap-2">
         <div role="group" aria-label="Status" className="flex flex-wrap gap-1">
           {FILTERS.map((f) => (
@@ -114,7 +168,8 @@ export function JobsTable() {
         </label>
       </div>
       {query.isError && <Notice tone="error">{(query.error as Error).message}</Notice>}
-      <div className="overflow-x-auto rounded-xl border border-line bg-surface">
+      <JobCards rows={table.getRowModel().rows.map((r) => r.original)} />
+      <div className="hidden overflow-x-auto rounded-xl border border-line bg-surface md:block">
         <table className="w-full text-left">
           <thead className="bg-raised">
             {table.getHeaderGroups().map((hg) => (
@@ -142,11 +197,11 @@ export function JobsTable() {
             ))}
           </tbody>
         </table>
-        {!query.isPending && data.length === 0 && (
-          <p className="p-6 text-center text-muted">{q || status !== 'all' ? 'No job matches; clear the search or pick another status.' : 'No jobs yet. Start one with "New job".'}</p>
-        )}
-        {query.isPending && <p className="p-6 text-center text-muted">Loading jobs…</p>}
       </div>
+      {!query.isPending && data.length === 0 && (
+        <p className="p-6 text-center text-muted">{q || status !== 'all' ? 'No job matches; clear the search or pick another status.' : 'No jobs yet. Start one with "New job".'}</p>
+      )}
+      {query.isPending && <p className="p-6 text-center text-muted">Loading jobs…</p>}
       {table.getPageCount() > 1 && (
         <div className="flex items-center justify-end gap-2">
           <Button variant="secondary" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>

@@ -65,9 +65,13 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
                 <span className="figures flex-1">
                   {t.repairOrder} · {t.fileName} · {formatWhen(t.createdAt, m.shop.settings.timeZone)} · {t.verdict}
                 </span>
-                <Link className="font-bold text-brand underline" href={`/vehicles/${v.id}?a=${t.id}&b=${after?.id ?? ''}`}>
-                  Compare as before
-                </Link>
+                {t.id === after?.id ? (
+                  <span className="text-sm text-muted">{tests.length > 1 ? 'shown as “after”' : 'the only test so far: a test after the repair can be compared with it'}</span>
+                ) : (
+                  <Link className="font-bold text-brand underline" href={`/vehicles/${v.id}?a=${t.id}&b=${after?.id ?? ''}`}>
+                    Use as “before”
+                  </Link>
+                )}
               </li>
             ))}
           </ul>
