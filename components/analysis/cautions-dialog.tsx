@@ -1,11 +1,15 @@
 'use client';
-/** The cautions, before a capture is analysed; dismissed per user on this device. */
+/**
+ * The cautions, before anything is recorded or analysed for a job: on the job page before its first capture, and
+ * in a capture's workspace reached directly. Read once per job by each member on each device (kept in this
+ * browser's storage under the member and the job), so every new job shows them again.
+ */
 import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { CAUTIONS } from '@/domain/cautions';
 
-export function CautionsGate({ userId, children }: { userId: string; children: React.ReactNode }) {
-  const key = `crankprint-cautions-read-${userId}`;
+export function CautionsGate({ userId, jobId, children }: { userId: string; jobId: string; children: React.ReactNode }) {
+  const key = `crankprint-cautions-read-${userId}-${jobId}`;
   const [read, setRead] = useState<boolean | null>(null);
   useEffect(() => setRead(localStorage.getItem(key) === '1'), [key]);
   if (read === null) return null;
@@ -27,7 +31,7 @@ export function CautionsGate({ userId, children }: { userId: string; children: R
           setRead(true);
         }}
       >
-        I have read this — show the analysis
+        I have read this — go on
       </Button>
     </div>
   );

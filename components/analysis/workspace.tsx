@@ -21,6 +21,7 @@ import { MappingDialog } from './mapping-dialog';
 import { ResultsTable } from './results-table';
 import { sameSettings } from './settings-differences';
 import { type ProfileOption, SettingsPanel } from './settings-panel';
+import { useSettingsHistory } from './use-settings-history';
 import { type TraceData, type TraceHandle, TraceChart, type TraceSeries } from './trace-chart';
 import { localUpload } from './local-files';
 import { CHANNELS } from './trace-channels';
@@ -31,16 +32,22 @@ interface Props {
   captureId: string;
   rawUrl: string;
   initialSettings: AnalysisSettingsValues;
+  /** The settings the job's vehicle gives (its engine), for "Back to the job's engine". */
+  jobSettings: AnalysisSettingsValues;
   /** The saved analysis this page was opened on, if any: the page says whether the settings still match it. */
   savedAs?: { when: string; settings: AnalysisSettingsValues };
   profiles: ProfileOption[];
   userId: string;
+  /** The job the capture belongs to: its cautions, once read, are not asked again. */
+  jobId: string;
   canSave: boolean;
 }
 
-export function Workspace({ captureId, rawUrl, initialSettings, savedAs, profiles, userId, canSave }: Props) {
+export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, savedAs, profiles, userId, jobId, canSave }: Props) {
   const router = useRouter();
-  const [settings, setSettings] = useUrlSettings(initialSettings);
+  const [settings, applySettings] = useUrlSettings(initialSettings);
+  const history = useSettingsHistory(settings, applySettings);
+  const setSettings = history.change;
   const w = useAnalysisWorker();
   const [result, setResult] = useState<AnalysisResult | null>(null);
   const [error, setError] = useState<WorkerError | null>(null);
@@ -129,7 +136,15 @@ export function Workspace({ captureId, rawUrl, initialSettings, savedAs, profile
 
   const events = result?.events ?? [];
   const onKey = (e: React.KeyboardEvent) => {
+    // A field keeps its own undo for what is typed in it.
     if ((e.target as HTMLElement).closest('input, select, textarea')) return;
+    const key = e.key.toLowerCase();
+    if ((e.ctrlKey || e.metaKey) && (key === 'z' || key === 'y')) {
+      if (key === 'y' || e.shiftKey) history.redo();
+      else history.undo();
+      e.preventDefault();
+      return;
+    }
     const t = trace.current;
     if (!t) return;
     if (e.key === '+' || e.key === '=') t.zoom(0.5);
@@ -252,6 +267,19 @@ export function Workspace({ captureId, rawUrl, initialSettings, savedAs, profile
             <h2 id="setup-title" className="text-lg font-bold">
               Engine setup and limits
             </h2>
+            <div className="flex flex-wrap gap-2" role="group" aria-label="Settings history">
+              <Button variant="secondary" onClick={history.undo} disabled={!history.canUndo} title="Ctrl+Z">
+                Undo
+              </Button>
+              <Button variant="secondary" onClick={history.redo} disabled={!history.canRedo} title="Ctrl+Shift+Z">
+                Redo
+              </Button>
+              {!sameEngine(settings.engine, jobSettings.engine) && (
+                <Button variant="ghost" onClick={() => setSettings({ ...settings, engine: jobSettings.engine, rotation: 0 })}>
+                  Back to the job’s engine
+                </Button>
+              )}
+            </div>
             <SettingsPanel settings={settings} onChange={setSettings} profiles={profiles} identityAssumed={result?.identity === 'assumed'} />
             {canSave ? (
               <div className="flex flex-col gap-2 border-t border-line pt-3">
@@ -273,7 +301,11 @@ export function Workspace({ captureId, rawUrl, initialSettings, savedAs, profile
       )}
     </div>
   );
-  return <CautionsGate userId={userId}>{body}</CautionsGate>;
+  return (
+    <CautionsGate userId={userId} jobId={jobId}>
+      {body}
+    </CautionsGate>
+  );
 }
 
 /** What the page says while the capture loads, by stage. */
@@ -289,4 +321,10 @@ function engineOf(cylinders: number, profiles: ProfileOption[], layout: Analysis
   const profile = profiles.find((p) => p.engine.cylinders === cylinders);
   if (profile) return profile.engine;
   return { cylinders, firingOrder: Array.from({ length: cylinders }, (_, i) => i + 1), layout, numbering: 'along-crank' };
+}
+
+/** The same engine setup, field by field (the order of keys in either object does not matter). */
+function sameEngine(a: AnalysisSettingsValues['engine'], b: AnalysisSettingsValues['engine']): boolean {
+  const list = (v: number[] | undefined) => (v ?? []).join(',');
+  return a.cylinders === b.cylinders && list(a.firingOrder) === list(b.firingOrder) && list(a.intervalsDeg) === list(b.intervalsDeg) && a.layout === b.layout && a.numbering === b.numbering;
 }

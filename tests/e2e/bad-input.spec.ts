@@ -8,10 +8,10 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
-import { type APIRequestContext, expect, type Page, test } from '@playwright/test';
+import { type APIRequestContext, expect, test } from '@playwright/test';
 import { analyzeBytes, isCaptureError, refusalFor } from '../../signal';
 import { badCorpus } from '../bad-input/corpus';
-import { BASE_URL, DEMO, signIn } from './helpers';
+import { BASE_URL, DEMO, signIn, uploadOnJobPage } from './helpers';
 
 const engine = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
 const corpus = badCorpus();
@@ -122,9 +122,7 @@ test('a gzip bomb, a compressed body, a wrong content type and an oversized body
   expect(await captureCount(tech, jobId)).toBe(0);
 });
 
-async function uploadFile(page: Page, file: string) {
-  await page.locator('[data-testid=uploader] input[type=file]').first().setInputFiles(file);
-}
+const uploadFile = uploadOnJobPage;
 
 test('the job page shows the reason for every refused file and lists nothing; an unnamed-column file asks for its mapping', async ({ page }) => {
   test.setTimeout(600_000);
@@ -158,7 +156,7 @@ test('the job page shows the reason for every refused file and lists nothing; an
       // The job page may show its own cautions (for the file just chosen): wait until the workspace is the page.
       await page.waitForURL(/\/captures\//);
       await expect(page.getByRole('heading', { level: 1, name: new RegExp(name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')) })).toBeVisible({ timeout: 30_000 });
-      // The cautions come first on this device, once; then the workspace asks which column is which.
+      // The cautions were read on the job page for this job; the workspace asks which column is which.
       const gate = page.getByRole('button', { name: /I have read this/ });
       const mapping = page.locator('[role=dialog][aria-labelledby=mapping-title]');
       await expect(gate.or(mapping), c.name).toBeVisible({ timeout: 30_000 });

@@ -7,7 +7,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
 import { simulateCranking } from '../../signal/sim/simulate';
 import { simToCsv } from '../../signal/sim/to-csv';
-import { DEMO, signIn } from './helpers';
+import { DEMO, signIn, uploadOnJobPage } from './helpers';
 
 mkdirSync('artifacts/screens', { recursive: true });
 
@@ -23,9 +23,7 @@ async function openJob(page: Page, ro: string) {
   await expect(page.getByRole('heading', { name: new RegExp(ro) })).toBeVisible();
 }
 
-async function upload(page: Page, file: string) {
-  await page.locator('[data-testid=uploader] input[type=file]').first().setInputFiles(file);
-}
+const upload = uploadOnJobPage;
 
 test('a technician uploads a capture with a low cylinder, sees it flagged, zooms, and saves what the worker showed', async ({ page }) => {
   await signInAs(page, 'technician');
@@ -34,10 +32,10 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
   const item = page.locator('[data-testid=capture-list] a', { hasText: 'i4-noisy-current-sync.csv' });
   await expect(item).toBeVisible({ timeout: 30_000 });
   await item.click();
-  // The workspace's own cautions, not the job page's (which may still be on screen while the page changes).
+  // The cautions were read on the job page for this job: the workspace does not ask again.
   await page.waitForURL(/\/captures\//);
-  await page.getByRole('button', { name: /I have read this/ }).click();
   await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 30_000 });
+  await expect(page.getByRole('button', { name: /I have read this/ })).toHaveCount(0);
   await expect(page.getByTestId('row-1').getByTestId('status')).toHaveText('low');
   for (const c of [2, 3, 4]) await expect(page.getByTestId(`row-${c}`).getByTestId('status')).toHaveText('ok');
   await page.screenshot({ path: 'artifacts/screens/workspace.png', fullPage: true });
@@ -75,9 +73,10 @@ test('the bars of a chosen file show from this device’s reading before its upl
   // Uploads crawl at 64 KB/s (Chromium's network emulation), so the 650 KB file takes about ten seconds to send.
   const cdp = await page.context().newCDPSession(page);
   await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 300, downloadThroughput: -1, uploadThroughput: 64 * 1024 });
+  // The cautions come first, before anything is chosen (the upload helper answers them).
+  await expect(page.getByRole('button', { name: /I have read this/ })).toBeVisible();
+  await expect(page.getByTestId('uploader')).toHaveCount(0);
   await upload(page, file);
-  // The cautions come first, on this page as in the workspace.
-  await page.getByRole('button', { name: /I have read this/ }).click();
   await expect(page.getByTestId('local-bars')).toBeVisible({ timeout: 15_000 });
   await expect(page.getByTestId('upload-confirmation')).toHaveText(/receiving and checking/);
   await expect(page.getByTestId('local-bars')).toContainText('Cyl 2');
@@ -107,7 +106,7 @@ test('a reading that stops making progress is started again in a new worker, on 
 test('settings typed like a person: a half-typed limit changes nothing, a wrong one says why, and the saved analysis has what was typed', async ({ page }) => {
   await signInAs(page, 'technician');
   const jobs = (await (await page.request.get('/api/jobs')).json()).jobs;
-  const job = jobs.find((j: { repairOrder: string; vehicle: { engine: { cylinders: number } } }) => j.vehicle.engine.cylinders === 4);
+  const job = jobs.find((j: { repairOrder: string; vehicle: { engine: { cylinders: number; firingOrder: number[] } } }) => j.vehicle.engine.cylinders === 4);
   const captures = (await (await page.request.get(`/api/jobs/${job.id}/captures`)).json()).captures;
   await page.goto(`/jobs/${job.id}/captures/${captures[0].id}`);
   await page.getByRole('button', { name: /I have read this/ }).click();
@@ -161,6 +160,19 @@ test('settings typed like a person: a half-typed limit changes nothing, a wrong 
   await type('Low limit (%)', '80');
   await page.getByLabel('Low limit (%)').press('Enter');
   await expect(page.getByTestId('opened-saved')).toHaveText(/Settings changed since/);
+  // Undo and redo, by key (outside a field) and by button; "Back to the job's engine" is one more step.
+  await page.getByRole('heading', { name: 'Engine setup and limits' }).click();
+  await page.keyboard.press('ControlOrMeta+z');
+  await expect.poll(() => urlSettings().lowLimitPercent).toBe(85);
+  await expect(page.getByTestId('opened-saved')).toHaveText(/with its settings/);
+  await page.keyboard.press('ControlOrMeta+Shift+z');
+  await expect.poll(() => urlSettings().lowLimitPercent).toBe(80);
+  await page.getByRole('button', { name: 'Back to the job’s engine' }).click();
+  await expect.poll(() => urlSettings().engine?.firingOrder).toEqual(job.vehicle.engine.firingOrder);
+  await expect(page.getByRole('button', { name: 'Back to the job’s engine' })).toHaveCount(0);
+  expect(urlSettings().lowLimitPercent).toBe(80);
+  await page.getByRole('button', { name: 'Undo', exact: true }).click();
+  await expect.poll(() => urlSettings().engine?.firingOrder).toEqual([1, 2, 4, 3]);
 });
 
 test('an advisor sees captures but cannot upload, in the page or through the API', async ({ page }) => {
@@ -198,9 +210,7 @@ test('a 1M-sample capture from choosing it to bars on screen (logged, not assert
   await expect(item).toBeVisible({ timeout: 60_000 });
   const uploaded = Date.now();
   await item.click();
-  // The workspace's own cautions, not the job page's (which may still be on screen while the page changes).
   await page.waitForURL(/\/captures\//);
-  await page.getByRole('button', { name: /I have read this/ }).click();
   await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 60_000 });
   const done = Date.now();
   console.log(`e2e timing: 1M-sample capture, choose → stored ${uploaded - t0} ms, open → bars ${done - uploaded} ms, total ${done - t0} ms`);

@@ -1,7 +1,7 @@
 /** Shared steps for the browser and HTTP tests: the mail sink's messages, sign-up with verification, demo sign-in. */
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { type APIRequestContext, expect, request } from '@playwright/test';
+import { type APIRequestContext, expect, type Page, request } from '@playwright/test';
 
 export const BASE_URL = `http://127.0.0.1:${process.env.E2E_PORT || '3210'}`;
 const MAIL_DIR = process.env.MAIL_SINK_DIR || '.e2e/mail';
@@ -63,4 +63,16 @@ export async function signUpVerified(email: string, name: string, password = 'co
 
 export function unique(prefix: string): string {
   return `${prefix}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@example.com`;
+}
+
+/**
+ * Chooses a file in the job page's uploader. The job's cautions come first, once per job in this browser: they
+ * and the uploader are never on screen together, so whichever shows is answered.
+ */
+export async function uploadOnJobPage(page: Page, file: string): Promise<void> {
+  const gate = page.getByRole('button', { name: /I have read this/ });
+  const uploader = page.getByTestId('uploader');
+  await expect(gate.or(uploader)).toBeVisible({ timeout: 30_000 });
+  if (await gate.isVisible()) await gate.click();
+  await uploader.locator('input[type=file]').first().setInputFiles(file);
 }

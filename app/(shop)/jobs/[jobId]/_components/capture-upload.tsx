@@ -82,9 +82,10 @@ export function CaptureUpload({ jobId, engine, userId }: { jobId: string; engine
   }, [uppy, router]);
 
   // Made once: the worker's progress re-renders this component many times a second while a file is read.
-  const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="auto" />, [uppy]);
+  const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="light" />, [uppy]);
 
   return (
+    <CautionsGate userId={userId} jobId={jobId}>
     <div className="flex flex-col gap-2" data-testid="uploader">
       {dashboard}
       {messages.length > 0 && (
@@ -96,11 +97,8 @@ export function CaptureUpload({ jobId, engine, userId }: { jobId: string; engine
           ))}
         </ul>
       )}
-      {chosen && (
-        <CautionsGate userId={userId}>
-          <UploadReading key={chosen.uppyId} worker={worker} jobId={jobId} name={chosen.name} file={chosen.file} settings={settings} outcome={chosen.outcome} />
-        </CautionsGate>
-      )}
+      {chosen && <UploadReading key={chosen.uppyId} worker={worker} jobId={jobId} name={chosen.name} file={chosen.file} settings={settings} outcome={chosen.outcome} />}
     </div>
+    </CautionsGate>
   );
 }

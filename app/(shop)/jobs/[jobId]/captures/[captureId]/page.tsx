@@ -49,9 +49,11 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
           captureId={capture.id}
           rawUrl={`/api/captures/${capture.id}/raw`}
           initialSettings={initial}
+          jobSettings={fromVehicle}
           savedAs={savedAs}
           profiles={profiles}
           userId={m.user.id}
+          jobId={job.id}
           canSave={m.can({ analysis: ['save'] })}
         />
       </Suspense>
