@@ -210,6 +210,9 @@ export function CylinderBars({
           </li>
         ))}
       </ol>
+      <figcaption className="text-sm text-muted" data-testid="bars-legend">
+        Bars: each cylinder’s compression relative to the healthy ones (%). Whiskers: its 90 % interval. Dots: each engine cycle’s figure. Dashed lines: the low and upper limits.
+      </figcaption>
     </figure>
   );
 }

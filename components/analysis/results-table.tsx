@@ -41,13 +41,18 @@ export function ResultsTable({ cylinders, rawUnit }: { cylinders: CylinderResult
               </td>
               {stroke && <td className="px-3 py-2">{c.strokeMs === undefined ? '—' : `${c.strokeMs.toFixed(1)} ms`}</td>}
               <td className="px-3 py-2">{percentText(c.plainPercent)} %</td>
-              <td className="px-3 py-2">± {c.spreadPercent.toFixed(1)}</td>
+              <td className="px-3 py-2">± {c.spreadPercent.toFixed(1)} points</td>
               <td className="px-3 py-2">{c.events}</td>
               <td className="px-3 py-2">{c.rejected}</td>
             </tr>
           ))}
         </tbody>
       </table>
+      <p className="border-t border-line px-3 py-2 text-sm text-muted" data-testid="table-legend">
+        Relative compression and its 90 % interval are in % of the healthy cylinders; the spread and the limits’ distances are in percentage points. Plain
+        index: the raw measurement over the strongest cylinder’s, in %, without the engine model (a check on the figure). Cycle spread: how far the
+        per-cycle figures scatter (one standard deviation, points).
+      </p>
     </div>
   );
 }

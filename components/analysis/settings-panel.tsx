@@ -6,6 +6,7 @@ import { useState } from 'react';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import { DraftNumberField } from './draft-number-field';
 import { firingOrderProblem } from '@/signal';
+import type { MethodName } from './method-availability';
 
 export interface ProfileOption {
   key: string;
@@ -13,16 +14,26 @@ export interface ProfileOption {
   engine: AnalysisSettingsValues['engine'];
 }
 
+const METHOD_OPTIONS: [MethodName, string][] = [
+  ['current', 'Starter current'],
+  ['crank-speed', 'Crank speed'],
+  ['event-duration', 'Event duration (any wheel)'],
+  ['battery', 'Battery voltage'],
+];
+
 export function SettingsPanel({
   settings,
   onChange,
   profiles,
   identityAssumed,
+  blocked,
 }: {
   settings: AnalysisSettingsValues;
   onChange: (s: AnalysisSettingsValues) => void;
   profiles: ProfileOption[];
   identityAssumed: boolean;
+  /** Methods the capture has no channel for, with the reason. */
+  blocked?: Record<MethodName, string | null>;
 }) {
   const e = settings.engine;
   const set = (patch: Partial<AnalysisSettingsValues>) => onChange({ ...settings, ...patch });
@@ -91,10 +102,11 @@ export function SettingsPanel({
       <Field id="s-method" label="Method">
         <Select id="s-method" value={settings.method} onChange={(ev) => set({ method: ev.target.value as 'auto' })}>
           <option value="auto">Automatic (from the channels)</option>
-          <option value="current">Starter current</option>
-          <option value="crank-speed">Crank speed</option>
-          <option value="event-duration">Event duration (any wheel)</option>
-          <option value="battery">Battery voltage</option>
+          {METHOD_OPTIONS.map(([value, label]) => (
+            <option key={value} value={value} disabled={!!blocked?.[value] && settings.method !== value}>
+              {blocked?.[value] ? `${label} — ${blocked[value]}` : label}
+            </option>
+          ))}
         </Select>
       </Field>
       <Field id="s-teeth" label="Tooth pattern" hint="Found from the gaps when left empty.">

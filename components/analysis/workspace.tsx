@@ -22,6 +22,7 @@ import { ResultsTable } from './results-table';
 import { sameSettings } from './settings-differences';
 import { type ProfileOption, SettingsPanel } from './settings-panel';
 import { useSettingsHistory } from './use-settings-history';
+import { methodBlocks } from './method-availability';
 import { type TraceData, type TraceHandle, TraceChart, type TraceSeries } from './trace-chart';
 import { localUpload } from './local-files';
 import { CHANNELS } from './trace-channels';
@@ -280,7 +281,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, sav
                 </Button>
               )}
             </div>
-            <SettingsPanel settings={settings} onChange={setSettings} profiles={profiles} identityAssumed={result?.identity === 'assumed'} />
+            <SettingsPanel settings={settings} onChange={setSettings} profiles={profiles} identityAssumed={result?.identity === 'assumed'} blocked={methodBlocks(summary?.traces)} />
             {canSave ? (
               <div className="flex flex-col gap-2 border-t border-line pt-3">
                 <Button onClick={() => save.mutate(settingsKey)} disabled={!result || save.isPending}>

@@ -36,6 +36,13 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
   await page.waitForURL(/\/captures\//);
   await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 30_000 });
   await expect(page.getByRole('button', { name: /I have read this/ })).toHaveCount(0);
+  // A starter-current capture has no crank channel: those methods are offered disabled, with the reason.
+  for (const m of ['crank-speed', 'event-duration']) {
+    await expect(page.locator(`#s-method option[value="${m}"]`)).toBeDisabled();
+    await expect(page.locator(`#s-method option[value="${m}"]`)).toContainText('no crank sensor');
+  }
+  await expect(page.locator('#s-method option[value="current"]')).toBeEnabled();
+  await expect(page.getByTestId('bars-legend')).toContainText('Dots: each engine cycle’s figure');
   await expect(page.getByTestId('row-1').getByTestId('status')).toHaveText('low');
   for (const c of [2, 3, 4]) await expect(page.getByTestId(`row-${c}`).getByTestId('status')).toHaveText('ok');
   await page.screenshot({ path: 'artifacts/screens/workspace.png', fullPage: true });
