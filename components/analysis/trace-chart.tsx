@@ -149,10 +149,17 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
       labels.current = first.series.map((s) => s.label);
       const series: uPlot.Series[] = [{ label: 'Time', value: (_u, v) => (v == null ? '—' : `${v.toFixed(4)} s`) }];
       const bands: uPlot.Band[] = [];
+      // Each channel is drawn as the band between its lowest and highest sample under each pixel; the readout names
+      // the channel once and gives that range in its unit (the band's upper edge has no readout of its own).
       first.series.forEach((s, i) => {
-        const fmt = (_u: uPlot, v: number | null) => (v == null ? '—' : `${v.toFixed(s.unit === 'V' ? 2 : 1)} ${s.unit}`);
-        series.push({ label: `${s.label} low`, stroke: rgb(s.token, 0.9), width: 1, value: fmt, scale: s.right ? 'r' : 'y', points: { show: false } });
-        series.push({ label: `${s.label} high`, stroke: rgb(s.token, 0.9), width: 1, value: fmt, scale: s.right ? 'r' : 'y', points: { show: false } });
+        const digits = s.unit === 'V' ? 2 : 1;
+        const range = (u: uPlot, v: number | null, _series: number, idx: number | null) => {
+          const hi = idx == null ? null : (u.data[2 + 2 * i]?.[idx] as number | null | undefined);
+          if (v == null) return '—';
+          return hi == null || Math.abs(hi - v) < 10 ** -digits ? `${v.toFixed(digits)} ${s.unit}` : `${v.toFixed(digits)} to ${hi.toFixed(digits)} ${s.unit}`;
+        };
+        series.push({ label: s.label, stroke: rgb(s.token, 0.9), width: 1, value: range, scale: s.right ? 'r' : 'y', points: { show: false } });
+        series.push({ label: `${s.label}, top of the band`, stroke: rgb(s.token, 0.9), width: 1, scale: s.right ? 'r' : 'y', points: { show: false }, class: 'trace-band-top' });
         bands.push({ series: [2 + 2 * i, 1 + 2 * i], fill: rgb(s.token, 0.35) });
       });
       const axisColor = rgb('muted');
@@ -235,5 +242,17 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
     plot.current?.redraw(false, false);
   }, [props.events, props.window, props.highlighted]);
 
-  return <div ref={host} className="w-full" data-testid="trace" />;
+  // Focusable, with a visible ring: the workspace's keys (+ − 0, ← →, Ctrl+Z) work as soon as it has focus, and a
+  // click on the trace gives it focus.
+  return (
+    <div
+      ref={host}
+      className="w-full rounded-lg outline-offset-4 focus-visible:outline-3 focus-visible:outline-brand [&:focus]:ring-2 [&:focus]:ring-brand"
+      data-testid="trace"
+      tabIndex={0}
+      role="group"
+      aria-label="Trace. Keys: plus and minus zoom, 0 resets the zoom, left and right arrows step through the compression events."
+      onMouseDown={(e) => e.currentTarget.focus({ preventScroll: true })}
+    />
+  );
 });

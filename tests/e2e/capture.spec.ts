@@ -50,6 +50,12 @@ test('a technician uploads a capture with a low cylinder, sees it flagged, zooms
   const before = Number(await page.getByTestId('views').textContent());
   await page.getByRole('button', { name: 'Zoom in' }).click();
   await expect.poll(async () => Number(await page.getByTestId('views').textContent())).toBeGreaterThan(before);
+  // The trace takes the keys as soon as it has focus.
+  await page.getByTestId('trace').focus();
+  await expect(page.getByTestId('trace')).toBeFocused();
+  const zoomed = Number(await page.getByTestId('views').textContent());
+  await page.keyboard.press('-');
+  await expect.poll(async () => Number(await page.getByTestId('views').textContent())).toBeGreaterThan(zoomed);
 
   const shown = await page.locator('[data-testid^=row-] td:nth-child(2)').allTextContents();
   await page.getByRole('button', { name: 'Save this analysis' }).click();
