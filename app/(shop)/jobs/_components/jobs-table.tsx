@@ -70,11 +70,14 @@ function NeedsYou({ rows, role }: { rows: JobRow[]; role: string }) {
       <ul className="mt-1 flex flex-col gap-1">
         {waiting.slice(0, 10).map(({ r, need }) => (
           <li key={r.id} className="flex flex-wrap items-baseline gap-x-2">
-            <Link className="figures font-bold text-brand underline" href={`/jobs/${r.id}`}>
+            {/* The link is named by what is needed (the repair order describes it), so the table's link stays the one named by the repair order. */}
+            <span id={`needs-${r.id}`} className="figures font-bold">
               {r.repairOrder}
-            </Link>
+            </span>
             <span>{vehicleText(r.vehicle)}</span>
-            <span className="font-bold">· {need}</span>
+            <Link className="font-bold text-brand underline" href={`/jobs/${r.id}`} aria-describedby={`needs-${r.id}`}>
+              {need}
+            </Link>
           </li>
         ))}
       </ul>
