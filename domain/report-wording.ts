@@ -18,6 +18,19 @@ export function interpretationFor(r: AnalysisResult): string {
   return `A relative compression test by the ${method} method at ${r.crankingRpm.toFixed(0)} rpm found ${list} of the healthy cylinders, below the ${r.settings.lowLimitPercent} % low limit. ${r.pattern.hint}${doubt} ${identity} A relative test does not give pressure in psi or kPa; confirm with a gauge compression test before any teardown.`;
 }
 
+/**
+ * The cylinders a gauge compression test should confirm: those read low, and those the test could not tell
+ * (uncertain); null when every cylinder was read clearly within the limits.
+ */
+export function gaugeToConfirm(r: Pick<AnalysisResult, 'cylinders' | 'identity'>): string | null {
+  const low = r.cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder);
+  const unclear = r.cylinders.filter((c) => c.status === 'uncertain').map((c) => c.cylinder);
+  if (!low.length && !unclear.length) return null;
+  const parts = [...(low.length ? [`${low.join(', ')} (read low)`] : []), ...(unclear.length ? [`${unclear.join(', ')} (not clear on this test)`] : [])];
+  const tag = r.identity === 'assumed' ? ` ${NUMBERING_ASSUMED}` : '';
+  return `To confirm with a gauge compression test: cylinder${low.length + unclear.length > 1 ? 's' : ''} ${parts.join('; ')}${tag}.`;
+}
+
 export function nextStepsFor(r: AnalysisResult): string[] {
   return r.pattern.nextTests.length ? [...r.pattern.nextTests] : [];
 }

@@ -6,6 +6,7 @@
 import { Document, Page, Text, View } from '@react-pdf/renderer';
 import { type AnalysisResult, compareResults, identityWords, METHOD_NAMES, percentText } from '@/signal';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
+import { gaugeToConfirm } from '@/domain/report-wording';
 import { C, ChartSvg, Figures, s, STATUS_COLOR, TraceSvg } from './report-parts';
 
 /** The stored trace excerpt (domain/trace-excerpt.ts). */
@@ -102,6 +103,7 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
                 <Text>{`Cylinder numbers: ${identityWords(r.identity)}; firing order ${r.settings.firingOrder.join('-')}.`}</Text>
                 <Text>{`Limits applied: low below ${r.settings.lowLimitPercent} %, high above ${r.settings.highLimitPercent ?? 110} %, spread above ${r.settings.spreadLimitPercent} points.`}</Text>
                 <Text>{r.pattern.hint}</Text>
+                {gaugeToConfirm(r) && <Text style={{ fontWeight: 700 }}>{gaugeToConfirm(r)}</Text>}
                 <Text style={s.small}>{main.label}</Text>
               </View>
             </View>

@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeCapture, NUMBERING_ASSUMED } from '@/signal';
 import { simulateCranking } from '@/signal/sim/simulate';
 import { customerFindings } from '@/domain/customer-words';
+import { gaugeToConfirm } from '@/domain/report-wording';
 
 const I4 = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
 
@@ -35,5 +36,19 @@ describe('customer findings', () => {
     const r = analyzeCapture({ time: s.time, current: s.current, sync: s.sync }, { engine: I4 });
     if (r.cylinders.every((c) => c.status === 'ok')) expect(customerFindings(r)).toEqual([{ cylinders: [1, 2, 3, 4], weak: false, sentence: 'All 4 cylinders measured alike.' }]);
     else expect(customerFindings(r).some((f) => /could not be measured clearly; the shop checks/.test(f.sentence))).toBe(true);
+  });
+});
+
+describe('what a gauge test should confirm', () => {
+  it('the low cylinder, with the numbering said to be assumed without sync; nothing when all read clearly', () => {
+    const leak = simulateCranking({ engine: I4, leakPerS: [0, 0, 3, 0], channels: ['current'], seed: 5 });
+    const r = analyzeCapture({ time: leak.time, current: leak.current }, { engine: I4 });
+    const low = r.cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder);
+    expect(low).toHaveLength(1);
+    expect(gaugeToConfirm(r)).toMatch(new RegExp(`^To confirm with a gauge compression test: cylinders? ${low[0]} \\(read low\\)`));
+    expect(gaugeToConfirm(r)).toContain(NUMBERING_ASSUMED);
+    const healthy = simulateCranking({ engine: I4, channels: ['current', 'sync'], seed: 7 });
+    const h = analyzeCapture({ time: healthy.time, current: healthy.current, sync: healthy.sync }, { engine: I4 });
+    if (h.cylinders.every((c) => c.status === 'ok')) expect(gaugeToConfirm(h)).toBeNull();
   });
 });
