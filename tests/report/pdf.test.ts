@@ -53,7 +53,8 @@ describe.skipIf(!hasPoppler)('report PDF', () => {
     expect(text).toContain('1CPDEM0V2ZR000101');
     // The cylinders a gauge test should confirm are listed (issue 22, point 5).
     const low = r.cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder);
-    if (low.length) expect(text.replace(/\s+/g, ' ')).toContain(`To confirm with a gauge compression test: cylinder${low.length > 1 ? 's' : ''} ${low.join(', ')} (read low)`);
+    expect(low.length).toBeGreaterThan(0);
+    expect(text.replace(/\s+/g, ' ')).toContain(`To confirm with a gauge compression test: cylinder${low.length > 1 ? 's' : ''} ${low.join(', ')} (read low)`);
     execFileSync('pdftoppm', ['-png', '-r', '80', '-f', '1', '-l', '1', 'artifacts/report.pdf', 'artifacts/report-page']);
     expect(existsSync('artifacts/report-page-1.png')).toBe(true);
   }, 60_000);
