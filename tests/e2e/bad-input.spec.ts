@@ -167,6 +167,9 @@ test('the job page shows the reason for every refused file and lists nothing; an
       await expect(alert, c.name).toContainText(name, { timeout: 30_000 });
       const text = (await alert.textContent()) ?? '';
       expect(text.length, c.name).toBeGreaterThan(name.length + 30);
+      // One sentence that says nothing was stored, and no retry for a file that would be refused again.
+      expect(text, c.name).toContain('Nothing was stored.');
+      await expect(page.getByRole('button', { name: /retry/i }), c.name).toHaveCount(0);
       if (i === 0) await page.screenshot({ path: 'artifacts/screens/upload-refused.png', fullPage: true });
     }
     expect(await captureCount(tech, jobId), c.name).toBe(kept);

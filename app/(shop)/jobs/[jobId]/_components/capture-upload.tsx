@@ -68,8 +68,12 @@ export function CaptureUpload({ jobId, engine, userId }: { jobId: string; engine
       } catch {
         // not JSON: keep the network error's message
       }
-      setMessages((m) => [...m, `${file?.name ?? 'A file'}: ${text}`]);
-      settle((file as { id?: string } | undefined)?.id, { state: 'failed' });
+      // One sentence per refused file, saying nothing was kept; the widget lets go of the file (no retry: the same
+      // file would be refused again), and its reading on this device goes with it.
+      setMessages((m) => [...m, `${file?.name ?? 'A file'}: ${text.replace(/\.?$/, '.')} Nothing was stored.`]);
+      const id = (file as { id?: string } | undefined)?.id;
+      setChosen((c) => (c && c.uppyId === id ? null : c));
+      if (id && uppy.getFile(id)) uppy.removeFile(id);
     };
     uppy.on('file-added', onAdded);
     uppy.on('upload-success', onSuccess);
@@ -82,7 +86,7 @@ export function CaptureUpload({ jobId, engine, userId }: { jobId: string; engine
   }, [uppy, router]);
 
   // Made once: the worker's progress re-renders this component many times a second while a file is read.
-  const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="light" />, [uppy]);
+  const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="light" hideRetryButton disableInformer />, [uppy]);
 
   return (
     <CautionsGate userId={userId} jobId={jobId}>

@@ -12,7 +12,8 @@ import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/do
 import { type Screening, screeningDifferences, screeningSummary } from '@/domain/screening';
 import type { AnalysisResult } from '@/signal';
 
-export type UploadOutcome = { state: 'sending' } | { state: 'stored'; captureId: string; server: Screening } | { state: 'failed' };
+/** A refused upload has no outcome here: the job page says why in one sentence and drops the reading. */
+export type UploadOutcome = { state: 'sending' } | { state: 'stored'; captureId: string; server: Screening };
 
 export function UploadReading({
   worker: w,
@@ -78,7 +79,6 @@ export function UploadReading({
       )}
       <p className="text-sm" role="status" data-testid="upload-confirmation">
         {outcome.state === 'sending' && 'The server is receiving and checking the same file…'}
-        {outcome.state === 'failed' && 'The upload did not finish (see the message above), so nothing was stored.'}
         {outcome.state === 'stored' && differences?.length === 0 && 'Stored. The server read the same file and got the same figures.'}
         {outcome.state === 'stored' && !result && 'Stored and checked by the server.'}
       </p>
