@@ -47,4 +47,5 @@ export function customerFindings(r: Result): CustomerFinding[] {
 }
 
 /** The line under the bars. */
-export const CUSTOMER_LEGEND = 'Each bar is one cylinder, next to the others (100 % = like the healthy ones); the dashed line marks where a cylinder counts as weak.';
+export const CUSTOMER_LEGEND =
+  'Each bar is one cylinder, next to the others (100 % = like the healthy ones): striped, weaker; dotted, not clear on this test. The dashed line marks where a cylinder counts as weak.';

@@ -135,7 +135,14 @@ export function CylinderBars({
         ctx.moveTo(left, y);
         ctx.lineTo(left + width, y);
         ctx.stroke();
-        ctx.fillText(text, left + 6 * devicePixelRatio, y - 5 * devicePixelRatio);
+        // The label on a backing of the page's surface, so a bar or whisker behind it never hides it.
+        const tx = left + 6 * devicePixelRatio;
+        const ty = y - 5 * devicePixelRatio;
+        const pad = 3 * devicePixelRatio;
+        ctx.fillStyle = rgb('surface', 0.9);
+        ctx.fillRect(tx - pad, ty - 12 * devicePixelRatio, ctx.measureText(text).width + 2 * pad, 15 * devicePixelRatio);
+        ctx.fillStyle = rgb('limit');
+        ctx.fillText(text, tx, ty);
       }
       ctx.restore();
     };

@@ -18,12 +18,12 @@ export function CustomerBars({ cylinders, lowLimit }: { cylinders: CylinderResul
     <figure className="flex flex-col gap-2" data-testid="customer-bars">
       <ol className="flex flex-col gap-2">
         {cylinders.map((c) => {
-          const weak = c.status === 'low';
+          const look = c.status === 'low' ? 'pattern-low' : c.status === 'uncertain' ? 'pattern-uncertain' : 'pattern-ok';
           return (
             <li key={c.cylinder} className="grid grid-cols-[6.5rem_1fr] items-center gap-2">
               <span className="font-bold">Cylinder {c.cylinder}</span>
               <span className="relative h-7 rounded bg-raised" aria-hidden="true">
-                {c.relativePercent !== null && <span className={`absolute inset-y-0 left-0 rounded ${weak ? 'pattern-low' : 'pattern-ok'}`} style={{ width: at(c.relativePercent) }} />}
+                {c.relativePercent !== null && <span className={`absolute inset-y-0 left-0 rounded ${look}`} style={{ width: at(c.relativePercent) }} />}
                 <span className="absolute inset-y-[-4px] border-l-2 border-dashed border-limit" style={{ left: at(lowLimit) }} />
               </span>
             </li>
