@@ -1,6 +1,7 @@
 /** The job (repair order) schema, shared by the new-job form and the jobs route. */
 import { z } from 'zod';
 import { vehicleSchema } from './vehicle';
+import { DISTANCE_UNITS } from './shop-settings';
 
 /**
  * Where a job stands: open (being worked on) → waiting (a signed report went to the customer) → approved or
@@ -28,7 +29,7 @@ export const jobSchema = z
       (v) => (v === '' || v === null ? undefined : typeof v === 'string' && /^\s*\d{1,3}([,.\s'’\u202f]\d{3})+\s*$/.test(v) ? v.replace(/[^\d]/g, '') : v),
       z.coerce.number().int('The odometer reading is a whole number.').min(0, 'The odometer cannot be negative.').max(3_000_000, 'That odometer reading is too large.').optional(),
     ),
-    odometerUnit: z.enum(['km', 'mi']).default('km'),
+    odometerUnit: z.enum(DISTANCE_UNITS).default('km'),
     concern: z.string().trim().min(3, "Write the customer's concern in their words.").max(2000, 'Keep the concern under 2,000 characters.'),
     vehicleId: z.string().optional(),
     vehicle: vehicleSchema.optional(),

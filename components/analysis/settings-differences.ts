@@ -18,8 +18,8 @@ export function settingsDifferences(saved: AnalysisSettingsValues, base: Analysi
   return out;
 }
 
-/** Whether two settings are the same choice (key order aside). */
-export function sameSettings(a: AnalysisSettingsValues, b: AnalysisSettingsValues): boolean {
+/** Whether two settings, or two parts of them (an engine setup), are the same choice (key order and absent keys aside). */
+export function sameSettings<T extends AnalysisSettingsValues | AnalysisSettingsValues['engine']>(a: T, b: T): boolean {
   const canon = (v: unknown): unknown =>
     v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v as Record<string, unknown>).filter(([, x]) => x !== undefined).sort(([p], [q]) => p.localeCompare(q)).map(([k, x]) => [k, canon(x)])) : Array.isArray(v) ? v.map(canon) : v;
   return JSON.stringify(canon(a)) === JSON.stringify(canon(b));

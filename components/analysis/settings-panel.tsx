@@ -6,7 +6,7 @@ import { useState } from 'react';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import { DraftNumberField } from './draft-number-field';
 import { firingOrderProblem } from '@/signal';
-import type { MethodName } from './method-availability';
+import type { Method } from '@/signal';
 
 export interface ProfileOption {
   key: string;
@@ -14,7 +14,7 @@ export interface ProfileOption {
   engine: AnalysisSettingsValues['engine'];
 }
 
-const METHOD_OPTIONS: [MethodName, string][] = [
+const METHOD_OPTIONS: [Method, string][] = [
   ['current', 'Starter current'],
   ['crank-speed', 'Crank speed'],
   ['event-duration', 'Event duration (any wheel)'],
@@ -33,7 +33,7 @@ export function SettingsPanel({
   profiles: ProfileOption[];
   identityAssumed: boolean;
   /** Methods the capture has no channel for, with the reason. */
-  blocked?: Record<MethodName, string | null>;
+  blocked?: Record<Method, string | null>;
 }) {
   const e = settings.engine;
   const set = (patch: Partial<AnalysisSettingsValues>) => onChange({ ...settings, ...patch });

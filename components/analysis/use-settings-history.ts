@@ -5,6 +5,7 @@
  */
 import { useCallback, useRef, useState } from 'react';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
+import { sameSettings } from './settings-differences';
 
 /** Steps kept either way. */
 const DEPTH = 50;
@@ -36,7 +37,7 @@ export function useSettingsHistory(settings: AnalysisSettingsValues, apply: (s: 
   );
   const change = useCallback(
     (next: AnalysisSettingsValues) => {
-      if (JSON.stringify(next) === JSON.stringify(current.current)) return;
+      if (sameSettings(next, current.current)) return;
       past.current = [...past.current.slice(-(DEPTH - 1)), current.current];
       future.current = [];
       apply(next);

@@ -275,7 +275,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, sav
               <Button variant="secondary" onClick={history.redo} disabled={!history.canRedo} title="Ctrl+Shift+Z">
                 Redo
               </Button>
-              {!sameEngine(settings.engine, jobSettings.engine) && (
+              {!sameSettings(settings.engine, jobSettings.engine) && (
                 <Button variant="ghost" onClick={() => setSettings({ ...settings, engine: jobSettings.engine, rotation: 0 })}>
                   Back to the job’s engine
                 </Button>
@@ -322,10 +322,4 @@ function engineOf(cylinders: number, profiles: ProfileOption[], layout: Analysis
   const profile = profiles.find((p) => p.engine.cylinders === cylinders);
   if (profile) return profile.engine;
   return { cylinders, firingOrder: Array.from({ length: cylinders }, (_, i) => i + 1), layout, numbering: 'along-crank' };
-}
-
-/** The same engine setup, field by field (the order of keys in either object does not matter). */
-function sameEngine(a: AnalysisSettingsValues['engine'], b: AnalysisSettingsValues['engine']): boolean {
-  const list = (v: number[] | undefined) => (v ?? []).join(',');
-  return a.cylinders === b.cylinders && list(a.firingOrder) === list(b.firingOrder) && list(a.intervalsDeg) === list(b.intervalsDeg) && a.layout === b.layout && a.numbering === b.numbering;
 }

@@ -9,7 +9,7 @@ import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiPathsObj
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
 import { JOB_STATUSES, jobSchema, jobStatusInput, jobUpdateSchema, listQuerySchema } from '@/domain/job';
 import { vehicleSchema } from '@/domain/vehicle';
-import { shopSettingsSchema } from '@/domain/shop-settings';
+import { DISTANCE_UNITS, shopSettingsSchema } from '@/domain/shop-settings';
 import { screeningSchema } from '@/domain/screening';
 import {
   createProfileInput,
@@ -41,7 +41,7 @@ const errorBody = z
 
 const engine = z.looseObject({ cylinders: z.number().int(), layout: z.string(), firingOrder: z.array(z.number().int()) }).meta({ id: 'Engine' });
 const vehicle = z.looseObject({ id, vin: z.string().nullable(), year: z.number().int().nullable(), make: z.string(), model: z.string(), engine }).meta({ id: 'Vehicle' });
-const job = z.looseObject({ id, repairOrder: z.string(), odometer: z.number().nullable(), odometerUnit: z.enum(['km', 'mi']), concern: z.string(), status: z.string(), createdAt: when, updatedAt: when }).meta({ id: 'Job' });
+const job = z.looseObject({ id, repairOrder: z.string(), odometer: z.number().nullable(), odometerUnit: z.enum(DISTANCE_UNITS), concern: z.string(), status: z.string(), createdAt: when, updatedAt: when }).meta({ id: 'Job' });
 const capture = z.looseObject({ id, jobId: id, fileName: z.string(), contentType: z.string(), sizeBytes: z.number().int(), sha256: z.string(), createdAt: when }).meta({ id: 'Capture' });
 const analysisResult = z.looseObject({ engineVersion: z.string(), verdict: z.string(), crankingRpm: z.number(), cylinders: z.array(z.looseObject({ cylinder: z.number().int(), relativePercent: z.number().nullable(), status: z.string() })) }).meta({
   id: 'AnalysisResult',

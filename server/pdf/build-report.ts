@@ -9,6 +9,7 @@ import { storedTraceExcerpt } from '../engine/pool';
 import type { ReportBundle } from '@/db/queries/reports';
 import { conditionRows, NR } from './format';
 import type { PdfTrace, ReportPdfData } from './report-document';
+import { vehicleName } from '@/domain/vehicle-name';
 
 export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const v = b.vehicle;
@@ -39,7 +40,7 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
     preparedBy: b.content.technicianName ?? null,
     generatedAt: formatWhen(new Date(), timeZone),
     vehicle: {
-      description: [v.year, v.make, v.model].filter(Boolean).join(' '),
+      description: vehicleName(v),
       vin: v.vin ?? NR,
       engine: `${e.cylinders} cylinders, ${e.layout === 'v' ? 'V' : e.layout}${e.displacementL ? `, ${e.displacementL} L` : ''}, firing order ${e.firingOrder.join('-')}`,
       odometer: b.job.odometer !== null ? `${b.job.odometer.toLocaleString('en-US')} ${b.job.odometerUnit}` : NR,

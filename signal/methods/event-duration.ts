@@ -128,7 +128,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
   }
   const perEvent = teethPerCycle / n;
   // Teeth spread evenly by count (no wheel learned) are only sure at whole events: read as coarse.
-  const coarse = perEvent < FINE_TEETH_PER_EVENT || !input.angles || process.env.FINE_MODE === 'whole';
+  const coarse = perEvent < FINE_TEETH_PER_EVENT || !input.angles;
   // A left-out stretch (a revolution that did not match the wheel) breaks a segment.
   const maxStep = coarse ? 1.5 * pitchDeg : 4.5 * pitchDeg;
   const snap = coarse && Number.isInteger(Math.round(perEvent * 1000) / 1000) ? pitchDeg : 0;

@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { listVehicles } from '@/db/queries/vehicles';
 import { pageMember } from '@/server/page-context';
+import { vehicleName } from '@/domain/vehicle-name';
 
 export const metadata: Metadata = { title: 'Vehicles' };
 
@@ -28,7 +29,7 @@ export default async function VehiclesPage() {
                 <tr key={v.id} className="border-t border-line">
                   <td className="px-3 py-3">
                     <Link className="font-bold text-brand underline" href={`/vehicles/${v.id}`}>
-                      {[v.year, v.make, v.model].filter(Boolean).join(' ')}
+                      {vehicleName(v)}
                     </Link>
                   </td>
                   <td className="figures px-3 py-3">{v.vin ?? '—'}</td>

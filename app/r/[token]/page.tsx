@@ -10,6 +10,7 @@ import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
 import { withinBudget } from '@/server/rate-limit';
 import { DecisionForm } from './decision-form';
+import { vehicleName } from '@/domain/vehicle-name';
 
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Your vehicle’s test result', robots: { index: false, follow: false }, referrer: 'no-referrer' };
@@ -27,7 +28,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
   const b = link && (await reportBundle(link.shopId, link.reportId));
   if (!link || !b) notFound();
   const r = b.analyses[0]?.analysis.result;
-  const vehicle = [b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ');
+  const vehicle = vehicleName(b.vehicle);
   const low = r?.cylinders.filter((c) => c.status === 'low') ?? [];
   const { timeZone, phone, address } = await getShopSettings(link.shopId);
   const answer = await approvalThroughLink(link, b.report.revision);

@@ -15,6 +15,7 @@ import { MiniBars } from './_components/mini-bars';
 import { JobStatusControl } from './_components/job-status';
 import { RemoveJob } from './_components/remove-job';
 import { pageMember } from '@/server/page-context';
+import { vehicleName } from '@/domain/vehicle-name';
 
 export const metadata: Metadata = { title: 'Job' };
 
@@ -38,7 +39,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
       <header className="rounded-2xl border border-line bg-surface p-5">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h1 className="text-2xl font-bold">
-            <span className="figures">{job.repairOrder}</span> · {[v.year, v.make, v.model].filter(Boolean).join(' ')}
+            <span className="figures">{job.repairOrder}</span> · {vehicleName(v)}
           </h1>
           <span className="rounded-md bg-raised px-2 py-1 font-bold">{JOB_STATUS_LABEL[job.status as JobStatus] ?? job.status}</span>
         </div>

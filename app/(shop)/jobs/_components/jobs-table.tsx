@@ -16,13 +16,11 @@ import { JOB_STATUSES, type JobStatus } from '@/domain/job';
 import { jobNeeds } from '@/domain/job-queue';
 import type { JobRow } from '@/components/data/jobs/types';
 import { useJobs } from '@/components/data/jobs/use-jobs';
+import { vehicleName } from '@/domain/vehicle-name';
 
 const FILTERS = [{ value: 'all', label: 'All' }, ...JOB_STATUSES.map((value) => ({ value, label: JOB_STATUS_LABEL[value] }))];
 
 
-function vehicleText(v: JobRow['vehicle']) {
-  return [v.year, v.make, v.model].filter(Boolean).join(' ');
-}
 
 const columns: ColumnDef<JobRow>[] = [
   {
@@ -37,10 +35,10 @@ const columns: ColumnDef<JobRow>[] = [
   {
     id: 'vehicle',
     header: 'Vehicle',
-    accessorFn: (r) => vehicleText(r.vehicle),
+    accessorFn: (r) => vehicleName(r.vehicle),
     cell: (c) => (
       <div>
-        <div className="font-bold">{vehicleText(c.row.original.vehicle)}</div>
+        <div className="font-bold">{vehicleName(c.row.original.vehicle)}</div>
         <div className="figures text-sm text-muted">{c.row.original.vehicle.vin ?? 'no VIN'}</div>
       </div>
     ),
@@ -74,7 +72,7 @@ function NeedsYou({ rows, role }: { rows: JobRow[]; role: string }) {
             <span id={`needs-${r.id}`} className="figures font-bold">
               {r.repairOrder}
             </span>
-            <span>{vehicleText(r.vehicle)}</span>
+            <span>{vehicleName(r.vehicle)}</span>
             <Link className="font-bold text-brand underline" href={`/jobs/${r.id}`} aria-describedby={`needs-${r.id}`}>
               {need}
             </Link>
@@ -97,7 +95,7 @@ function JobCards({ rows }: { rows: JobRow[] }) {
             </Link>
             <StatusBadge status={r.status} />
           </div>
-          <div className="font-bold">{vehicleText(r.vehicle)}</div>
+          <div className="font-bold">{vehicleName(r.vehicle)}</div>
           <p className="line-clamp-2">{r.concern}</p>
           <UpdatedAt at={r.updatedAt} />
         </li>

@@ -18,6 +18,7 @@ import { sendMail } from '@/server/mail';
 import { renderPdf } from '@/server/engine/pool';
 import { pdfDataFor } from '@/server/pdf/build-report';
 import { withShop } from '@/server/with-shop';
+import { vehicleName } from '@/domain/vehicle-name';
 
 /** Sends allowed in an hour. */
 const SENDS_PER_MEMBER_HOUR = 10;
@@ -56,10 +57,10 @@ export const POST = withShop(
       const name = `${b.job.repairOrder}-rev${b.report.revision}.pdf`;
       const zone = shop.settings.timeZone;
       if (input.link) link = await createShareLink(shop.id, b.report.id, user.id);
-      const vehicle = [b.vehicle.year, b.vehicle.make, b.vehicle.model].filter(Boolean).join(' ');
+      const vehicle = vehicleName(b.vehicle);
       const lines = [
         ...(input.note ? [input.note, ''] : []),
-        `The relative compression report for ${vehicle} (${b.job.repairOrder}) is attached (revision ${b.report.revision}, signed ${formatWhen(b.report.signedAt ?? new Date(), zone)}).`,
+        `The relative compression report for ${vehicle} (${b.job.repairOrder}) is attached (revision ${b.report.revision}, signed ${formatWhen(b.report.signedAt!, zone)}).`,
         ...(link ? [`See the result and approve or decline the next step here: ${APP_URL}/r/${link.token}`, `The link is open until ${formatWhen(link.link.expiresAt, zone)}.`] : []),
         '',
         b.shop.name,

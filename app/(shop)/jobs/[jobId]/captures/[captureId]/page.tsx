@@ -12,6 +12,7 @@ import { listProfiles } from '@/db/queries/profiles';
 import { type AnalysisSettingsValues, analysisSettingsSchema, settingsForEngine } from '@/domain/analysis-settings';
 import { pageMember } from '@/server/page-context';
 import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
+import { vehicleName } from '@/domain/vehicle-name';
 
 export const metadata: Metadata = { title: 'Analysis' };
 
@@ -29,8 +30,9 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
     const parsed = h ? analysisSettingsSchema.safeParse(h.settings) : null;
     return parsed?.success ? parsed.data : null;
   };
-  const initial = settingsOf(opened ?? history[0]) ?? fromVehicle;
-  const savedAs = opened && settingsOf(opened) ? { when: formatWhen(opened.createdAt, m.shop.settings.timeZone), settings: settingsOf(opened)! } : undefined;
+  const openedSettings = opened ? settingsOf(opened) : null;
+  const initial = (opened ? openedSettings : settingsOf(history[0])) ?? fromVehicle;
+  const savedAs = opened && openedSettings ? { when: formatWhen(opened.createdAt, m.shop.settings.timeZone), settings: openedSettings } : undefined;
   const own = await listProfiles(m.shop.id);
   const profiles = [
     ...own.map((p) => ({ key: `shop-${p.id}`, label: `${p.label} (shop)`, engine: { ...p.engine, numbering: p.engine.numbering ?? 'along-crank' } })),
@@ -42,7 +44,7 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
         <span className="figures">{capture.fileName}</span>
       </JobBreadcrumb>
       <h1 className="text-2xl font-bold">
-        {[job.vehicle.year, job.vehicle.make, job.vehicle.model].filter(Boolean).join(' ')} — <span className="figures">{capture.fileName}</span>
+        {vehicleName(job.vehicle)} — <span className="figures">{capture.fileName}</span>
       </h1>
       <Suspense>
         <Workspace
