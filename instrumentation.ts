@@ -1,7 +1,8 @@
 /**
  * At server start (Next.js calls this once per server process): the Node.js server checks that it can open the
  * embedded database, so a second server on the same data directory stops at once (server/start-check.ts), and
- * starts the sweep of objects left to remove (server/object-sweeper.ts).
+ * starts the sweep of objects left to remove (server/object-sweeper.ts) and the daily retention sweep
+ * (server/retention-sweeper.ts).
  * Errors thrown while rendering a page are logged with their stack, the request id and Next.js's digest (the
  * reference the error page shows).
  */
@@ -12,6 +13,8 @@ export async function register(): Promise<void> {
   await (await import('./server/start-check')).checkStart();
   // Objects whose rows were removed while object storage was down are removed once it answers again.
   (await import('./server/object-sweeper')).startObjectSweeper();
+  // Captures of jobs done for longer than their shop keeps them go once a day.
+  (await import('./server/retention-sweeper')).startRetentionSweeper();
 }
 
 export const onRequestError: Instrumentation.onRequestError = async (error, request, context) => {

@@ -1,7 +1,7 @@
 /**
  * The one database client per process. Embedded PGlite in the data directory by default — opened lazily on
  * first use, kept on globalThis so every route bundle shares it, migrated once behind one promise, guarded by a
- * PID lock and closed by the server on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a
+ * PID lock (on a server, migrated under an advisory lock, so a fleet may start at once) and closed by the server on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a
  * PostgreSQL server through node-postgres, with the same migrations.
  */
 import { mkdirSync } from 'node:fs';
@@ -14,6 +14,7 @@ import { migrate as migratePg } from 'drizzle-orm/node-postgres/migrator';
 import pg from 'pg';
 import * as schema from './schema';
 import { acquireLock } from './lock';
+import { CHANGES_CHANNEL, type ChangeTopic, heard, listenForChanges } from './changes';
 
 export type { Db } from './db-type';
 import type { Db } from './db-type';
@@ -23,13 +24,41 @@ export interface OpenOptions {
   url?: string;
   /** Data directory for the embedded database, or 'memory' for a throwaway one. */
   dataDir?: string;
+  /** Work to do once migrated, still under the start lock (the demo seed), so two instances never both do it. */
+  afterMigrate?: (db: Db) => Promise<unknown>;
+}
+
+/**
+ * Any number of instances may start at once on one PostgreSQL server: each takes this session-level advisory
+ * lock before migrating, so one migrates while the others wait and then find the schema migrated. The lock is
+ * the server's: it goes when its connection does, a killed instance included.
+ */
+const START_LOCK = 'crankprint:migrate';
+
+async function underStartLock<T>(pool: pg.Pool, work: () => Promise<T>): Promise<T> {
+  const client = await pool.connect();
+  try {
+    await client.query('select pg_advisory_lock(hashtext($1))', [START_LOCK]);
+    try {
+      return await work();
+    } finally {
+      await client.query('select pg_advisory_unlock(hashtext($1))', [START_LOCK]);
+    }
+  } finally {
+    client.release();
+  }
 }
 
 export interface Database {
   db: Db;
   kind: 'pglite' | 'postgres';
+  /** Tells every instance on this database (this one included) that `topic` changed (db/changes.ts). */
+  announce(topic: ChangeTopic): Promise<void>;
   close(): Promise<void>;
 }
+
+/** In one process (the embedded database) a change is heard where it is made. */
+const announceHere = async (topic: ChangeTopic) => heard(topic);
 
 export const MIGRATIONS_FOLDER = resolve(/*turbopackIgnore: true*/ process.cwd(), 'db/migrations');
 
@@ -38,14 +67,35 @@ export async function openDatabase(o: OpenOptions = {}): Promise<Database> {
   if (o.url) {
     const pool = new pg.Pool({ connectionString: o.url, max: 10 });
     const db = drizzlePg(pool, { schema, casing: 'snake_case' }) as unknown as Db;
-    await migratePg(db as never, { migrationsFolder: MIGRATIONS_FOLDER });
-    return { db, kind: 'postgres', close: () => pool.end() };
+    try {
+      await underStartLock(pool, async () => {
+        await migratePg(db as never, { migrationsFolder: MIGRATIONS_FOLDER });
+        await o.afterMigrate?.(db);
+      });
+    } catch (e) {
+      await pool.end().catch(() => {});
+      throw e;
+    }
+    const stopListening = await listenForChanges(o.url, (e) => console.warn(`database: the change listener lost its connection (${e instanceof Error ? e.message : String(e)}); retrying`));
+    return {
+      db,
+      kind: 'postgres',
+      announce: async (topic) => {
+        heard(topic);
+        await pool.query('select pg_notify($1, $2)', [CHANGES_CHANNEL, topic]);
+      },
+      close: async () => {
+        await stopListening();
+        await pool.end();
+      },
+    };
   }
   if (!o.dataDir || o.dataDir === 'memory') {
     const client = new PGlite();
     const db = drizzlePglite(client, { schema, casing: 'snake_case' });
     await migratePglite(db, { migrationsFolder: MIGRATIONS_FOLDER });
-    return { db, kind: 'pglite', close: () => client.close() };
+    await o.afterMigrate?.(db);
+    return { db, kind: 'pglite', announce: announceHere, close: () => client.close() };
   }
   const dir = resolve(/*turbopackIgnore: true*/ o.dataDir);
   mkdirSync(/*turbopackIgnore: true*/ dir, { recursive: true });
@@ -54,9 +104,11 @@ export async function openDatabase(o: OpenOptions = {}): Promise<Database> {
     const client = new PGlite(join(dir, 'pglite'));
     const db = drizzlePglite(client, { schema, casing: 'snake_case' });
     await migratePglite(db, { migrationsFolder: MIGRATIONS_FOLDER });
+    await o.afterMigrate?.(db);
     return {
       db,
       kind: 'pglite',
+      announce: announceHere,
       close: async () => {
         await client.close();
         release();
@@ -98,11 +150,11 @@ export function pastCutOff(): boolean {
 /** The process's database, opened and migrated on first use. Every handler awaits this before a query. */
 export function getDatabase(): Promise<Database> {
   holder.ready ??= (async () => {
-    const d = await openDatabase(process.env.DATABASE_URL ? { url: process.env.DATABASE_URL } : { dataDir: dataDir() });
+    // Demo mode seeds an invented shop into an empty database (under the start lock, so once in a fleet).
+    const afterMigrate = process.env.CRANKPRINT_DEMO === '1' ? async (db: Db) => (await import('./seed')).seedDemoIfEmpty(db) : undefined;
+    const d = await openDatabase(process.env.DATABASE_URL ? { url: process.env.DATABASE_URL, afterMigrate } : { dataDir: dataDir(), afterMigrate });
     // The server closes it once the requests under way have finished (scripts/serve.mjs).
     life.closeDatabase = () => d.close();
-    // Demo mode seeds an invented shop into an empty database.
-    if (process.env.CRANKPRINT_DEMO === '1') await (await import('./seed')).seedDemoIfEmpty(d.db);
     return d;
   })().catch((e) => {
     holder.ready = undefined;

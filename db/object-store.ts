@@ -151,3 +151,28 @@ export async function deleteObjects(urls: string[]): Promise<void> {
     }
   }
 }
+
+/** The bucket would not let these credentials list it: the sentence names the permission to grant. */
+export class ListDeniedError extends Error {
+  constructor(target: { bucket: string; prefix: string }, code: string) {
+    super(`Object storage refused to list s3://${target.bucket}/${target.prefix} (${code}): give these credentials the s3:ListBucket permission on the bucket "${target.bucket}" (for the prefix "${target.prefix}"), then run this again.`);
+    this.name = 'ListDeniedError';
+  }
+}
+
+/** Every object under the target's prefix, a page of up to 1000 at a time. */
+export async function* listObjects(target: { bucket: string; prefix: string }): AsyncGenerator<{ url: string; size: number; lastModified: Date }> {
+  let token: string | undefined;
+  do {
+    let page;
+    try {
+      page = await s3().send(new ListObjectsV2Command({ Bucket: target.bucket, Prefix: target.prefix, ContinuationToken: token }));
+    } catch (e) {
+      const status = (e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
+      if (status === 403) throw new ListDeniedError(target, (e as { name?: string }).name ?? 'AccessDenied');
+      throw new StorageUnavailableError(e);
+    }
+    for (const o of page.Contents ?? []) if (o.Key) yield { url: `s3://${target.bucket}/${o.Key}`, size: Number(o.Size ?? 0), lastModified: o.LastModified ?? new Date(0) };
+    token = page.IsTruncated ? page.NextContinuationToken : undefined;
+  } while (token);
+}

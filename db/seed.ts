@@ -95,6 +95,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
         createdBy: ids[1],
         createdAt: at,
         updatedAt: at,
+        doneAt: j.status === 'done' ? at : null,
       })
         .returning({ id: jobs.id });
       // A capture from samples/ with a saved analysis, so the first screen shows real traces and charts.

@@ -1,5 +1,6 @@
 /** The job (repair order) schema, shared by the new-job form and the jobs route. */
 import { z } from 'zod';
+import { withoutDigitGroups } from './typed-number';
 import { vehicleSchema } from './vehicle';
 import { DISTANCE_UNITS } from './shop-settings';
 
@@ -25,8 +26,7 @@ export const jobSchema = z
       .max(30, 'Keep the repair-order number under 30 characters.')
       .refine((v) => ![...v].some((ch) => ch.charCodeAt(0) < 32 || ch.charCodeAt(0) === 127), 'Write the repair-order number on one line, without tabs or line breaks.'),
     odometer: z.preprocess(
-      // "92,400", "92 400" and "92.400" are how people write 92400: separators between groups of three go.
-      (v) => (v === '' || v === null ? undefined : typeof v === 'string' && /^\s*\d{1,3}([,.\s'’\u202f]\d{3})+\s*$/.test(v) ? v.replace(/[^\d]/g, '') : v),
+      (v) => (v === '' || v === null ? undefined : withoutDigitGroups(v)),
       z.coerce.number().int('The odometer reading is a whole number.').min(0, 'The odometer cannot be negative.').max(3_000_000, 'That odometer reading is too large.').optional(),
     ),
     odometerUnit: z.enum(DISTANCE_UNITS).default('km'),

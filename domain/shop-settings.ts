@@ -54,3 +54,6 @@ export function shopSettingsFrom(
 function trimLines(text: string): string {
   return text.replace(/\r\n?/g, '\n').replace(/[ \t]+$/gm, '').trim();
 }
+
+/** Removing a shop: its name typed by the owner (compared with the name, spaces at either end aside). */
+export const removeShopInput = z.object({ confirmName: z.string().max(200, 'Type the shop’s name.').default('') });

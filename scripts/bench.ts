@@ -2,7 +2,7 @@
  * npm run bench: in one run, the plain parsing baseline and the full import + analysis on generated 1M- and
  * 10M-sample captures (each measurement in a fresh process, medians over repeats), papaparse and csv-parse on
  * the same 1M file (why the importer is our own), min/max decimation against one plain pass, and the report
- * PDF. Ends with one `bench:` line.
+ * PDF, and the recovery sweep's figures on the simulator (one `sweep:` line). Ends with one `bench:` line.
  */
 import { execFileSync } from 'node:child_process';
 import { appendFileSync, copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -10,6 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { renderReportPdf } from '../server/pdf/render';
 import { decimateMinMax } from '../signal/dsp/decimate';
+import { runSweep } from '../signal/sim/sweep';
 import { sampleReportData } from '../tests/report/sample-report';
 import { generateCapture } from './bench/generate';
 import { chooseToBars, healthDuringAnalysis } from './bench/served';
@@ -66,7 +67,7 @@ const packages = Object.fromEntries(
 );
 const r10 = measure('10m', 10_000_000, 5);
 
-async function measureServed(): Promise<{ barsMs: number; confirmedMs: number; healthP99: number } | null> {
+async function measureServed(): Promise<{ barsMs: number; confirmedMs: number; redrawMs: number; healthP99: number } | null> {
   if (!existsSync('.next/BUILD_ID')) {
     console.log('served: no production build (npm run build): choose → bars and health during analysis left out');
     return null;
@@ -83,11 +84,12 @@ async function measureServed(): Promise<{ barsMs: number; confirmedMs: number; h
       appendFileSync(copy, `${(10 + k / 1000).toFixed(7)},0.00,0.00\n`);
       return copy;
     });
-    const { barsMs, confirmedMs } = await chooseToBars(server.base, cookie, copies);
+    const { barsMs, confirmedMs, redrawMs } = await chooseToBars(server.base, cookie, copies);
     console.log(`served: choose → bars (1M samples, headless Chromium) median ${median(barsMs).toFixed(0)} ms [${barsMs.map((x) => x.toFixed(0)).join(', ')}]; → server's reading confirmed ${median(confirmedMs).toFixed(0)} ms`);
+    console.log(`served: zoom → trace redrawn (1M samples) median ${median(redrawMs).toFixed(0)} ms, worst ${Math.max(...redrawMs).toFixed(0)} ms over ${redrawMs.length} zooms (target 100 ms)`);
     const health = await healthDuringAnalysis(server.base, cookie, readFileSync(`${dir}/capture-10m.csv`, 'utf8'));
     console.log(`served: /api/health p99 ${health.restP99.toFixed(0)} ms at rest, ${health.busyP99.toFixed(0)} ms during three 10M-sample analyses (${health.saves} saves)`);
-    return { barsMs: median(barsMs), confirmedMs: median(confirmedMs), healthP99: health.busyP99 };
+    return { barsMs: median(barsMs), confirmedMs: median(confirmedMs), redrawMs: median(redrawMs), healthP99: health.busyP99 };
   } finally {
     server.child.kill('SIGTERM');
     await exited(server.child);
@@ -124,6 +126,12 @@ for (let r = 0; r < 6; r++) {
 }
 console.log(`report PDF: first ${pdfRuns[0].toFixed(0)} ms, then median ${median(pdfRuns.slice(1)).toFixed(0)} ms`);
 
+// The recovery sweep on the simulator (signal/sim/sweep.ts): its figures per method, tracked like speed.
+const sweepStarted = performance.now();
+const sweep = runSweep([11]);
+console.log(`sweep took ${((performance.now() - sweepStarted) / 1000).toFixed(0)} s; confident wrong flags: ${sweep.wrong.length}`);
+console.log(sweep.line());
+
 // Served by the production build (npm run build first): choose → bars in headless Chromium on a 1M-sample file,
 // and /api/health p99 while three 10M-sample analyses run in the engine's thread pool.
 const served = await measureServed();
@@ -135,5 +143,5 @@ console.log(
     `e2e_1m_ms=${f(r1.importMs + r1.analysisMs, 0)} e2e_10m_ms=${f(r10.importMs + r10.analysisMs, 0)} ` +
     `peak_mem_ratio_10m=${f(r10.peakRatio)} decimate_ratio_10m=${f(median(dec) / median(pass))} pdf_ms=${f(median(pdfRuns.slice(1)), 0)} ` +
     `papaparse_1m_ms=${f(packages.papaparse, 0)} csv_parse_1m_ms=${f(packages['csv-parse'], 0)} import_1m_ms=${f(r1.importMs, 0)} ` +
-    `choose_to_bars_1m_ms=${na(served?.barsMs)} choose_to_confirmed_1m_ms=${na(served?.confirmedMs)} health_p99_during_analysis_ms=${na(served?.healthP99)}`,
+    `choose_to_bars_1m_ms=${na(served?.barsMs)} choose_to_confirmed_1m_ms=${na(served?.confirmedMs)} zoom_redraw_1m_ms=${na(served?.redrawMs)} health_p99_during_analysis_ms=${na(served?.healthP99)}`,
 );

@@ -28,7 +28,8 @@ export function dispositionFor(name: string, type: 'attachment' | 'inline' = 'at
   return contentDisposition(clean, { type, fallback: ascii });
 }
 
-function withoutControls(s: string): string {
+/** The text with every control character (C0 and DEL) as a space. */
+export function withoutControls(s: string): string {
   let out = '';
   for (const ch of s) {
     const c = ch.codePointAt(0)!;

@@ -1,9 +1,12 @@
 /**
- * A few seconds' memory of who is a member of which shop with which role, so a busy page or integration does
- * not ask the database on every request (bench:load). Every change made through this process forgets it at
- * once; another instance on the same PostgreSQL server sees a role change or removal within TTL_MS.
+ * A few seconds' memory of who is a member of which shop with which role (and the shop's settings), so a busy
+ * page or integration does not ask the database on every request (bench:load). A change is announced to every
+ * instance on the database (db/changes.ts: LISTEN/NOTIFY on a server), and each forgets at once; TTL_MS bounds
+ * what an instance remembers should a notice be lost while its listening connection is down.
  */
 import 'server-only';
+import { getDatabase } from '@/db/client';
+import { onChange } from '@/db/changes';
 
 export const TTL_MS = 5_000;
 const MAX_ENTRIES = 10_000;
@@ -12,21 +15,46 @@ interface Entry<T> {
   value: T;
   until: number;
 }
-const g = globalThis as unknown as { __crankprintMemberships?: Map<string, Entry<unknown>> };
-const entries = (g.__crankprintMemberships ??= new Map());
+interface Cache {
+  entries: Map<string, Entry<unknown>>;
+  /** Counts the changes heard: a value read across one is not remembered. */
+  generation: number;
+  listening: boolean;
+}
+// On globalThis: every route bundle shares one cache and registers one listener.
+const g = globalThis as unknown as { __crankprintMemberships?: Cache };
+const cache: Cache = (g.__crankprintMemberships ??= { entries: new Map(), generation: 0, listening: false });
 
 /** The remembered value for `key`, or what `load` finds (remembered for TTL_MS; a failure is not). */
 export async function rememberMembership<T>(key: string, load: () => Promise<T>): Promise<T> {
   const now = Date.now();
-  const hit = entries.get(key);
+  const hit = cache.entries.get(key);
   if (hit && hit.until > now) return hit.value as T;
+  const generation = cache.generation;
   const value = await load();
-  if (entries.size >= MAX_ENTRIES) entries.clear();
-  entries.set(key, { value, until: now + TTL_MS });
+  // A change heard while this was being read may have come after the read: use it once, do not remember it.
+  if (generation !== cache.generation) return value;
+  if (cache.entries.size >= MAX_ENTRIES) cache.entries.clear();
+  cache.entries.set(key, { value, until: now + TTL_MS });
   return value;
 }
 
-/** Forgets every membership: called after any change to members, roles, shops or invitations. */
-export function forgetMemberships(): void {
-  entries.clear();
+/** Forgets every membership in this process. */
+function forgetMemberships(): void {
+  cache.generation++;
+  cache.entries.clear();
+}
+
+if (!cache.listening) {
+  cache.listening = true;
+  onChange((topic) => topic === 'membership' && forgetMemberships());
+}
+
+/**
+ * After any change to members, roles, shops, their settings or invitations: every instance forgets its
+ * memberships (this one before the call returns, the others as the notice reaches them).
+ */
+export async function announceMembershipChange(): Promise<void> {
+  // The database's announce tells this process's listeners first (so this one forgets before the call returns).
+  await (await getDatabase()).announce('membership');
 }

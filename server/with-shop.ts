@@ -110,12 +110,16 @@ async function lookUpMembership(s: SessionContext): Promise<Membership> {
 
 async function readInput(req: NextRequest, params: Record<string, string>, rawBody = false): Promise<unknown> {
   const query = Object.fromEntries(req.nextUrl.searchParams.entries());
-  if (rawBody || req.method === 'GET' || req.method === 'DELETE' || req.method === 'HEAD') return { ...query, ...params };
   const type = req.headers.get('content-type') ?? '';
+  // A DELETE reads a body only when it sends JSON (removing a shop carries its typed name).
+  const bodiless = req.method === 'GET' || req.method === 'HEAD' || (req.method === 'DELETE' && !type.includes('application/json'));
+  if (rawBody || bodiless) return { ...query, ...params };
   if (!type.includes('application/json')) {
     throw new HttpError(415, 'UNSUPPORTED_MEDIA_TYPE', 'Send the request body as JSON (Content-Type: application/json).');
   }
   const bytes = await readLimited(req);
+  // An empty DELETE says nothing more than its path, whatever its Content-Type.
+  if (req.method === 'DELETE' && bytes.length === 0) return { ...query, ...params };
   let body: unknown;
   try {
     body = JSON.parse(new TextDecoder().decode(bytes));

@@ -1,18 +1,26 @@
 'use client';
 /**
  * The cautions, before anything is recorded or analysed for a job: on the job page before its first capture, and
- * in a capture's workspace reached directly. Read once per job by each member on each device (kept in this
- * browser's storage under the member and the job), so every new job shows them again.
+ * in a capture's workspace reached directly. Read once per job by each member: the server records the reading
+ * (in the job's activity), so another device does not ask again and every new job asks once more.
  */
 import { useEffect, useState } from 'react';
+import { useMutation } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/field';
+import { api, ApiError } from '@/components/data/api';
 import { CAUTIONS } from '@/domain/cautions';
 
-export function CautionsGate({ userId, jobId, children }: { userId: string; jobId: string; children: React.ReactNode }) {
-  const key = `crankprint-cautions-read-${userId}-${jobId}`;
-  const [read, setRead] = useState<boolean | null>(null);
-  useEffect(() => setRead(localStorage.getItem(key) === '1'), [key]);
-  if (read === null) return null;
+export function CautionsGate({ jobId, read: readBefore, children }: { jobId: string; read: boolean; children: React.ReactNode }) {
+  const [read, setRead] = useState(readBefore);
+  // The gate is drawn by the server: until the page can act on a press, the button says so by being disabled
+  // (a press before that would be lost, leaving the cautions on screen).
+  const [live, setLive] = useState(false);
+  useEffect(() => setLive(true), []);
+  const record = useMutation({
+    mutationFn: () => api(`/api/jobs/${jobId}/cautions`, { method: 'POST', json: {} }),
+    onSuccess: () => setRead(true),
+  });
   if (read) return <>{children}</>;
   return (
     <div role="dialog" aria-modal="true" aria-labelledby="cautions-title" className="rounded-2xl border-2 border-brand bg-surface p-6">
@@ -24,15 +32,12 @@ export function CautionsGate({ userId, jobId, children }: { userId: string; jobI
           <li key={c}>{c}</li>
         ))}
       </ul>
-      <Button
-        className="mt-4"
-        onClick={() => {
-          localStorage.setItem(key, '1');
-          setRead(true);
-        }}
-      >
+      <Button className="mt-4" disabled={!live || record.isPending} onClick={() => record.mutate()}>
         I have read this — go on
       </Button>
+      {record.isError && (
+        <Notice tone="error">{record.error instanceof ApiError ? record.error.message : 'Could not record that you read the cautions; check the connection and press the button again.'}</Notice>
+      )}
     </div>
   );
 }

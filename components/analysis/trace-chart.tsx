@@ -8,6 +8,7 @@ import { forwardRef, useEffect, useImperativeHandle, useRef } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { EventMark } from '@/signal';
+import { TRACE_REDRAW_MEASURE, TRACE_ZOOM_MARK } from './trace-timing';
 
 export interface TraceSeries {
   label: string;
@@ -81,6 +82,8 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
     let disposed = false;
     let pending: ReturnType<typeof setTimeout> | null = null;
     let drag: 'start' | 'end' | null = null;
+    // Set when the worker's view for the latest zoom is handed to the chart; its draw ends the redraw measure.
+    let fresh = false;
 
     const toData = (d: TraceData): uPlot.AlignedData => [d.x as unknown as number[], ...d.series.flatMap((s) => [s.min as unknown as number[], s.max as unknown as number[]])];
 
@@ -89,7 +92,12 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
       pending = setTimeout(async () => {
         live.current.onView?.();
         const d = await live.current.fetchView(min, max, Math.max(200, Math.round(u.bbox.width / devicePixelRatio)));
-        if (!disposed && d) u.setData(toData(d), false);
+        if (!disposed && d) {
+          fresh = true;
+          // setData without resetting the scales does not draw (uPlot 1.6): draw the new view now, the zoom kept.
+          u.setData(toData(d), false);
+          u.redraw(true, false);
+        }
       }, 40);
     };
 
@@ -180,10 +188,21 @@ export const TraceChart = forwardRef<TraceHandle, Props>(function TraceChart(pro
           hooks: {
             setScale: [
               (uu, key) => {
-                if (key === 'x' && uu.scales.x.min != null && uu.scales.x.max != null) request(uu, uu.scales.x.min, uu.scales.x.max);
+                if (key === 'x' && uu.scales.x.min != null && uu.scales.x.max != null) {
+                  performance.clearMarks(TRACE_ZOOM_MARK);
+                  performance.mark(TRACE_ZOOM_MARK);
+                  request(uu, uu.scales.x.min, uu.scales.x.max);
+                }
               },
             ],
-            draw: [drawOverlay],
+            draw: [
+              drawOverlay,
+              () => {
+                if (!fresh) return;
+                fresh = false;
+                if (performance.getEntriesByName(TRACE_ZOOM_MARK).length) performance.measure(TRACE_REDRAW_MEASURE, TRACE_ZOOM_MARK);
+              },
+            ],
           },
         },
         toData(first),

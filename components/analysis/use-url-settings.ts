@@ -1,7 +1,13 @@
 'use client';
-/** The workspace's analysis settings, kept in the URL (?s=…) so a reload or a hand-over keeps them; invalid or absent → the defaults. */
+/**
+ * The workspace's analysis settings, kept in the URL (?s=…) so a reload or a hand-over keeps them; invalid or
+ * absent → the defaults. A change applies at once (the URL follows when the router has replaced it), so a value
+ * committed by leaving a field is the one a click on Save straight after sends. A URL changed from outside (a
+ * link to a saved analysis, back and forward) is taken up; the URLs of this page's own changes still on their
+ * way are not, so quick changes never step back.
+ */
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
-import { useCallback, useMemo } from 'react';
+import { useCallback, useMemo, useRef, useState } from 'react';
 import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/domain/analysis-settings';
 
 function settingsFromUrl(raw: string | null, fallback: AnalysisSettingsValues): AnalysisSettingsValues {
@@ -18,11 +24,24 @@ export function useUrlSettings(initial: AnalysisSettingsValues): [AnalysisSettin
   const router = useRouter();
   const path = usePathname();
   const params = useSearchParams();
-  const settings = useMemo(() => settingsFromUrl(params.get('s'), initial), [params, initial]);
+  const raw = params.get('s');
+  const fromUrl = useMemo(() => settingsFromUrl(raw, initial), [raw, initial]);
+  const [settings, setLocal] = useState(fromUrl);
+  const [seen, setSeen] = useState(raw);
+  /** What this page last wrote to the URL, until the URL shows it. */
+  const pending = useRef<string | null>(null);
+  if (raw !== seen) {
+    setSeen(raw);
+    if (pending.current === null) setLocal(fromUrl);
+    else if (raw === pending.current) pending.current = null;
+  }
   const setSettings = useCallback(
     (s: AnalysisSettingsValues) => {
+      const text = JSON.stringify(s);
+      pending.current = text;
+      setLocal(s);
       const next = new URLSearchParams(params);
-      next.set('s', JSON.stringify(s));
+      next.set('s', text);
       router.replace(`${path}?${next}`, { scroll: false });
     },
     [params, path, router],

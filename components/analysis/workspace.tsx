@@ -38,13 +38,14 @@ interface Props {
   /** The saved analysis this page was opened on, if any: the page says whether the settings still match it. */
   savedAs?: { when: string; settings: AnalysisSettingsValues };
   profiles: ProfileOption[];
-  userId: string;
+  /** Whether this member has read the job's safety cautions (on any device). */
+  cautionsRead: boolean;
   /** The job the capture belongs to: its cautions, once read, are not asked again. */
   jobId: string;
   canSave: boolean;
 }
 
-export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, savedAs, profiles, userId, jobId, canSave }: Props) {
+export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, savedAs, profiles, cautionsRead, jobId, canSave }: Props) {
   const router = useRouter();
   const [settings, applySettings] = useUrlSettings(initialSettings);
   const history = useSettingsHistory(settings, applySettings);
@@ -303,7 +304,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, sav
     </div>
   );
   return (
-    <CautionsGate userId={userId} jobId={jobId}>
+    <CautionsGate read={cautionsRead} jobId={jobId}>
       {body}
     </CautionsGate>
   );

@@ -76,3 +76,18 @@ export async function releaseAction(shopId: string, eventId: string): Promise<vo
   const db = await getDb();
   await db.delete(auditEvents).where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.id, eventId)));
 }
+
+/** The audit action that records a member reading a job's safety cautions. */
+export const CAUTIONS_READ = 'job.cautions-read';
+
+/** When this member read the cautions for this job (on any device), or null if they have not. */
+export async function cautionsReadAt(shopId: string, userId: string, jobId: string): Promise<Date | null> {
+  const db = await getDb();
+  const [row] = await db
+    .select({ at: auditEvents.createdAt })
+    .from(auditEvents)
+    .where(and(eq(auditEvents.shopId, shopId), eq(auditEvents.subjectId, jobId), eq(auditEvents.action, CAUTIONS_READ), eq(auditEvents.actorId, userId)))
+    .orderBy(auditEvents.createdAt)
+    .limit(1);
+  return row?.at ?? null;
+}

@@ -53,11 +53,12 @@ export async function createCapture(shopId: string, c: NewCapture, signal?: Abor
   const target = captureStoreTarget();
   const id = crypto.randomUUID();
   const storageUrl = target ? newCaptureUrl(target, shopId, id) : null;
-  // Inside the transaction the job row is share-locked: a removal of the job waits for this capture (and then
-  // removes it with its object), or this insert waits for the removal and finds no job.
+  // Inside the transaction the job row is locked for the update of its time below (FOR NO KEY UPDATE): a removal
+  // of the job waits for this capture (and then removes it with its object), or this insert waits for the removal
+  // and finds no job. Two uploads to one job take turns here; a share lock upgraded by the update deadlocked them.
   const check = async (tx: Pick<typeof db, 'select'>, lock = false) => {
     const query = tx.select({ id: jobs.id }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, c.jobId)));
-    const [job] = lock ? await query.for('share') : await query;
+    const [job] = lock ? await query.for('no key update') : await query;
     if (!job) return false;
     const [dupe] = await tx.select({ id: captures.id }).from(captures).where(and(eq(captures.jobId, c.jobId), eq(captures.sha256, c.sha256)));
     if (dupe) throw new DuplicateCaptureError(dupe.id);

@@ -9,7 +9,7 @@ import { engineSpec } from './vehicles';
 
 export class DuplicateRepairOrderError extends Error {}
 
-const jobColumns = {
+export const jobColumns = {
   id: jobs.id,
   repairOrder: jobs.repairOrder,
   odometer: jobs.odometer,
@@ -87,11 +87,14 @@ export async function createJob(shopId: string, userId: string, j: JobValues) {
   });
 }
 
+/** A job moved to done is done from now (the shop's retention counts from here); any other status is not done. */
+const doneAtFor = (status: string): Date | null => (status === 'done' ? new Date() : null);
+
 export async function updateJob(shopId: string, jobId: string, patch: { status?: string; concern?: string; odometer?: number }) {
   const db = await getDb();
   const [row] = await db
     .update(jobs)
-    .set({ ...patch, updatedAt: new Date() })
+    .set({ ...patch, updatedAt: new Date(), ...(patch.status ? { doneAt: doneAtFor(patch.status) } : {}) })
     .where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId)))
     .returning();
   return row ?? null;
@@ -107,7 +110,7 @@ export async function moveJob(shopId: string, jobId: string, to: JobStatus, from
   return db.transaction(async (tx) => {
     const [job] = await tx.select({ status: jobs.status }).from(jobs).where(and(eq(jobs.shopId, shopId), eq(jobs.id, jobId))).for('update');
     if (!job || !from.includes(job.status as JobStatus) || job.status === to) return null;
-    await tx.update(jobs).set({ status: to, updatedAt: new Date() }).where(eq(jobs.id, jobId));
+    await tx.update(jobs).set({ status: to, updatedAt: new Date(), doneAt: doneAtFor(to) }).where(eq(jobs.id, jobId));
     await tx.insert(auditEvents).values({ shopId, actorId, action: 'job.status', subjectType: 'job', subjectId: jobId, detail: { from: job.status, to, ...why } });
     return to;
   });
@@ -134,6 +137,6 @@ export async function deleteJob(shopId: string, jobId: string, actorId: string |
     return { captures: rows.length, urls };
   });
   if (!removed) return null;
-  const { left } = removed.urls.length ? await flushObjectDeletes(removed.urls) : { left: 0 };
+  const { left } = await flushObjectDeletes(removed.urls);
   return { captures: removed.captures, objectsLeft: left };
 }

@@ -19,6 +19,7 @@ export async function queueObjectDeletes(tx: Pick<Db, 'insert'>, urls: string[])
 
 /** Removes queued objects (these `urls`, or up to 1000 of the oldest): removed ones leave the queue, failures stay with their reason. */
 export async function flushObjectDeletes(urls?: string[]): Promise<{ removed: number; left: number }> {
+  if (urls?.length === 0) return { removed: 0, left: 0 };
   const db = await getDb();
   const rows = urls
     ? await db.select({ url: pendingObjectDeletes.url }).from(pendingObjectDeletes).where(inArray(pendingObjectDeletes.url, urls))

@@ -54,6 +54,8 @@ export const jobs = pgTable(
     createdBy: text().references(() => users.id, { onDelete: 'set null' }),
     createdAt: created(),
     updatedAt: created(),
+    /** When the job was last moved to done (null while it is not): the shop's retention counts from here. */
+    doneAt: timestamp({ withTimezone: true }),
   },
   (t) => [uniqueIndex().on(t.shopId, t.repairOrder), index().on(t.shopId, t.updatedAt)],
 );
@@ -162,7 +164,8 @@ export const auditEvents = pgTable(
     detail: jsonb(),
     createdAt: created(),
   },
-  (t) => [index().on(t.shopId, t.createdAt)],
+  // The second index finds a record's own events (a job's cautions read, say) without reading the shop's whole trail.
+  (t) => [index().on(t.shopId, t.createdAt), index().on(t.subjectId, t.action)],
 );
 
 export type Vehicle = typeof vehicles.$inferSelect;
@@ -225,5 +228,7 @@ export const shopSettings = pgTable('shop_settings', {
   /** How customers reach the shop, shown on their report page and in e-mail: free text, line breaks kept. */
   phone: text().notNull().default(''),
   address: text().notNull().default(''),
+  /** Days a done job keeps its captures and analyses (domain/retention.ts); null keeps them for ever. */
+  retentionDays: integer(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });

@@ -4,6 +4,7 @@
  * choosing a file on a job page to its bars on screen.
  */
 import { chromium } from '@playwright/test';
+import { TRACE_REDRAW_MEASURE } from '../../components/analysis/trace-timing';
 
 export function percentile(sorted: number[], p: number): number {
   if (sorted.length === 0) return NaN;
@@ -67,18 +68,20 @@ export async function healthDuringAnalysis(base: string, cookie: string, big: st
 /**
  * Headless Chromium (Debian's) on the job page of an inline four: choose `file`, time until its bars are on
  * screen (read on the device while it uploads) and until the server's reading has confirmed them. Each repeat
- * uses a copy with one more line, so the server stores each one.
+ * uses a copy with one more line, so the server stores each one. Then, in the last one's workspace, the time from
+ * each keyboard zoom until the trace has drawn the new view.
  */
-export async function chooseToBars(base: string, cookie: string, files: string[]): Promise<{ barsMs: number[]; confirmedMs: number[] }> {
+export async function chooseToBars(base: string, cookie: string, files: string[]): Promise<{ barsMs: number[]; confirmedMs: number[]; redrawMs: number[] }> {
   const job = await inlineFourJob(base, cookie);
-  const session = (await (await fetch(`${base}/api/auth/get-session`, { headers: { cookie } })).json()) as { user: { id: string } };
+  // The member has read this job's cautions (recorded on the server), so the uploader shows at once.
+  await fetch(`${base}/api/jobs/${job.id}/cautions`, { method: 'POST', headers: { cookie, origin: base, 'content-type': 'application/json' }, body: '{}' });
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium', args: ['--no-sandbox', '--disable-gpu'] });
   const barsMs: number[] = [];
   const confirmedMs: number[] = [];
+  const redrawMs: number[] = [];
   try {
     const context = await browser.newContext({ baseURL: base });
     await context.addCookies(cookie.split('; ').map((c) => ({ name: c.slice(0, c.indexOf('=')), value: c.slice(c.indexOf('=') + 1), url: base })));
-    await context.addInitScript((key) => localStorage.setItem(key, '1'), `crankprint-cautions-read-${session.user.id}`);
     const page = await context.newPage();
     for (const file of files) {
       await page.goto(`/jobs/${job.id}`);
@@ -91,10 +94,24 @@ export async function chooseToBars(base: string, cookie: string, files: string[]
       await page.getByTestId('upload-confirmation').filter({ hasText: /same figures|differ/ }).or(page.getByTestId('upload-differences')).first().waitFor({ timeout: 120_000 });
       confirmedMs.push(performance.now() - t0);
     }
+    // The last file's workspace: zoom in with the keyboard, and time each zoom until the trace has drawn the
+    // worker's new view (the page's own User Timing measure, which includes the 40 ms wait for more zooming).
+    await page.locator('[data-testid=capture-list] a').first().click();
+    await page.getByTestId('cylinder-chart').waitFor({ timeout: 60_000 });
+    await page.getByTestId('trace').focus();
+    // The first view's draw (opening the page) is not a zoom: only the measures after it count.
+    const opened = await page.evaluate((name) => performance.getEntriesByName(name).length, TRACE_REDRAW_MEASURE);
+    for (let k = 0; k < 8; k++) {
+      const before = await page.evaluate((name) => performance.getEntriesByName(name).length, TRACE_REDRAW_MEASURE);
+      await page.keyboard.press(k < 6 ? '+' : '-');
+      await page.waitForFunction(([name, n]) => performance.getEntriesByName(name as string).length > (n as number), [TRACE_REDRAW_MEASURE, before] as const, { timeout: 10_000 });
+      await page.waitForTimeout(100);
+    }
+    redrawMs.push(...(await page.evaluate((name) => performance.getEntriesByName(name).map((e) => e.duration), TRACE_REDRAW_MEASURE)).slice(opened));
   } finally {
     await browser.close();
   }
-  return { barsMs, confirmedMs };
+  return { barsMs, confirmedMs, redrawMs };
 }
 
 /**

@@ -9,7 +9,8 @@ import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiPathsObj
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
 import { JOB_STATUSES, jobSchema, jobStatusInput, jobUpdateSchema, listQuerySchema } from '@/domain/job';
 import { vehicleSchema } from '@/domain/vehicle';
-import { DISTANCE_UNITS, shopSettingsSchema } from '@/domain/shop-settings';
+import { DISTANCE_UNITS, removeShopInput, shopSettingsSchema } from '@/domain/shop-settings';
+import { retentionInput } from '@/domain/retention';
 import { screeningSchema } from '@/domain/screening';
 import {
   createProfileInput,
@@ -62,7 +63,7 @@ interface Entry {
   query?: z.ZodObject;
   body?: z.ZodType;
   /** The 200 answer: a JSON schema, or a file type. */
-  ok: z.ZodType | 'application/pdf' | 'text/csv';
+  ok: z.ZodType | 'application/pdf' | 'application/zip' | 'text/csv';
   /** Error statuses beyond 400/401/403/404/429/500, which every route may give. */
   errors?: number[];
 }
@@ -144,6 +145,14 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
       errors: [409, 413, 415],
     },
   },
+  '/api/jobs/{jobId}/cautions': {
+    post: {
+      summary: 'Records that the member has read the job’s safety cautions (once per member and job, in the activity), so no other device asks again.',
+      who: MEMBER,
+      path: idParam('jobId'),
+      ok: z.object({ cautions: z.object({ jobId: z.string(), readAt: z.string() }) }),
+    },
+  },
   '/api/jobs/{jobId}/captures': {
     get: { summary: 'The job’s captures.', who: MEMBER, path: idParam('jobId'), ok: z.object({ captures: z.array(capture) }) },
     post: {
@@ -162,7 +171,12 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
     post: { summary: 'Runs the engine on the stored capture with these settings and saves the result (nothing is overwritten).', who: EDITORS, path: idParam('captureId'), body: saveAnalysisInput, ok: z.object({ analysis }), errors: [413, 415, 422, 503] },
   },
   '/api/jobs/{jobId}/report': {
-    get: { summary: 'The job’s report: the draft or latest revision, every revision, share links and customer answers.', who: MEMBER, path: idParam('jobId'), ok: z.looseObject({ report: report.nullable(), revisions: z.array(report) }) },
+    get: {
+      summary: 'The job’s report: every revision (newest first), the analyses it may include, the customer’s answers and the share links.',
+      who: MEMBER,
+      path: idParam('jobId'),
+      ok: z.looseObject({ revisions: z.array(report), candidates: z.array(z.looseObject({ id })), approvals: z.array(z.looseObject({ id, decision: z.string(), revision: z.number().int() })), shareLinks: z.array(z.looseObject({ id })) }),
+    },
     put: { summary: 'Edits the draft (a signed report starts a new revision); with `base`, a revision saved or signed since it was loaded answers 409.', who: EDITORS, path: idParam('jobId'), body: saveReportInput, ok: z.object({ report }), errors: [409, 413, 415] },
   },
   '/api/jobs/{jobId}/report/sign': { post: { summary: 'Signs the draft as the signed-in member; with `version`, a draft saved since it was loaded answers 409.', who: EDITORS, path: idParam('jobId'), body: signReportInput, ok: z.object({ report }), errors: [409, 413, 415] } },
@@ -191,12 +205,35 @@ export const API: Record<string, Partial<Record<Method, Entry>>> = {
   },
   '/api/vehicles/{vehicleId}': { get: { summary: 'A vehicle and its jobs’ tests.', who: MEMBER, path: idParam('vehicleId'), ok: z.looseObject({ vehicle, jobs: z.array(z.looseObject({})) }) } },
   '/api/profiles': {
-    get: { summary: 'Engine profiles: the built-in ones and the shop’s own.', who: MEMBER, ok: z.looseObject({ profiles: z.array(z.looseObject({ label: z.string(), engine })) }) },
+    get: {
+      summary: 'Engine profiles: the built-in ones (by key) and the shop’s own (by id).',
+      who: MEMBER,
+      ok: z.object({ builtIn: z.array(z.looseObject({ key: z.string(), label: z.string(), engine })), shop: z.array(z.looseObject({ id, label: z.string(), engine })) }),
+    },
     post: { summary: 'Adds a shop engine profile.', who: OWNERS, body: createProfileInput, ok: z.object({ profile: z.looseObject({ id, label: z.string(), engine }) }), errors: [409, 413, 415] },
   },
   '/api/shop': {
     get: { summary: 'The member’s shop: settings, members, pending invitations (owners).', who: MEMBER, ok: z.looseObject({ shop: shop.extend({ settings: shopSettingsSchema }), role: z.string(), members: z.array(member), invitations: z.array(z.looseObject({})) }) },
-    patch: { summary: 'Sets the shop’s time zone and temperature unit.', who: OWNERS, body: shopSettingsSchema, ok: z.object({ settings: shopSettingsSchema }), errors: [413, 415] },
+    patch: { summary: 'Sets the shop’s time zone, units, phone and address.', who: OWNERS, body: shopSettingsSchema, ok: z.object({ settings: shopSettingsSchema }), errors: [413, 415] },
+    delete: {
+      summary: 'Removes the shop and everything in it (jobs, captures with their objects, reports, members, settings, activity) when confirmName is the shop’s name. Recorded outside the shop.',
+      who: OWNERS,
+      body: removeShopInput,
+      ok: z.object({ removed: z.object({ jobs: z.number().int(), captures: z.number().int(), objectsLeft: z.number().int() }) }),
+      errors: [413, 415],
+    },
+  },
+  '/api/shop/export': {
+    get: { summary: 'Everything the shop holds as one zip: shop.json, jobs.json, each capture as uploaded and each signed report’s PDF. Audited.', who: OWNERS, ok: 'application/zip' },
+  },
+  '/api/shop/retention': {
+    patch: {
+      summary: 'Sets how many days (30 to 3650) the captures and analyses of a done job are kept, or null to keep them for ever. A daily sweep removes older ones; signed reports and the activity stay. Audited.',
+      who: OWNERS,
+      body: retentionInput,
+      ok: z.object({ retentionDays: z.number().int().nullable() }),
+      errors: [413, 415],
+    },
   },
   '/api/shop/members/{memberId}': {
     patch: { summary: 'Changes a member’s role (the last owner stays owner).', who: OWNERS, path: idParam('memberId'), body: memberRoleInput, ok: z.object({ member }), errors: [409, 413, 415] },

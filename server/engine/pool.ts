@@ -5,6 +5,7 @@
  * the one `npm run build` made (.engine/thread.mjs); in development and tests the pool bundles it itself first.
  */
 import 'server-only';
+import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -27,6 +28,10 @@ const BUILDER = pathToFileURL(resolve(/*turbopackIgnore: true*/ process.cwd(), '
 
 async function build(): Promise<Piscina> {
   let file = BUILT;
+  // Without the engine's bundle every task would wait for a thread that never starts: refuse at once, saying why.
+  if (process.env.NODE_ENV === 'production' && !existsSync(/*turbopackIgnore: true*/ BUILT)) {
+    throw new HttpError(503, 'ENGINE_MISSING', 'The analysis engine is not installed on this server (.engine/thread.mjs is missing): run npm run build, which builds it, then start the server again. Nothing was stored.');
+  }
   if (process.env.NODE_ENV !== 'production') {
     const { buildEngine } = (await import(/*turbopackIgnore: true*/ /* @vite-ignore */ BUILDER)) as { buildEngine: (out: string) => Promise<string> };
     file = await buildEngine(DEV_BUILT);

@@ -11,7 +11,7 @@ import { gzipSync } from 'node:zlib';
 import { type APIRequestContext, expect, test } from '@playwright/test';
 import { analyzeBytes, isCaptureError, refusalFor } from '../../signal';
 import { badCorpus } from '../bad-input/corpus';
-import { BASE_URL, DEMO, signIn, uploadOnJobPage } from './helpers';
+import { BASE_URL, DEMO, pastCautions, signIn, uploadOnJobPage } from './helpers';
 
 const engine = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
 const corpus = badCorpus();
@@ -157,11 +157,10 @@ test('the job page shows the reason for every refused file and lists nothing; an
       await page.waitForURL(/\/captures\//);
       await expect(page.getByRole('heading', { level: 1, name: new RegExp(name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')) })).toBeVisible({ timeout: 30_000 });
       // The cautions were read on the job page for this job; the workspace asks which column is which.
-      const gate = page.getByRole('button', { name: /I have read this/ });
       const mapping = page.locator('[role=dialog][aria-labelledby=mapping-title]');
-      await expect(gate.or(mapping), c.name).toBeVisible({ timeout: 30_000 });
-      if (await gate.isVisible()) await gate.click();
-      await expect(mapping, `${c.name}; the page said:\n${said.join('\n')}`).toBeVisible({ timeout: 45_000 });
+      await pastCautions(page, mapping, 45_000).catch((e: Error) => {
+        throw new Error(`${c.name}; the page said:\n${said.join('\n')}\n${e.message}`);
+      });
     } else {
       const alert = page.getByTestId('upload-errors');
       await expect(alert, c.name).toContainText(name, { timeout: 30_000 });

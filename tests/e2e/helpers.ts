@@ -1,7 +1,7 @@
 /** Shared steps for the browser and HTTP tests: the mail sink's messages, sign-up with verification, demo sign-in. */
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { type APIRequestContext, expect, type Page, request } from '@playwright/test';
+import { type APIRequestContext, expect, type Locator, type Page, request } from '@playwright/test';
 
 export const BASE_URL = `http://127.0.0.1:${process.env.E2E_PORT || '3210'}`;
 const MAIL_DIR = process.env.MAIL_SINK_DIR || '.e2e/mail';
@@ -66,13 +66,19 @@ export function unique(prefix: string): string {
 }
 
 /**
- * Chooses a file in the job page's uploader. The job's cautions come first, once per job in this browser: they
- * and the uploader are never on screen together, so whichever shows is answered.
+ * Answers the job's cautions if they are asked (once per job and member, recorded by the server), then waits for
+ * `then`: the two are never on screen together, so whichever shows first is answered.
  */
-export async function uploadOnJobPage(page: Page, file: string): Promise<void> {
+export async function pastCautions(page: Page, then: Locator, timeout = 60_000): Promise<void> {
   const gate = page.getByRole('button', { name: /I have read this/ });
-  const uploader = page.getByTestId('uploader');
-  await expect(gate.or(uploader)).toBeVisible({ timeout: 30_000 });
+  await expect(gate.or(then)).toBeVisible({ timeout });
   if (await gate.isVisible()) await gate.click();
+  await expect(then).toBeVisible({ timeout });
+}
+
+/** Chooses a file in the job page's uploader, past the job's cautions. */
+export async function uploadOnJobPage(page: Page, file: string): Promise<void> {
+  const uploader = page.getByTestId('uploader');
+  await pastCautions(page, uploader, 30_000);
   await uploader.locator('input[type=file]').first().setInputFiles(file);
 }

@@ -4,7 +4,8 @@
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { type APIRequestContext, expect, test } from '@playwright/test';
+import { type APIRequestContext, type APIResponse, expect, test } from '@playwright/test';
+import Ajv2020Module from 'ajv/dist/2020.js';
 import { DEMO, newContext, signIn, signUpVerified, unique } from './helpers';
 
 type Actor = 'anon' | 'owner' | 'technician' | 'advisor' | 'other';
@@ -24,7 +25,7 @@ interface Fixture {
 interface Row {
   file: string;
   method: string;
-  call: (ctx: APIRequestContext, f: Fixture) => Promise<{ status(): number }>;
+  call: (ctx: APIRequestContext, f: Fixture) => Promise<APIResponse>;
   expect: Record<Actor, number>;
 }
 
@@ -53,6 +54,7 @@ const ROWS: Row[] = [
   { file: 'jobs/[jobId]', method: 'PATCH', call: (c, f) => c.patch(`/api/jobs/${f.jobId}`, { data: { status: 'open' } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
   // Reopening an open job: every role may move a job (409: it is open already), another shop's is a 404.
   { file: 'jobs/[jobId]/status', method: 'POST', call: (c, f) => c.post(`/api/jobs/${f.jobId}/status`, { data: { status: 'open' } }), expect: { anon: 401, owner: 409, technician: 409, advisor: 409, other: 404 } },
+  { file: 'jobs/[jobId]/cautions', method: 'POST', call: (c, f) => c.post(`/api/jobs/${f.jobId}/cautions`, { data: {} }), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'jobs/[jobId]', method: 'DELETE', call: (c) => c.delete('/api/jobs/no-such-job'), expect: { anon: 401, owner: 404, technician: 403, advisor: 403, other: 404 } },
   { file: 'jobs/[jobId]/captures', method: 'GET', call: (c, f) => c.get(`/api/jobs/${f.jobId}/captures`), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 404 } },
   { file: 'jobs/[jobId]/captures', method: 'POST', call: (c, f) => upload(c, f.jobId), expect: { anon: 401, owner: 200, technician: 200, advisor: 403, other: 404 } },
@@ -81,6 +83,9 @@ const ROWS: Row[] = [
   { file: 'shop', method: 'PATCH', call: (c) => c.patch('/api/shop', { data: { timeZone: 'America/Chicago', temperatureUnit: 'F' } }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },
   { file: 'shop/invitations', method: 'POST', call: (c) => c.post('/api/shop/invitations', { data: { email: unique('inv'), role: 'advisor' } }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },
   { file: 'shop/invitations/[invitationId]', method: 'DELETE', call: (c, f) => c.delete(`/api/shop/invitations/${f.invitationIds[0]}`), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 404 } },
+  { file: 'shop', method: 'DELETE', call: (c) => c.delete('/api/shop', { data: { confirmName: 'Not the shop’s name' } }), expect: { anon: 401, owner: 400, technician: 403, advisor: 403, other: 400 } },
+  { file: 'shop/export', method: 'GET', call: (c) => c.get('/api/shop/export'), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 200 } },
+  { file: 'shop/retention', method: 'PATCH', call: (c) => c.patch('/api/shop/retention', { data: { retentionDays: 0 } }), expect: { anon: 401, owner: 400, technician: 403, advisor: 403, other: 400 } },
   { file: 'shop/members/[memberId]', method: 'PATCH', call: (c, f) => c.patch(`/api/shop/members/${f.advisorMemberId}`, { data: { role: 'advisor' } }), expect: { anon: 401, owner: 200, technician: 403, advisor: 403, other: 404 } },
   { file: 'shop/members/[memberId]', method: 'DELETE', call: (c) => c.delete('/api/shop/members/no-such-member'), expect: { anon: 401, owner: 404, technician: 403, advisor: 403, other: 404 } },
   { file: 'shops', method: 'GET', call: (c) => c.get('/api/shops'), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
@@ -148,12 +153,34 @@ test('role matrix: session → role → shop scope on every route', async () => 
   const otherJobs = (await (await ctx.other.get('/api/jobs')).json()).jobs as { id: string }[];
   expect(otherJobs.some((j) => j.id === fixture.jobId)).toBe(false);
 
+  // Every JSON answer of 200 is checked against the response schema the API description declares for it
+  // (/api/openapi.json, JSON Schema 2020-12, validated by Ajv), so the description cannot drift from the routes.
+  const doc = await (await ctx.anon.get('/api/openapi.json')).json();
+  // The package is CommonJS: its class is the default export's default.
+  const Ajv2020 = (Ajv2020Module as unknown as { default: typeof Ajv2020Module }).default ?? Ajv2020Module;
+  const ajv = new Ajv2020({ strict: false, allErrors: true, validateFormats: false });
+  ajv.addSchema(doc, 'openapi');
+  const pointer = (s: string) => s.replace(/~/g, '~0').replace(/\//g, '~1');
   const failures: string[] = [];
+  const drift: string[] = [];
+  let checked = 0;
   for (const row of ROWS) {
     for (const actor of ACTORS) {
       const res = await row.call(ctx[actor], fixture);
       if (res.status() !== row.expect[actor]) failures.push(`${row.method} ${row.file} as ${actor}: ${res.status()}, expected ${row.expect[actor]}`);
+      if (res.status() !== 200 || !(res.headers()['content-type'] ?? '').includes('application/json') || row.file.startsWith('auth/')) continue;
+      const path = `/api/${row.file.replace(/\[([^\]]+)\]/g, '{$1}')}`;
+      const at = `openapi#/paths/${pointer(path)}/${row.method.toLowerCase()}/responses/200/content/${pointer('application/json')}/schema`;
+      const validate = ajv.getSchema(at) ?? (doc.paths?.[path]?.[row.method.toLowerCase()] ? ajv.compile({ $ref: at }) : null);
+      if (!validate) {
+        drift.push(`${row.method} ${path}: not in the API description`);
+        continue;
+      }
+      checked++;
+      if (!validate(await res.json())) drift.push(`${row.method} ${path} as ${actor}: ${ajv.errorsText(validate.errors)}`);
     }
   }
   expect(failures).toEqual([]);
+  expect(drift, 'answers that differ from the API description').toEqual([]);
+  expect(checked).toBeGreaterThan(40);
 });

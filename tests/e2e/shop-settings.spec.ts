@@ -7,6 +7,7 @@
 import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { expect, test } from '@playwright/test';
+import { strFromU8, unzipSync } from 'fflate';
 import { DEMO, signIn, signUpVerified, unique, waitForMail } from './helpers';
 
 const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
@@ -82,4 +83,84 @@ test('owners read the API reference drawn from /api/openapi.json; others are not
   const html = await (await tech.get('/shop/api')).text();
   expect(html).toContain('That page does not exist');
   expect(html).not.toContain('swagger');
+});
+
+test('an owner sets data retention: 0 days and 100 years are refused with a sentence, two years is saved and recorded', async ({ page, context }) => {
+  const owner = await signUpVerified(unique('retention-owner'), 'Retention Owner');
+  expect((await owner.post('/api/shops', { data: { name: 'Retention Garage' } })).status()).toBe(200);
+  const refused = await owner.patch('/api/shop/retention', { data: { retentionDays: 0 } });
+  expect(refused.status()).toBe(400);
+  expect((await refused.json()).error.fields.retentionDays).toMatch(/at least 30 days/);
+  await context.addCookies((await owner.storageState()).cookies);
+  await page.goto('/shop');
+  const section = page.getByRole('region', { name: 'Data retention' });
+  await expect(section).toContainText('Now: kept for ever');
+  await section.getByLabel('Remove them a number of days after the job is done').check();
+  const days = section.getByRole('textbox', { name: 'Days after the job is done' });
+  for (const [typed, said] of [
+    ['0', /at least 30 days/],
+    ['36 500', /at most 3650 days/],
+  ] as const) {
+    await days.fill(typed);
+    await section.getByRole('button', { name: 'Save retention' }).click();
+    await expect(section.getByText(said)).toBeVisible();
+  }
+  await days.fill('730');
+  await section.getByRole('button', { name: 'Save retention' }).click();
+  await expect(section.getByText('Saved: captures and analyses are kept 2 years after a job is done.')).toBeVisible();
+  await page.reload();
+  await expect(section).toContainText('Now: kept 2 years after a job is done');
+  await expect(page.getByTestId('activity')).toContainText('set captures and analyses to be kept 2 years after a job is done');
+  await page.screenshot({ path: 'artifacts/screens/retention.png', fullPage: true });
+});
+
+test('an owner downloads the shop’s data as one zip, then removes the shop by typing its name (not without)', async ({ page, context }) => {
+  const email = unique('leaving-owner');
+  const owner = await signUpVerified(email, 'Leaving Owner');
+  const name = 'Ölwechsel — 東 Garage "100%"';
+  expect((await owner.post('/api/shops', { data: { name } })).status()).toBe(200);
+  const job = await owner.post('/api/jobs', { data: { repairOrder: 'LEAVE-1', concern: 'Export before leaving.', vehicle: { make: 'Test', model: 'Leave', engine: { cylinders: 4, layout: 'inline', firingOrder: '1-3-4-2' } } } });
+  const jobId = (await job.json()).job.id as string;
+  const up = await owner.post(`/api/jobs/${jobId}/captures`, { headers: { 'content-type': 'text/csv', 'x-file-name': encodeURIComponent('brems—ü.csv') }, data: SAMPLE });
+  expect(up.status(), await up.text()).toBe(200);
+  const saved = await owner.post(`/api/captures/${(await up.json()).capture.id}/analyses`, { data: { settings: { engine: { cylinders: 4, firingOrder: [1, 3, 4, 2] } } } });
+  const analysisId = (await saved.json()).analysis.id as string;
+  await owner.put(`/api/jobs/${jobId}/report`, { data: { analysisIds: [analysisId] } });
+  const draft = await (await owner.get(`/api/jobs/${jobId}/report`)).json();
+  expect((await owner.post(`/api/jobs/${jobId}/report/sign`, { data: { reportId: draft.revisions[0].id } })).status()).toBe(200);
+
+  // The zip (read with fflate's own reader, which checks every entry's CRC-32): the file as uploaded, the jobs, the signed PDF.
+  const zip = await owner.get('/api/shop/export');
+  expect(zip.status()).toBe(200);
+  expect(zip.headers()['content-type']).toBe('application/zip');
+  const files = unzipSync(new Uint8Array(await zip.body()));
+  const names = Object.keys(files);
+  expect(names).toContain('shop.json');
+  expect(JSON.parse(strFromU8(files['shop.json'])).name).toBe(name);
+  const jobs = JSON.parse(strFromU8(files['jobs.json']));
+  expect(jobs.map((j: { repairOrder: string }) => j.repairOrder)).toEqual(['LEAVE-1']);
+  expect(jobs[0].analyses).toHaveLength(1);
+  const capture = names.find((n) => n.startsWith('captures/LEAVE-1/') && n.endsWith('brems—ü.csv'))!;
+  expect(Buffer.from(files[capture]).equals(SAMPLE)).toBe(true);
+  expect(strFromU8(files['reports/LEAVE-1-rev1.pdf'].subarray(0, 5))).toBe('%PDF-');
+
+  // Without its name typed, nothing is removed.
+  for (const confirmName of ['', 'Another shop']) {
+    const refused = await owner.delete('/api/shop', { data: { confirmName } });
+    expect(refused.status()).toBe(400);
+    expect((await refused.json()).error.message).toContain('Type the shop’s name exactly');
+  }
+  expect((await owner.get(`/api/jobs/${jobId}`)).status()).toBe(200);
+
+  await context.addCookies((await owner.storageState()).cookies);
+  await page.goto('/shop');
+  const section = page.getByRole('region', { name: 'The shop’s data' });
+  const remove = section.getByRole('button', { name: 'Remove the shop and all its data' });
+  await expect(remove).toBeDisabled();
+  await section.getByLabel(/Type the shop’s name/).fill(name);
+  await page.screenshot({ path: 'artifacts/screens/shop-remove.png', fullPage: true });
+  await remove.click();
+  await page.waitForURL((u) => !u.pathname.startsWith('/shop'));
+  expect((await owner.get(`/api/jobs/${jobId}`)).status()).not.toBe(200);
+  expect((await owner.get('/api/jobs')).status()).toBe(403);
 });

@@ -98,4 +98,16 @@ describe('withShop', () => {
     expect(text).toMatch(/reference/);
     expect(text).not.toMatch(/hunter2|secret detail/);
   });
+
+  it('reads a DELETE’s JSON body when it sends one, and takes an empty DELETE by its path whatever its Content-Type', async () => {
+    const owner = withShop({ job: ['read'] }, z.object({ jobId: z.string(), confirm: z.string().default('') }), async ({ input }) => input);
+    const withBody = await call(owner, { method: 'DELETE', cookie: cookies.owner, origin: true, body: { confirm: 'Ölweg — 東 "100%"' }, params: { jobId: 'j1' } });
+    expect(await withBody.json()).toEqual({ jobId: 'j1', confirm: 'Ölweg — 東 "100%"' });
+    const empty = await owner(
+      new NextRequest(`${APP_URL}/api/test`, { method: 'DELETE', headers: { cookie: cookies.owner, origin: APP_URL, 'content-type': 'application/json' } }),
+      { params: Promise.resolve({ jobId: 'j2' }) },
+    );
+    expect(empty.status).toBe(200);
+    expect(await empty.json()).toEqual({ jobId: 'j2', confirm: '' });
+  });
 });

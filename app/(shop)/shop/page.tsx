@@ -5,13 +5,17 @@ import { listShopActivity } from '@/db/queries/audit';
 import { pageMember } from '@/server/page-context';
 import { ShopMembers } from './_components/shop-members';
 import { ShopSettingsForm } from './_components/shop-settings-form';
+import { RetentionForm } from './_components/retention-form';
+import { ShopData } from './_components/shop-data';
+import { getRetention, lastRetentionSweep } from '@/db/queries/retention';
+import { formatWhen } from '@/domain/time';
 
 export const metadata: Metadata = { title: 'Shop' };
 
 export default async function ShopPage() {
   const m = await pageMember('/shop');
   const isOwner = m.member.role === 'owner';
-  const activity = isOwner ? await listShopActivity(m.shop.id, 100) : [];
+  const [activity, retention, lastSweep] = isOwner ? await Promise.all([listShopActivity(m.shop.id, 100), getRetention(m.shop.id), lastRetentionSweep()]) : [[], null, null];
   return (
     <div className="flex max-w-4xl flex-col gap-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -30,7 +34,23 @@ export default async function ShopPage() {
           <ShopSettingsForm settings={m.shop.settings} />
         </section>
       )}
+      {isOwner && (
+        <section aria-labelledby="shop-retention" className="rounded-2xl border border-line bg-surface p-5">
+          <h2 id="shop-retention" className="text-lg font-bold">
+            Data retention
+          </h2>
+          <RetentionForm days={retention} lastSweep={lastSweep ? formatWhen(lastSweep, m.shop.settings.timeZone) : null} />
+        </section>
+      )}
       <ShopMembers isOwner={isOwner} selfMemberId={m.member.id} />
+      {isOwner && (
+        <section aria-labelledby="shop-data" className="rounded-2xl border border-line bg-surface p-5">
+          <h2 id="shop-data" className="text-lg font-bold">
+            The shop’s data
+          </h2>
+          <ShopData name={m.shop.name} />
+        </section>
+      )}
       {isOwner && (
         <section aria-labelledby="shop-activity" className="rounded-2xl border border-line bg-surface p-5">
           <h2 id="shop-activity" className="text-lg font-bold">

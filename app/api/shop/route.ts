@@ -1,9 +1,11 @@
-/** The member's shop: name, settings, members and pending invitations; owners change the settings. */
+/** The member's shop: name, settings, members and pending invitations; owners change the settings, or remove the shop by typing its name. */
 import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
+import { removeShop } from '@/db/queries/shop-data';
+import { HttpError, notFound } from '@/server/http';
 import { listInvitations, listMembers, saveShopSettings } from '@/db/queries/shops';
-import { shopSettingsSchema } from '@/domain/shop-settings';
-import { forgetMemberships } from '@/server/membership-cache';
+import { removeShopInput, shopSettingsSchema } from '@/domain/shop-settings';
+import { announceMembershipChange } from '@/server/membership-cache';
 import { withShop } from '@/server/with-shop';
 
 export const GET = withShop({ shop: ['read'] }, z.object({}), async ({ shop, member }) => ({
@@ -15,7 +17,17 @@ export const GET = withShop({ shop: ['read'] }, z.object({}), async ({ shop, mem
 
 export const PATCH = withShop({ shop: ['manage'] }, shopSettingsSchema, async ({ input, shop, user }) => {
   await saveShopSettings(shop.id, input);
-  forgetMemberships();
+  await announceMembershipChange();
   await recordAudit(shop.id, user.id, 'shop.settings', { type: 'shop', id: shop.id }, { ...input });
   return { settings: input };
+});
+
+export const DELETE = withShop({ organization: ['delete'] }, removeShopInput, async ({ input, shop, user }) => {
+  const r = await removeShop(shop.id, user.id, input.confirmName);
+  if (!r) throw notFound('That shop');
+  if ('wrongName' in r) {
+    throw new HttpError(400, 'VALIDATION', `Type the shop’s name exactly as it is shown (“${r.wrongName}”) to remove it; nothing was removed.`, { confirmName: 'Type the shop’s name to remove it.' });
+  }
+  await announceMembershipChange();
+  return { removed: r.removed };
 });

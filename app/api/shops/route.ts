@@ -8,7 +8,7 @@ import { saveShopSettings } from '@/db/queries/shops';
 import { DEFAULT_SHOP_SETTINGS } from '@/domain/shop-settings';
 import { members, organizations } from '@/db/schema';
 import { getAuth } from '@/server/auth';
-import { forgetMemberships } from '@/server/membership-cache';
+import { announceMembershipChange } from '@/server/membership-cache';
 import { withSession } from '@/server/with-shop';
 
 export const POST = withSession(
@@ -20,7 +20,7 @@ export const POST = withSession(
     if (!shop) throw new Error('Shop not created');
     await auth.api.setActiveOrganization({ body: { organizationId: shop.id }, headers: req.headers });
     if (input.timeZone) await saveShopSettings(shop.id, { ...DEFAULT_SHOP_SETTINGS, timeZone: input.timeZone });
-    forgetMemberships();
+    await announceMembershipChange();
     await recordAudit(shop.id, user.id, 'shop.create', { type: 'shop', id: shop.id });
     return { shop: { id: shop.id, name: shop.name } };
   },

@@ -2,7 +2,7 @@ import { formatWhen } from '@/domain/time';
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { listShopActivity } from '@/db/queries/audit';
+import { cautionsReadAt, listShopActivity } from '@/db/queries/audit';
 import { ActivityList } from '@/components/activity/activity-list';
 import { latestAnalysesForJob, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
@@ -25,7 +25,12 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
   const m = await pageMember(`/jobs/${jobId}`);
   const job = await getJob(m.shop.id, jobId);
   if (!job) notFound();
-  const [captures, latest, audit] = await Promise.all([listCaptures(m.shop.id, job.id), latestAnalysesForJob(m.shop.id, job.id), listShopActivity(m.shop.id, 300)]);
+  const [captures, latest, audit, cautionsRead] = await Promise.all([
+    listCaptures(m.shop.id, job.id),
+    latestAnalysesForJob(m.shop.id, job.id),
+    listShopActivity(m.shop.id, 300),
+    cautionsReadAt(m.shop.id, m.user.id, job.id),
+  ]);
   const captureIds = new Set(captures.map((c) => c.id));
   const activity = audit
     .filter((a) => a.subjectId === job.id || (a.detail as { jobId?: string } | null)?.jobId === job.id || (a.detail as { captureId?: string } | null)?.captureId && captureIds.has((a.detail as { captureId: string }).captureId))
@@ -99,7 +104,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
             })}
           </ul>
         )}
-        {canUpload ? <CaptureUpload jobId={job.id} engine={job.vehicle.engine} userId={m.user.id} /> : <p className="text-sm text-muted">Your role can read captures but not upload them.</p>}
+        {canUpload ? <CaptureUpload jobId={job.id} engine={job.vehicle.engine} cautionsRead={cautionsRead !== null} /> : <p className="text-sm text-muted">Your role can read captures but not upload them.</p>}
       </section>
       <section aria-labelledby="report" className="flex flex-wrap items-center justify-between gap-3 rounded-2xl border border-line bg-surface p-5">
         <div>

@@ -5,7 +5,7 @@
  */
 import { getAuth } from '@/server/auth';
 import { errorResponse, HttpError } from '@/server/http';
-import { forgetMemberships } from '@/server/membership-cache';
+import { announceMembershipChange } from '@/server/membership-cache';
 import { type Purpose, spend } from '@/server/rate-limit';
 import { readLimited } from '@/server/request-body';
 import { inRequest, requestIdOf } from '@/server/log';
@@ -38,7 +38,7 @@ async function handle(req: Request): Promise<Response> {
     // A reset request answers no sooner than the floor, whether the account exists or not.
     if (req.method === 'POST' && new URL(req.url).pathname.endsWith('/request-password-reset')) await waitUntil(started + RESET_FLOOR_MS);
     // Accepting an invitation or switching shops changes who is a member where.
-    if (req.method === 'POST' && req.url.includes('/organization/')) forgetMemberships();
+    if (req.method === 'POST' && req.url.includes('/organization/')) await announceMembershipChange();
     return res;
   } catch (e) {
     if (e instanceof HttpError) return errorResponse(e);

@@ -25,7 +25,7 @@ interface Chosen {
   outcome: UploadOutcome;
 }
 
-export function CaptureUpload({ jobId, engine, userId }: { jobId: string; engine: EngineSpec; userId: string }) {
+export function CaptureUpload({ jobId, engine, cautionsRead }: { jobId: string; engine: EngineSpec; cautionsRead: boolean }) {
   const router = useRouter();
   const [messages, setMessages] = useState<string[]>([]);
   const [chosen, setChosen] = useState<Chosen | null>(null);
@@ -89,7 +89,7 @@ export function CaptureUpload({ jobId, engine, userId }: { jobId: string; engine
   const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="light" hideRetryButton disableInformer />, [uppy]);
 
   return (
-    <CautionsGate userId={userId} jobId={jobId}>
+    <CautionsGate read={cautionsRead} jobId={jobId}>
     <div className="flex flex-col gap-2" data-testid="uploader">
       {dashboard}
       {messages.length > 0 && (

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { changeMember } from '@/db/queries/shops';
 import { conflict, notFound } from '@/server/http';
-import { forgetMemberships } from '@/server/membership-cache';
+import { announceMembershipChange } from '@/server/membership-cache';
 import { withShop } from '@/server/with-shop';
 
 export const PATCH = withShop(
@@ -14,7 +14,7 @@ export const PATCH = withShop(
     const r = await changeMember(shop.id, input.memberId, { role: input.role });
     if (!r) throw notFound('That member');
     if (r.lastOwner) throw conflict('This is the shop’s last owner; make another member owner first.');
-    forgetMemberships();
+    await announceMembershipChange();
     await recordAudit(shop.id, user.id, 'member.role', { type: 'member', id: r.member.id }, { from: r.member.role, to: input.role });
     return { member: r.updated };
   },
@@ -24,7 +24,7 @@ export const DELETE = withShop({ member: ['delete'] }, z.object({ memberId: z.st
   const r = await changeMember(shop.id, input.memberId, 'remove');
   if (!r) throw notFound('That member');
   if (r.lastOwner) throw conflict('This is the shop’s last owner and cannot be removed; make another member owner first.');
-  forgetMemberships();
+  await announceMembershipChange();
   await recordAudit(shop.id, user.id, 'member.remove', { type: 'member', id: r.member.id }, { userId: r.member.userId, role: r.member.role });
   return { ok: true };
 });

@@ -8,6 +8,7 @@ import { settingsDifferences } from '@/components/analysis/settings-differences'
 import { Workspace } from '@/components/analysis/workspace';
 import { getCapture, listAnalyses } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
+import { cautionsReadAt } from '@/db/queries/audit';
 import { listProfiles } from '@/db/queries/profiles';
 import { type AnalysisSettingsValues, analysisSettingsSchema, settingsForEngine } from '@/domain/analysis-settings';
 import { pageMember } from '@/server/page-context';
@@ -20,7 +21,7 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
   const { jobId, captureId } = await params;
   const { a: openedId } = await searchParams;
   const m = await pageMember(`/jobs/${jobId}/captures/${captureId}`);
-  const [job, capture] = await Promise.all([getJob(m.shop.id, jobId), getCapture(m.shop.id, captureId)]);
+  const [job, capture, cautionsRead] = await Promise.all([getJob(m.shop.id, jobId), getCapture(m.shop.id, captureId), cautionsReadAt(m.shop.id, m.user.id, jobId)]);
   if (!job || !capture || capture.jobId !== job.id) notFound();
   const history = await listAnalyses(m.shop.id, capture.id);
   const fromVehicle = settingsForEngine(job.vehicle.engine);
@@ -54,7 +55,7 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
           jobSettings={fromVehicle}
           savedAs={savedAs}
           profiles={profiles}
-          userId={m.user.id}
+          cautionsRead={cautionsRead !== null}
           jobId={job.id}
           canSave={m.can({ analysis: ['save'] })}
         />

@@ -1,0 +1,14 @@
+/**
+ * Owners set how long the captures and analyses of done jobs are kept (domain/retention.ts); the daily sweep
+ * (db/queries/retention.ts) removes what is older. Audited.
+ */
+import { recordAudit } from '@/db/queries/audit';
+import { setRetention } from '@/db/queries/retention';
+import { retentionInput } from '@/domain/retention';
+import { withShop } from '@/server/with-shop';
+
+export const PATCH = withShop({ shop: ['retention'] }, retentionInput, async ({ input, shop, user }) => {
+  await setRetention(shop.id, input.retentionDays);
+  await recordAudit(shop.id, user.id, 'shop.retention', { type: 'shop', id: shop.id }, { days: input.retentionDays });
+  return { retentionDays: input.retentionDays };
+});

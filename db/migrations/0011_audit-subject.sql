@@ -1,0 +1,1 @@
+CREATE INDEX "audit_events_subject_id_action_index" ON "audit_events" USING btree ("subject_id","action");

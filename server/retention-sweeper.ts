@@ -1,0 +1,20 @@
+/**
+ * The daily retention sweep (db/queries/retention.ts), asked for by every instance a minute after start and then
+ * every hour; the sweep itself runs once a day across the fleet (an advisory lock and its last run's time).
+ */
+import { sweepRetention } from '@/db/queries/retention';
+import { log, safeError } from './log';
+
+const ASK_EVERY_MS = 60 * 60_000;
+const g = globalThis as unknown as { __crankprintRetention?: NodeJS.Timeout };
+
+export function startRetentionSweeper(): void {
+  if (g.__crankprintRetention) return;
+  const run = () =>
+    void sweepRetention().then(
+      (r) => r.ran && log.info({ shops: r.shops, objectsLeft: r.objectsLeft }, 'retention sweep'),
+      (e: unknown) => log.warn({ err: safeError(e) }, 'retention sweep failed'),
+    );
+  setTimeout(run, 60_000).unref();
+  g.__crankprintRetention = setInterval(run, ASK_EVERY_MS).unref();
+}
