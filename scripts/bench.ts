@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { renderReportPdf } from '../server/pdf/render';
 import { decimateMinMax } from '../signal/dsp/decimate';
-import { runSweep } from '../signal/sim/sweep';
+import { ENSEMBLE_DRAWS, ENSEMBLE_METHODS, runEnsembleSweep, runSweep } from '../signal/sim/sweep';
 import { sampleReportData } from '../tests/report/sample-report';
 import { generateCapture } from './bench/generate';
 import { chooseToBars, healthDuringAnalysis } from './bench/served';
@@ -131,6 +131,11 @@ const sweepStarted = performance.now();
 const sweep = runSweep([11]);
 console.log(`sweep took ${((performance.now() - sweepStarted) / 1000).toFixed(0)} s; confident wrong flags: ${sweep.wrong.length}`);
 console.log(sweep.line());
+// The same on the ensemble of independent physics, and on the family kept out of its calibration (wall heat loss).
+for (const family of ['ensemble', 'held-out'] as const) {
+  const tally = runEnsembleSweep(family, ENSEMBLE_DRAWS);
+  console.log(tally.line(`sweep_${family.replace('-', '_')}`, ENSEMBLE_METHODS));
+}
 
 // Served by the production build (npm run build first): choose → bars in headless Chromium on a 1M-sample file,
 // and /api/health p99 while three 10M-sample analyses run in the engine's thread pool.

@@ -333,7 +333,7 @@ function withWarning(outcome: MethodOutcome, w: QualityWarning): MethodOutcome {
  */
 function settle(cylinders: CylinderResult[], method: Method, warnings: QualityWarning[], wheel: WheelInfo | undefined, setup: AnalysisSettings['engine'], limits: Limits): void {
   settleStatuses(cylinders, isThin(method, warnings, wheel), limits, warnings);
-  if (method !== 'crank-speed') holdAfterLow(cylinders, setup, limits.lowLimitPercent, warnings);
+  holdAfterLow(cylinders, setup, limits.lowLimitPercent, warnings, method);
   if (method === 'event-duration') holdHigh(cylinders, warnings);
 }
 

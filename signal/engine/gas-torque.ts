@@ -35,9 +35,17 @@ export function torqueAt(table: Float64Array, psiDeg: number): number {
 
 /** Leak rates (1/s) of the shape family the fit chooses from: sealed to nearly open. */
 export const LEAK_FAMILY_PER_S = [0, 0.15, 0.3, 0.6, 1, 1.6, 2.5, 4, 6.5, 10, 16, 30, 80];
+/** Leak rates (1/s) of the family's late leaks: a path that opens only near top dead centre. */
+export const LATE_LEAK_FAMILY_PER_S = [0.6, 1.6, 4, 10, 30];
+/** Crank degrees before TDC at which the family's late leaks open. */
+export const LATE_LEAK_FROM_DEG = -40;
+
+/** Where in the stroke a cylinder loses its charge: all through the closed stroke, or only near TDC. */
+export type LeakDepth = 'whole stroke' | 'near TDC';
 
 export interface LeakyShape {
   leakPerS: number;
+  depth: LeakDepth;
   table: Float64Array;
   /** Peak gauge pressure relative to the sealed cylinder's. */
   peakRatio: number;
@@ -46,9 +54,12 @@ export interface LeakyShape {
 /**
  * The torque shape of a cylinder that loses charge while turning at a steady `rpm`: the leak's flow grows with
  * the pressure difference (dm/dt = −λ·m·(p − p0)/p0), so its loss is concentrated near TDC and the expansion
- * returns less than the compression took. Also gives the peak pressure relative to a sealed cylinder.
+ * returns less than the compression took. A leak `near TDC` flows only from 40° before it (a path that opens
+ * under pressure), so the compression stroke looks sealed and only the peak and the expansion show it. Also
+ * gives the peak pressure relative to a sealed cylinder.
  */
-export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number): LeakyShape {
+export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number, depth: LeakDepth = 'whole stroke'): LeakyShape {
+  const from = depth === 'near TDC' ? LATE_LEAK_FROM_DEG : -Infinity;
   const size = 720 * TORQUE_TABLE_STEPS_PER_DEG;
   const table = new Float64Array(size);
   const rad = Math.PI / 180;
@@ -68,7 +79,7 @@ export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number)
     if (gauge > peak) peak = gauge;
     if (sealed > sealedPeak) sealedPeak = sealed;
     table[i] = gauge * volumeRatioSlope(model.compressionRatio, model.rodRatio, psi * rad);
-    if (gauge > 0) mass *= Math.exp(-leakPerS * gauge * dtPerStep);
+    if (gauge > 0 && psi >= from) mass *= Math.exp(-leakPerS * gauge * dtPerStep);
   }
-  return { leakPerS, table, peakRatio: sealedPeak > 0 ? peak / sealedPeak : 1 };
+  return { leakPerS, depth, table, peakRatio: sealedPeak > 0 ? peak / sealedPeak : 1 };
 }

@@ -9,6 +9,7 @@ import { simpleWheel, type ToothWheel } from '../teeth/wheel';
 import { seededRandom } from '../dsp/random';
 
 export type SimChannel = 'current' | 'hall' | 'vr' | 'sync' | 'rpm' | 'battery';
+export type LeakModel = 'linear' | 'orifice' | 'late';
 
 export interface SimOptions {
   engine: EngineSetup;
@@ -56,14 +57,47 @@ export interface SimOptions {
   vrScale?: number;
   /** The VR sensor's wires swapped (the wave upside down). @default false */
   vrInverted?: boolean;
+  /**
+   * The VR wave's physics. `simple`: a sine a tooth whose amplitude follows speed, a small wiggle across the gap.
+   * `flux`: the voltage is the rate of change of the flux through the coil, each tooth a bump of flux as wide as
+   * its pitch, so the amplitude grows in proportion to speed (a few tenths of a volt at the slowest teeth, with
+   * `vrScale` 1), the gap is one wide swing down and up, a bent wheel modulates each revolution, and the noise
+   * carries a slow drift. @default 'simple'
+   */
+  vrModel?: 'simple' | 'flux';
   /** Spark plugs out: no compression, only valve springs and friction. @default false */
   plugsOut?: boolean;
   /** Starter stall torque, less friction, over one cylinder's peak compression torque. @default 1.5 */
   starterMargin?: number;
   /** Crank and flywheel inertia, kg·m². @default tuned per engine for a real engine's swing */
   crankInertia?: number;
+  /** Multiplies the crank and flywheel inertia (default or given). @default 1 */
+  inertiaScale?: number;
   /** Noise level multiplier (1 = a clean clamp and sensor, 4 = a noisy bay). @default 1 */
   noise?: number;
+  /**
+   * How a leaking cylinder loses its charge (the rate is `leakPerS`):
+   * - `linear`: flow in proportion to the pressure above the outside (dm/dt = −λ·m·(p − p0)/p0), all through the stroke;
+   * - `orifice`: flow through a fixed opening past a valve or the rings, growing with the square root of the pressure
+   *   difference, so the loss starts early in the stroke;
+   * - `late`: a path that opens only near top dead centre (from `lateLeakFromDeg`), flow in proportion to the pressure.
+   * @default 'linear'
+   */
+  leakModel?: LeakModel;
+  /** Crank degrees before TDC at which a `late` leak opens. @default 35 */
+  lateLeakFromDeg?: number;
+  /** Heat loss to the cylinder wall (dT/dt = −h·(T − T_wall)), 1/s; the wall sits at the intake temperature. @default 0 */
+  heatLossPerS?: number;
+  /** Battery internal resistance, Ω. @default 0.011 */
+  batteryOhm?: number;
+  /** Resistance of the cables and their joints between battery and starter, Ω. @default 0 */
+  cableOhm?: number;
+  /** The starter armature's inertia reflected to the crank, kg·m². @default 0.03 */
+  armatureInertia?: number;
+  /** Speed-dependent friction over the default (viscous term multiplier). @default 1 */
+  viscousScale?: number;
+  /** Friction rising with the square of speed, N·m per (rad/s)². @default 0 */
+  frictionSquare?: number;
   channels?: SimChannel[];
 }
 
@@ -134,15 +168,21 @@ export function simulateCranking(options: SimOptions): SimResult {
   // free speed is chosen so that it carries the mean load at the target speed.
   const totalL = vdM3 * n * 1000;
   const frictionNm = 8 + 9 * totalL;
-  const viscousNmPerRad = 0.25 * totalL;
+  const viscousNmPerRad = 0.25 * totalL * (o.viscousScale ?? 1);
+  const frictionSquare = o.frictionSquare ?? 0;
   // Tuned so that healthy engines swing as real ones do within each compression event (max/min about 1.9–2.4
   // for petrol engines, 2.4–2.8 for a diesel: captures-real/README.md): more cylinders overlap their events
   // and need less inertia for the same swing.
-  const crankInertia = o.crankInertia ?? 0.25 * Math.pow(4 / n, 1.4) * ((vdM3 * 1000) / 0.5);
-  const armatureInertia = 0.03;
+  const crankInertia = (o.crankInertia ?? 0.25 * Math.pow(4 / n, 1.4) * ((vdM3 * 1000) / 0.5)) * (o.inertiaScale ?? 1);
+  const armatureInertia = o.armatureInertia ?? 0.03;
   const valveSpringNm = 0.4 + 0.4 * totalL;
   const batteryV = o.batteryV ?? 12.5;
-  const rBattery = 0.011;
+  // A battery's resistance is stated for a typical 2-litre car's; a bigger engine carries a bigger battery, so
+  // its share of the circuit scales down with the starter's own (see rTotal below).
+  const batteryOhm = o.batteryOhm ?? 0.011;
+  const leakModel = o.leakModel ?? 'linear';
+  const lateFrom = -(o.lateLeakFromDeg ?? 35);
+  const heatLoss = o.heatLossPerS ?? 0;
   const omegaTarget = ((o.targetRpm ?? 200) * 2 * Math.PI) / 60;
   // Mean compression load at the crank, N·m, from the net work of the closed part of the cycle.
   const vIvcRatio = volumeRatio(rc, rodRatio, ivc * RAD);
@@ -157,7 +197,13 @@ export function simulateCranking(options: SimOptions): SimResult {
   const stallNm = Math.max((o.starterMargin ?? 1.5) * gasPeakNm + frictionNm, 2 * loadNm);
   const omegaFree = omegaTarget / (1 - loadNm / stallNm);
   const motorK = batteryV / omegaFree;
-  const rTotal = (motorK * batteryV) / stallNm;
+  // The starter is sized on a nominal battery (11 mΩ) and no cable drop; a weaker battery or a poor cable then
+  // costs it speed and torque as it would on a real car.
+  const rNominal = (motorK * batteryV) / stallNm;
+  // A battery or cable worse than nominal adds to the circuit in proportion (a quarter more at 25 mΩ and a poor
+  // cable), so the engine cranks slower yet still cranks: an engine that does not turn is no compression test.
+  const rTotal = rNominal * (1 + (0.25 * (batteryOhm - 0.011 + (o.cableOhm ?? 0))) / 0.018);
+  const rBattery = Math.min(0.7 * rTotal, batteryOhm * Math.min(1, rNominal / 0.017));
   const gearRatio = 12;
   const commutatorSegments = 24;
 
@@ -175,6 +221,8 @@ export function simulateCranking(options: SimOptions): SimResult {
   const tooth: number[] = [];
 
   const mass = new Float64Array(n).fill(1);
+  // The charge's pressure over the adiabatic one after heat lost to the wall (1 without heat loss).
+  const heatFactor = new Float64Array(n).fill(1);
   const closed = new Uint8Array(n);
   const cyclePeak = new Float64Array(n);
   const peakSum = new Float64Array(n);
@@ -210,17 +258,26 @@ export function simulateCranking(options: SimOptions): SimResult {
           if (!closed[c]) {
             closed[c] = 1;
             mass[c] = o.chargeScale?.[c] ?? 1;
+            heatFactor[c] = 1;
             cyclePeak[c] = 0;
             cycleCount[c]++;
           }
           const vRatio = volumeRatio(rc, rodRatio, psi * RAD);
-          const p = P0 * Math.pow((mass[c] * vIvcRatio) / vRatio, poly);
+          const p = P0 * Math.pow((mass[c] * vIvcRatio) / vRatio, poly) * heatFactor[c];
           const fired = o.firesCylinder === c + 1 && psi > 2 && cycleCount[c] % 2 === 1;
           const gauge = (p - P0) * (fired ? 4 : 1);
           if (gauge > cyclePeak[c]) cyclePeak[c] = gauge;
           gasNm += gauge * vcM3 * volumeRatioSlope(rc, rodRatio, psi * RAD);
           const l = leak[c] ?? 0;
-          if (l > 0 && gauge > 0) mass[c] *= Math.exp(-l * (gauge / P0) * dt);
+          if (l > 0 && gauge > 0) {
+            const rate = leakModel === 'orifice' ? Math.sqrt(gauge / P0) : leakModel === 'late' ? (psi >= lateFrom ? gauge / P0 : 0) : gauge / P0;
+            mass[c] *= Math.exp(-l * rate * dt);
+          }
+          if (heatLoss > 0) {
+            // Ideal gas: the charge's temperature over the intake's is p·v, v its volume per unit of trapped mass.
+            const tRatio = (p / P0) * (vRatio / (mass[c] * vIvcRatio));
+            heatFactor[c] *= Math.exp(-heatLoss * (1 - 1 / tRatio) * dt);
+          }
         } else if (closed[c]) {
           closed[c] = 0;
           if (t > steadyFrom && t < offS) {
@@ -231,7 +288,7 @@ export function simulateCranking(options: SimOptions): SimResult {
       }
       currentNow = engaged ? Math.max(0, (batteryV - motorK * omegaArm) / rTotal) : 0;
       const motorNm = motorK * currentNow;
-      const friction = omega > 1e-6 ? frictionNm + viscousNmPerRad * omega : 0;
+      const friction = omega > 1e-6 ? frictionNm + viscousNmPerRad * omega + frictionSquare * omega * omega : 0;
       const springNm = omega > 1e-6 ? -valveSpringNm * Math.sin(n * theta * RAD) : 0;
       const load = gasNm + springNm - friction;
       let accel: number;
@@ -291,7 +348,9 @@ export function simulateCranking(options: SimOptions): SimResult {
     const present = presentAt[pos] === 1;
     const u = slotF - Math.floor(slotF);
     if (hall) hall[s] = (present && u < 0.5 ? 5 : 0.1) + noise * 0.03 * rnd.gauss();
-    if (vr) {
+    if (vr && o.vrModel === 'flux') {
+      vr[s] = (o.vrInverted ? -1 : 1) * (o.vrScale ?? 1) * fluxVoltage(wheelDeg, pitch, presentAt, omega) + noise * (0.015 * rnd.gauss() + 0.01 * Math.sin(2 * Math.PI * 0.7 * t));
+    } else if (vr) {
       // Across the gap a small wiggle stays (the flux still changes a little); a VR interface must ignore it.
       const amp = (0.4 + (omega / omegaTarget) * 2.5) * (o.vrScale ?? 1) * (o.vrInverted ? -1 : 1);
       vr[s] = (present ? amp : 0.15 * amp) * Math.sin(2 * Math.PI * (u + 0.5)) + noise * 0.02 * (o.vrScale ?? 1) * rnd.gauss();
@@ -326,6 +385,31 @@ export function simulateCranking(options: SimOptions): SimResult {
     toothTimes: Float64Array.from(tooth),
     truth: { peakKpa, relativePercent, meanRpm: (meanOmega * 60) / (2 * Math.PI), cycles },
   };
+}
+
+/** Coil voltage per rad/s of crank speed at a tooth's flank (V·s): about 1.5 V at 200 rpm. */
+const VR_VOLTS_PER_RAD_S = 0.07;
+/** Width of a tooth's flux bump, pitches (σ of a Gaussian): neighbours overlap, so the flux sags only at a gap. */
+const VR_BUMP_PITCHES = 0.32;
+
+/**
+ * The coil's voltage for the `flux` VR model: dΦ/dt = dΦ/dθ · ω, Φ the sum of a Gaussian bump per present tooth.
+ * A runout of 8 % (the wheel a little off centre) modulates it once a revolution.
+ */
+function fluxVoltage(wheelDeg: number, pitch: number, presentAt: Uint8Array, omega: number): number {
+  const slot = wheelDeg / pitch;
+  const base = Math.floor(slot);
+  const count = presentAt.length;
+  let slope = 0;
+  for (let q = base - 3; q <= base + 4; q++) {
+    const pos = ((q % count) + count) % count;
+    if (!presentAt[pos]) continue;
+    const x = (slot - q) / VR_BUMP_PITCHES;
+    slope += (-x / VR_BUMP_PITCHES) * Math.exp(-0.5 * x * x);
+  }
+  const runout = 1 + 0.08 * Math.sin((wheelDeg * Math.PI) / 180);
+  // dΦ/dθ in units of a tooth's bump per pitch, to volts per rad/s, times the speed.
+  return -slope * runout * VR_VOLTS_PER_RAD_S * omega * 0.35;
 }
 
 function median(values: number[]): number {

@@ -6,10 +6,13 @@
 import { analyzeCapture } from '../analyze';
 import type { EngineSetup } from '../engine/firing';
 import type { AnalysisResult, CaptureColumns } from '../types';
-import { simulateCranking, type SimChannel } from './simulate';
+import { drawEngine, type EnsembleFamily } from './ensemble';
+import { simulateCranking, type SimChannel, type SimOptions } from './simulate';
 
-export type SweepMethod = 'current+sync' | 'teeth' | 'hall+sync' | 'vr' | 'teeth, event duration';
+export type SweepMethod = 'current+sync' | 'teeth' | 'hall+sync' | 'vr' | 'teeth, event duration' | 'battery+sync' | 'reversed clamp+sync';
 export const SWEEP_METHODS: SweepMethod[] = ['current+sync', 'teeth', 'hall+sync', 'vr', 'teeth, event duration'];
+/** The ensemble also reads the electrical methods: battery voltage, and a current clamp put on the wrong way round. */
+export const ENSEMBLE_METHODS: SweepMethod[] = [...SWEEP_METHODS, 'battery+sync', 'reversed clamp+sync'];
 
 export const SWEEP_ENGINES: Record<string, EngineSetup> = {
   I3: { cylinders: 3, firingOrder: [1, 2, 3] },
@@ -27,11 +30,29 @@ export const SWEEP_LEAKS: Record<string, (n: number) => number[]> = {
 };
 
 /** One simulated capture of `method`, analysed: the result and the truth (percent of the sealed cylinders). */
-export function sweepCase(engine: EngineSetup, leak: number[], method: SweepMethod, seed: number): { r: AnalysisResult; truth: Float64Array } {
-  const channels: SimChannel[] = method === 'current+sync' ? ['current', 'sync'] : method === 'hall+sync' ? ['hall', 'sync'] : method === 'vr' ? ['vr'] : [];
-  const sim = simulateCranking({ engine, leakPerS: leak, channels, seed, sampleRateHz: method === 'hall+sync' || method === 'vr' ? 50_000 : 10_000 });
+export function sweepCase(
+  engine: EngineSetup,
+  leak: number[],
+  method: SweepMethod,
+  seed: number,
+  physics: Partial<SimOptions> = {},
+): { r: AnalysisResult; truth: Float64Array } {
+  const channels: SimChannel[] =
+    method === 'current+sync' || method === 'reversed clamp+sync'
+      ? ['current', 'sync']
+      : method === 'battery+sync'
+        ? ['battery', 'sync']
+        : method === 'hall+sync'
+          ? ['hall', 'sync']
+          : method === 'vr'
+            ? ['vr']
+            : [];
+  const sim = simulateCranking({ ...physics, engine, leakPerS: leak, channels, seed, sampleRateHz: method === 'hall+sync' || method === 'vr' ? 50_000 : 10_000 });
   const teethOnly = method === 'teeth' || method === 'teeth, event duration';
-  const columns: CaptureColumns = teethOnly ? { toothTimes: sim.toothTimes } : { time: sim.time, current: sim.current, sync: sim.sync, crank: sim.hall ?? sim.vr };
+  const current = method === 'reversed clamp+sync' ? sim.current?.map((v) => -v) : sim.current;
+  const columns: CaptureColumns = teethOnly
+    ? { toothTimes: sim.toothTimes }
+    : { time: sim.time, current, battery: sim.battery, sync: sim.sync, crank: sim.hall ?? sim.vr };
   const settings = { engine, sensor: method === 'vr' ? ('vr' as const) : undefined, method: method === 'teeth, event duration' ? ('event-duration' as const) : undefined };
   return { r: analyzeCapture(columns, settings), truth: sim.truth.relativePercent };
 }
@@ -67,6 +88,8 @@ export interface MethodFigures {
   medianWidth: number;
   /** Share of clearly healthy (≥ 95 %) or clearly weak (< 80 %) cylinders flagged ok or low as they are. */
   flagsRight: number;
+  /** Confident wrong flags: a healthy cylinder low, or a weak one ok. */
+  wrongFlags: number;
 }
 
 /** What the sweep found, tallied case by case. */
@@ -76,12 +99,15 @@ export class SweepTally {
   private widths = new Map<SweepMethod, number[]>();
   private uncertain = new Map<SweepMethod, number>();
   private flags = new Map<SweepMethod, number[]>();
+  private wrongBy = new Map<SweepMethod, number>();
   /** Confident wrong flags: a healthy cylinder (≥ 95 %) low, or a weak one (< 80 %) ok. */
   readonly wrong: string[] = [];
   /** Teeth-only captures read by crank speed: whether event duration on the same teeth agreed. */
   readonly teethChecks: boolean[] = [];
   /** Truths outside their interval, for a look at the misses. */
   readonly misses: string[] = [];
+  /** The lowest interval bound seen, percent (never below 0). */
+  lowestBound = Infinity;
 
   add(name: string, method: SweepMethod, kind: string, r: AnalysisResult, truth: Float64Array, engine: EngineSetup): void {
     if (method === 'teeth' && r.crossCheck?.method === 'event-duration') this.teethChecks.push(r.crossCheck.agree);
@@ -90,12 +116,16 @@ export class SweepTally {
     for (let i = 0; i < engine.cylinders; i++) {
       const t = truth[i];
       const where = `${name} ${method} ${kind} cyl ${i + 1}`;
-      if ((t >= 95 && status[i] === 'low') || (t < 80 && status[i] === 'ok')) this.wrong.push(`${where}: truth ${t.toFixed(0)}, read ${got[i]} ${status[i]}`);
+      if ((t >= 95 && status[i] === 'low') || (t < 80 && status[i] === 'ok')) {
+        this.wrong.push(`${where}: truth ${t.toFixed(0)}, read ${got[i]} ${status[i]}`);
+        this.wrongBy.set(method, (this.wrongBy.get(method) ?? 0) + 1);
+      }
       if (t >= 95 || t < 80) list(this.flags).push(status[i] === (t >= 95 ? 'ok' : 'low') ? 1 : 0);
       if (status[i] === 'uncertain') this.uncertain.set(method, (this.uncertain.get(method) ?? 0) + 1);
       if (got[i] !== null) list(this.errors).push(Math.abs(got[i]! - t));
       const iv = interval[i];
       if (iv) {
+        this.lowestBound = Math.min(this.lowestBound, iv[0]);
         const hit = t >= iv[0] && t <= iv[1];
         list(this.inside).push(hit ? 1 : 0);
         if (!hit) this.misses.push(`${where}: truth ${t.toFixed(1)}, read ${got[i]} [${iv.join(', ')}]`);
@@ -116,16 +146,25 @@ export class SweepTally {
       coverage: mean(this.inside.get(method) ?? []),
       medianWidth: w[w.length >> 1] ?? NaN,
       flagsRight: mean(this.flags.get(method) ?? []),
+      wrongFlags: this.wrongBy.get(method) ?? 0,
     };
   }
 
+  /** One sentence per method: every figure the sweep tracks. */
+  table(methods: SweepMethod[] = SWEEP_METHODS): string[] {
+    return methods.map((m) => {
+      const f = this.figures(m);
+      return `${m}: mean |error| ${f.mae.toFixed(2)} points, worst ${f.worst.toFixed(1)}, ${f.figures} figures, ${f.uncertain} uncertain; 90 % intervals hold the truth for ${(100 * f.coverage).toFixed(1)} %, median width ${f.medianWidth.toFixed(1)} points; flags right ${(100 * f.flagsRight).toFixed(0)} %, confident wrong flags ${f.wrongFlags}`;
+    });
+  }
+
   /** One line: each method's mean |error|, coverage and median width, then the confident wrong flags. */
-  line(): string {
-    const parts = SWEEP_METHODS.map((m) => {
+  line(label = 'sweep', methods: SweepMethod[] = SWEEP_METHODS): string {
+    const parts = methods.map((m) => {
       const f = this.figures(m);
       return `${m.replace(/[ ,+]+/g, '_')}_mae=${f.mae.toFixed(2)} ${m.replace(/[ ,+]+/g, '_')}_cover=${(100 * f.coverage).toFixed(1)} ${m.replace(/[ ,+]+/g, '_')}_width=${f.medianWidth.toFixed(1)}`;
     });
-    return `sweep: ${parts.join(' ')} wrong_flags=${this.wrong.length}`;
+    return `${label}: ${parts.join(' ')} wrong_flags=${this.wrong.length}`;
   }
 }
 
@@ -139,6 +178,28 @@ export function runSweep(seeds: number[] = [11]): SweepTally {
           const { r, truth } = sweepCase(engine, leakOf(engine.cylinders), method, seed);
           tally.add(name, method, kind, r, truth, engine);
         }
+      }
+    }
+  }
+  return tally;
+}
+
+/** Engines drawn per engine layout in the ensemble sweep (its test and the bench). */
+export const ENSEMBLE_DRAWS = 3;
+
+/**
+ * The sweep on the ensemble (or its held-out family): for each engine, `draws` engines drawn with their own
+ * physics and leak pattern, each captured by every method.
+ */
+export function runEnsembleSweep(family: EnsembleFamily, draws: number, methods: SweepMethod[] = ENSEMBLE_METHODS, firstSeed = 1): SweepTally {
+  const tally = new SweepTally();
+  for (const [e, [name, engine]] of Object.entries(SWEEP_ENGINES).entries()) {
+    for (let k = 0; k < draws; k++) {
+      const seed = firstSeed + e * draws + k;
+      const draw = drawEngine(engine, seed, family);
+      for (const method of methods) {
+        const { r, truth } = sweepCase(engine, draw.leakPerS, method, seed, draw.physics);
+        tally.add(name, method, draw.label, r, truth, engine);
       }
     }
   }

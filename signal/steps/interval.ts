@@ -2,8 +2,8 @@
  * The interval around each cylinder's figure: a bootstrap over its compression events. Each resample draws every
  * cylinder's per-event estimates with replacement, takes their means, and recomputes the reference (the median
  * of the healthy cylinders) from the same resample, so the reference's own uncertainty is in every interval.
- * The 5th–95th percentiles of the resampled relative figures, moved onto the fit's figure, give the 90 %
- * interval. Few events make percentile bootstraps too narrow, so the half-widths are scaled by Student's t over
+ * The 5th–95th percentiles of the resampled relative figures, taken on their logarithm (a ratio) and moved onto
+ * the fit's figure, give the 90 % interval: asymmetric for a weak cylinder, never below 0 %. Few events make percentile bootstraps too narrow, so the half-widths are scaled by Student's t over
  * the normal quantile for the events used; a floor stands for what the events cannot show (the torque model's
  * own error, measured on the recovery sweep; more for the electrical methods, whose starter model is cruder),
  * a leaking cylinder's interval reaches further down (the leak-shape mapping), and a disagreement between two methods widens the interval to
@@ -30,6 +30,9 @@ export interface IntervalOptions {
  * mapping; measured on the recovery sweep, where leaking cylinders read up to about 10 % of that distance high).
  */
 const LEAK_MAPPING_SHARE = 0.12;
+
+/** Resampled figures below this (percent) count as this in log space: a cylinder with nothing left. */
+const LOG_FLOOR_PERCENT = 1;
 
 /**
  * 90 % intervals [low, high] for each cylinder's relative figure (percent), from its per-event estimates
@@ -58,12 +61,18 @@ export function cylinderIntervals(perEvent: number[][], figures: (number | null)
   return figures.map((fig, c) => {
     const s = samples[c];
     if (fig === null || s.length < 10) return null;
-    const centre = quantile(s, 0.5);
     const k = perEvent[c].length;
     const t = k >= 2 ? T95[Math.min(T95.length, k - 1) - 1] / 1.645 : T95[0] / 1.645;
     const mapping = o.leaky?.[c] && fig < 97 ? LEAK_MAPPING_SHARE * (100 - fig) : 0;
-    const below = Math.max(floor, t * (centre - quantile(s, 0.05))) + mapping;
-    const above = Math.max(floor, t * (quantile(s, 0.95) - centre));
+    // On the ratio: the resampled figures' percentiles in log space, so a weak cylinder's interval reaches
+    // further up than down and never through zero.
+    const logs = s.map((v) => Math.log(Math.max(v, LOG_FLOOR_PERCENT)));
+    const centre = quantile(logs, 0.5);
+    const base = Math.max(fig, LOG_FLOOR_PERCENT);
+    const lowBoot = base * Math.exp(-t * (centre - quantile(logs, 0.05)));
+    const highBoot = base * Math.exp(t * (quantile(logs, 0.95) - centre));
+    const below = Math.max(floor, fig - lowBoot) + mapping;
+    const above = Math.max(floor, highBoot - fig);
     // No cylinder holds less than no compression: the interval stops at 0 %.
     return [round1(Math.max(0, fig - below)), round1(Math.max(0, fig + above))];
   });

@@ -5,6 +5,7 @@
  * small wiggles across a gap never count), and the tooth is timed at the zero crossing that follows; the
  * detector disarms below zero by a hysteresis band. The wire's polarity is found by trying both.
  */
+import { movingAverage } from '../dsp/smooth';
 import { quantileProbe } from '../dsp/stats';
 import { directionScore } from './direction-score';
 
@@ -41,9 +42,32 @@ export function toothTimesFromWaveform(t: Float64Array, v: Float64Array, kind: S
       }
     }
   } else {
-    out.push(...vrCrossings(t, v, vrPolarity(t, v)));
+    const w = conditionVr(t, v);
+    // The noise is read on the raw wave: the smoothed one hides it from a second difference.
+    const noise = noiseLevel(v) / Math.sqrt(w.smoothing);
+    out.push(...vrCrossings(t, w.wave, vrPolarity(t, w.wave, noise), noise));
   }
   return Float64Array.from(out);
+}
+
+/**
+ * A VR wave made ready for the detector, as an interface circuit's filter does: a centred moving average an eighth
+ * of a tooth wide takes out the noise (the slowest teeth swing only a few tenths of a volt), and a centred
+ * moving average four teeth wide, taken away, removes a slow drift of the zero. Both are symmetric, so the zero
+ * crossings keep their times. The tooth period comes from a first reading of the raw wave.
+ */
+export function conditionVr(t: Float64Array, v: Float64Array): { wave: Float64Array; smoothing: number } {
+  const fs = (t.length - 1) / (t[t.length - 1] - t[0]);
+  const first = vrCrossings(t, v, vrPolarity(t, v));
+  if (first.length < 20 || !(fs > 0)) return { wave: v, smoothing: 1 };
+  const gaps = first.slice(1).map((x, k) => x - first[k]).sort((a, b) => a - b);
+  const toothS = gaps[gaps.length >> 1];
+  const smooth = Math.floor((toothS * fs) / 8) | 1;
+  if (smooth < 3) return { wave: v, smoothing: 1 };
+  const low = movingAverage(v, smooth);
+  const drift = movingAverage(low, Math.floor(4 * toothS * fs) | 1);
+  for (let i = 0; i < low.length; i++) low[i] -= drift[i];
+  return { wave: low, smoothing: smooth };
 }
 
 /** Share of the previous tooth's peak that arms the detector for the next tooth. */
@@ -54,8 +78,7 @@ const ARM_SHARE = 0.3;
  * previous tooth's peak; the floor is four times the noise (the median absolute deviation of the quietest
  * tenth of the wave), so pure noise arms nothing.
  */
-export function vrCrossings(t: Float64Array, raw: Float64Array, sign: 1 | -1): number[] {
-  const noise = noiseLevel(raw);
+export function vrCrossings(t: Float64Array, raw: Float64Array, sign: 1 | -1, noise = noiseLevel(raw)): number[] {
   const floor = Math.max(4 * noise, 0.02);
   const out: number[] = [];
   let lastPeak = quantileProbe(raw.map((x) => sign * x), 0.98, 50_000);
@@ -83,9 +106,9 @@ export function vrCrossings(t: Float64Array, raw: Float64Array, sign: 1 | -1): n
 }
 
 /** The polarity whose crossings read as a tooth wheel best (1 as recorded, −1 for a wire swapped). */
-export function vrPolarity(t: Float64Array, v: Float64Array): 1 | -1 {
-  const a = directionScore(Float64Array.from(vrCrossings(t, v, 1)));
-  const b = directionScore(Float64Array.from(vrCrossings(t, v, -1)));
+export function vrPolarity(t: Float64Array, v: Float64Array, noise = noiseLevel(v)): 1 | -1 {
+  const a = directionScore(Float64Array.from(vrCrossings(t, v, 1, noise)));
+  const b = directionScore(Float64Array.from(vrCrossings(t, v, -1, noise)));
   return b > a ? -1 : 1;
 }
 

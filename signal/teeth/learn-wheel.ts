@@ -158,10 +158,11 @@ function learnWith(u: Float64Array, times?: Float64Array): ToothWheel | null {
     const j = (start + i) % lag;
     if (extraAt >= 0 && j === extraAt) continue;
     const c = medianCls(j);
-    gapsAfter.push(c > 0 ? (times ? votedGap(times, slotIndex[j]) || c : c) : 0);
+    gapsAfter.push(c > 0 ? (times ? votedGap(times, slotIndex[j]).winner || c : c) : 0);
   }
-  const positions = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
   if (extraAt < 0 && !gapsAfter.some((g) => g > 0)) return null;
+  roundToWholeDegrees(gapsAfter, times ? (j) => votedGap(times, slotIndex[(start + j) % lag]).votes : null);
+  const positions = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
   return { positions, gapsAfter, extraTooth: extraAt >= 0 };
 }
 
@@ -336,7 +337,23 @@ function dropExtra(span: number[], wheel: ToothWheel): void {
  * curve across the gap; the candidate whose curve best predicts the gap's duration wins. This follows a crank
  * that slows or speeds up across the gap, where a ratio to the neighbours alone reads a gap a tooth long.
  */
-function votedGap(times: Float64Array, occurrences: number[]): number {
+/**
+ * Crank wheels divide the revolution into whole degrees (60, 36, 24, 12 positions …). A one-gap wheel whose
+ * voted gap makes a count that does not (58 teeth and a gap of 3: 61 positions) misread its gap against a
+ * compression dip that stretched it; the gap one tooth smaller or larger that does, with the most votes, is taken.
+ */
+function roundToWholeDegrees(gapsAfter: number[], votesAt: ((j: number) => number[]) | null): void {
+  const gaps = gapsAfter.map((g, j) => (g > 0 ? j : -1)).filter((j) => j >= 0);
+  const positions = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
+  if (gaps.length !== 1 || 360 % positions === 0) return;
+  const j = gaps[0];
+  const g = gapsAfter[j];
+  const votes = votesAt?.(j) ?? [0, 0, 0, 0];
+  const fits = [g - 1, g + 1].filter((c) => c >= 1 && c <= 3 && 360 % (positions - g + c) === 0);
+  if (fits.length) gapsAfter[j] = fits.sort((a, b) => votes[b] - votes[a])[0];
+}
+
+function votedGap(times: Float64Array, occurrences: number[]): { winner: number; votes: number[] } {
   const votes = [0, 0, 0, 0];
   for (const k of occurrences) {
     if (k < 3 || k + 4 >= times.length) continue;
@@ -360,7 +377,7 @@ function votedGap(times: Float64Array, occurrences: number[]): number {
   }
   let winner = 0;
   for (let m = 1; m <= 3; m++) if (votes[m] > votes[winner]) winner = m;
-  return winner;
+  return { winner, votes };
 }
 
 /** Least-squares y = a + b·x + c·x² through the points; null when singular. */
