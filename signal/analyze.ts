@@ -18,7 +18,7 @@ import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, 
 import { ENGINE_VERSION } from './version';
 import { cylinderIntervals } from './steps/interval';
 import { crossCheck as compareMethods } from './steps/cross-check';
-import { gradeCapture, holdAfterLow, holdHigh, isThin, type Limits, settleStatuses } from './steps/status';
+import { gradeCapture, holdAfterLow, holdHigh, holdMostLow, isThin, type Limits, settleStatuses } from './steps/status';
 import { quantileProbe } from './dsp/stats';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
 import { teethOf, wheelNotation } from './teeth/wheel';
@@ -333,6 +333,7 @@ function withWarning(outcome: MethodOutcome, w: QualityWarning): MethodOutcome {
  */
 function settle(cylinders: CylinderResult[], method: Method, warnings: QualityWarning[], wheel: WheelInfo | undefined, setup: AnalysisSettings['engine'], limits: Limits): void {
   settleStatuses(cylinders, isThin(method, warnings, wheel), limits, warnings);
+  if (method === 'event-duration') holdMostLow(cylinders, warnings);
   holdAfterLow(cylinders, setup, limits.lowLimitPercent, warnings, method);
   if (method === 'event-duration') holdHigh(cylinders, warnings);
 }

@@ -40,8 +40,14 @@ export const LATE_LEAK_FAMILY_PER_S = [0.6, 1.6, 4, 10, 30];
 /** Crank degrees before TDC at which the family's late leaks open. */
 export const LATE_LEAK_FROM_DEG = -40;
 
-/** Where in the stroke a cylinder loses its charge: all through the closed stroke, or only near TDC. */
-export type LeakDepth = 'whole stroke' | 'near TDC';
+/** Leak rates (1/s) of the family's orifice leaks: flow with the square root of the pressure difference. */
+export const ORIFICE_LEAK_FAMILY_PER_S = [0.3, 0.8, 2, 5, 12];
+
+/**
+ * Where in the stroke a cylinder loses its charge: from early in the stroke (an orifice, its flow growing with the
+ * square root of the pressure), through the stroke in proportion to pressure, or only near TDC.
+ */
+export type LeakDepth = 'early' | 'whole stroke' | 'near TDC';
 
 export interface LeakyShape {
   leakPerS: number;
@@ -79,7 +85,7 @@ export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number,
     if (gauge > peak) peak = gauge;
     if (sealed > sealedPeak) sealedPeak = sealed;
     table[i] = gauge * volumeRatioSlope(model.compressionRatio, model.rodRatio, psi * rad);
-    if (gauge > 0 && psi >= from) mass *= Math.exp(-leakPerS * gauge * dtPerStep);
+    if (gauge > 0 && psi >= from) mass *= Math.exp(-leakPerS * (depth === 'early' ? Math.sqrt(gauge) : gauge) * dtPerStep);
   }
   return { leakPerS, depth, table, peakRatio: sealedPeak > 0 ? peak / sealedPeak : 1 };
 }

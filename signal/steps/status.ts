@@ -53,18 +53,29 @@ export function settleStatuses(cylinders: CylinderResult[], thin: boolean, l: Li
 export function holdAfterLow(cylinders: CylinderResult[], setup: EngineSetup, lowLimit: number, warnings: QualityWarning[], method: Method): void {
   for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'AFTER_LOW') warnings.splice(i, 1);
   const order = setup.firingOrder;
+  const n = order.length;
   const byNumber = new Map(cylinders.map((c) => [c.cylinder, c]));
-  const lowBefore = new Set(cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder));
   const margin = method === 'crank-speed' ? AFTER_LOW_MARGIN_CRANK : AFTER_LOW_MARGIN;
   const held: number[] = [];
-  for (let p = 0; p < order.length; p++) {
-    const prev = byNumber.get(order[(p - 1 + order.length) % order.length])!;
-    const c = byNumber.get(order[p])!;
-    if (c.status !== 'low' || !lowBefore.has(prev.cylinder) || prev === c) continue;
-    if ((c.relativePercent ?? 0) < lowLimit - margin || (c.relativePercent ?? 0) <= (prev.relativePercent ?? 0)) continue;
-    c.status = 'uncertain';
-    if (c.interval) c.interval = [c.interval[0], Math.max(c.interval[1], AFTER_LOW_REACH)];
-    held.push(c.cylinder);
+  // Walk the firing order from a cylinder that follows one not low, so each run of low cylinders is read whole.
+  // The run's anchor is the last cylinder that stays low; one after it that reads higher is held, and passes the
+  // anchor on (a dead cylinder can pull down the next two).
+  const start = Math.max(0, order.findIndex((_, p) => byNumber.get(order[(p - 1 + n) % n])!.status !== 'low'));
+  let anchor: CylinderResult | null = null;
+  for (let k = 0; k < n && n > 1; k++) {
+    const c = byNumber.get(order[(start + k) % n])!;
+    if (c.status !== 'low') {
+      anchor = null;
+      continue;
+    }
+    const reads = c.relativePercent ?? 0;
+    if (anchor && reads >= lowLimit - margin && reads > (anchor.relativePercent ?? 0)) {
+      c.status = 'uncertain';
+      if (c.interval) c.interval = [c.interval[0], Math.max(c.interval[1], AFTER_LOW_REACH)];
+      held.push(c.cylinder);
+    } else {
+      anchor = c;
+    }
   }
   if (held.length) {
     const cause =
@@ -90,6 +101,30 @@ export function holdHigh(cylinders: CylinderResult[], warnings: QualityWarning[]
     warnings.push(warning('HIGH_HELD', `Cylinder${held.length > 1 ? 's' : ''} ${list} took longer than the others; timing events alone cannot tell high compression from a slow entry after a weak cylinder. Confirm with a gauge test.`));
   }
 }
+
+/**
+ * Event duration reads each cylinder against the quickest events. When half or more read low against the rest, it
+ * cannot tell a worn engine from a few events hurried by a dead neighbour's missing compression (measured on the
+ * ensemble: healthy cylinders of an inline six with one dead read 63 % against a lone 100 %). Such low cylinders
+ * that still hold some compression are `uncertain`, their intervals reaching past 100 %, with a sentence.
+ */
+export function holdMostLow(cylinders: CylinderResult[], warnings: QualityWarning[]): void {
+  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'MOST_LOW_HELD') warnings.splice(i, 1);
+  const low = cylinders.filter((c) => c.status === 'low');
+  if (low.length * 2 < cylinders.length) return;
+  const held = low.filter((c) => (c.relativePercent ?? 0) >= MOST_LOW_KEEPS_BELOW);
+  for (const c of held) {
+    c.status = 'uncertain';
+    if (c.interval) c.interval = [c.interval[0], Math.max(c.interval[1], AFTER_LOW_REACH)];
+  }
+  if (held.length) {
+    const list = held.map((c) => c.cylinder).join(', ');
+    warnings.push(warning('MOST_LOW_HELD', `Half or more of the cylinders read low against the others; timing events alone cannot tell a worn engine from a few cylinders hurried by a weak neighbour, so cylinder${held.length > 1 ? 's' : ''} ${list} ${held.length > 1 ? 'are' : 'is'} not judged. Gauge two cylinders to settle it.`));
+  }
+}
+
+/** A cylinder below this (percent) is low whatever the others read. */
+const MOST_LOW_KEEPS_BELOW = 40;
 
 /**
  * How far below the low limit a cylinder right after a low one may read and still be the starter's doing: on the

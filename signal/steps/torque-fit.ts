@@ -4,7 +4,7 @@
  * the offset with the smallest residual wins. Modelling every cylinder at once keeps the neighbour's gas-spring
  * return out of each figure.
  */
-import { GENERIC_GAS, LATE_LEAK_FAMILY_PER_S, LEAK_FAMILY_PER_S, type LeakDepth, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
+import { GENERIC_GAS, LATE_LEAK_FAMILY_PER_S, LEAK_FAMILY_PER_S, ORIFICE_LEAK_FAMILY_PER_S, type LeakDepth, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
 import { NormalEquations } from '../dsp/solve';
 import { type CrankMotion, meanRpm } from './crank-motion';
 
@@ -60,7 +60,11 @@ function familyFor(gas: GasModel, rpm: number): LeakyShape[] {
   const key = `${JSON.stringify(gas)}@${r}`;
   let f = families.get(key);
   if (!f) {
-    f = [...LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r)), ...LATE_LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r, 'near TDC'))];
+    f = [
+      ...LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r)),
+      ...LATE_LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r, 'near TDC')),
+      ...ORIFICE_LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r, 'early')),
+    ];
     families.set(key, f);
   }
   return f;

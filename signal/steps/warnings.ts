@@ -31,6 +31,7 @@ export type WarningCode =
   | 'ENGINE_STARTED'
   | 'COARSE_WHEEL'
   | 'HIGH_HELD'
+  | 'MOST_LOW_HELD'
   | 'UNSTEADY_START'
   | 'EVENTS_OVERLAP';
 
