@@ -90,6 +90,10 @@ export interface MethodFigures {
   flagsRight: number;
   /** Confident wrong flags: a healthy cylinder low, or a weak one ok. */
   wrongFlags: number;
+  /** Leaking cylinders (truth below 95 %): how many, their mean |error| and their mean signed error (bias). */
+  leaking: number;
+  leakMae: number;
+  leakBias: number;
 }
 
 /** What the sweep found, tallied case by case. */
@@ -100,6 +104,8 @@ export class SweepTally {
   private uncertain = new Map<SweepMethod, number>();
   private flags = new Map<SweepMethod, number[]>();
   private wrongBy = new Map<SweepMethod, number>();
+  /** Signed errors (read − truth) of leaking cylinders (truth below 95 %). */
+  private leakErrors = new Map<SweepMethod, number[]>();
   /** Confident wrong flags: a healthy cylinder (≥ 95 %) low, or a weak one (< 80 %) ok. */
   readonly wrong: string[] = [];
   /** Teeth-only captures read by crank speed: whether event duration on the same teeth agreed. */
@@ -123,6 +129,7 @@ export class SweepTally {
       if (t >= 95 || t < 80) list(this.flags).push(status[i] === (t >= 95 ? 'ok' : 'low') ? 1 : 0);
       if (status[i] === 'uncertain') this.uncertain.set(method, (this.uncertain.get(method) ?? 0) + 1);
       if (got[i] !== null) list(this.errors).push(Math.abs(got[i]! - t));
+      if (got[i] !== null && t < 95) list(this.leakErrors).push(got[i]! - t);
       const iv = interval[i];
       if (iv) {
         this.lowestBound = Math.min(this.lowestBound, iv[0]);
@@ -147,6 +154,9 @@ export class SweepTally {
       medianWidth: w[w.length >> 1] ?? NaN,
       flagsRight: mean(this.flags.get(method) ?? []),
       wrongFlags: this.wrongBy.get(method) ?? 0,
+      leaking: (this.leakErrors.get(method) ?? []).length,
+      leakMae: mean((this.leakErrors.get(method) ?? []).map(Math.abs)),
+      leakBias: mean(this.leakErrors.get(method) ?? []),
     };
   }
 
@@ -154,7 +164,7 @@ export class SweepTally {
   table(methods: SweepMethod[] = SWEEP_METHODS): string[] {
     return methods.map((m) => {
       const f = this.figures(m);
-      return `${m}: mean |error| ${f.mae.toFixed(2)} points, worst ${f.worst.toFixed(1)}, ${f.figures} figures, ${f.uncertain} uncertain; 90 % intervals hold the truth for ${(100 * f.coverage).toFixed(1)} %, median width ${f.medianWidth.toFixed(1)} points; flags right ${(100 * f.flagsRight).toFixed(0)} %, confident wrong flags ${f.wrongFlags}`;
+      return `${m}: mean |error| ${f.mae.toFixed(2)} points, worst ${f.worst.toFixed(1)}, ${f.figures} figures, ${f.uncertain} uncertain; 90 % intervals hold the truth for ${(100 * f.coverage).toFixed(1)} %, median width ${f.medianWidth.toFixed(1)} points; flags right ${(100 * f.flagsRight).toFixed(0)} %, confident wrong flags ${f.wrongFlags}; ${f.leaking} leaking cylinders read ${f.leakMae.toFixed(1)} points off, bias ${f.leakBias >= 0 ? '+' : ''}${f.leakBias.toFixed(1)}`;
     });
   }
 

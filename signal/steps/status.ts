@@ -105,21 +105,27 @@ export function holdHigh(cylinders: CylinderResult[], warnings: QualityWarning[]
 /**
  * Event duration reads each cylinder against the quickest events. When half or more read low against the rest, it
  * cannot tell a worn engine from a few events hurried by a dead neighbour's missing compression (measured on the
- * ensemble: healthy cylinders of an inline six with one dead read 63 % against a lone 100 %). Such low cylinders
- * that still hold some compression are `uncertain`, their intervals reaching past 100 %, with a sentence.
+ * ensemble: healthy cylinders of an inline six with one dead read 63 % against a lone 100 %), and beside a cylinder
+ * with almost no compression it cannot judge the others (an odd-fire V6 read a healthy one 69 %). Such low
+ * cylinders that still hold some compression are `uncertain`, their intervals reaching past 100 %, with a sentence.
  */
 export function holdMostLow(cylinders: CylinderResult[], warnings: QualityWarning[]): void {
   for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'MOST_LOW_HELD') warnings.splice(i, 1);
   const low = cylinders.filter((c) => c.status === 'low');
-  if (low.length * 2 < cylinders.length) return;
+  const dead = cylinders.some((c) => c.relativePercent !== null && c.relativePercent < MOST_LOW_KEEPS_BELOW);
+  const most = low.length * 2 >= cylinders.length;
+  if (!most && !dead) return;
   const held = low.filter((c) => (c.relativePercent ?? 0) >= MOST_LOW_KEEPS_BELOW);
   for (const c of held) {
     c.status = 'uncertain';
     if (c.interval) c.interval = [c.interval[0], Math.max(c.interval[1], AFTER_LOW_REACH)];
   }
   if (held.length) {
-    const list = held.map((c) => c.cylinder).join(', ');
-    warnings.push(warning('MOST_LOW_HELD', `Half or more of the cylinders read low against the others; timing events alone cannot tell a worn engine from a few cylinders hurried by a weak neighbour, so cylinder${held.length > 1 ? 's' : ''} ${list} ${held.length > 1 ? 'are' : 'is'} not judged. Gauge two cylinders to settle it.`));
+    const list = `cylinder${held.length > 1 ? 's' : ''} ${held.map((c) => c.cylinder).join(', ')} ${held.length > 1 ? 'are' : 'is'} not judged`;
+    const why = most
+      ? 'Half or more of the cylinders read low against the others; timing events alone cannot tell a worn engine from a few cylinders hurried by a weak neighbour'
+      : "A cylinder with almost no compression upsets the crank's pace through the whole cycle; timing events alone cannot judge the others that read low beside it";
+    warnings.push(warning('MOST_LOW_HELD', `${why}, so ${list}. Gauge ${held.length > 1 ? 'them' : 'it'} to settle it.`));
   }
 }
 

@@ -229,11 +229,17 @@ export function wheelAngles(rawTimes: Float64Array, wheel: ToothWheel): WheelAng
     const runAfter = runAfterReference(wheel);
     const big: number[] = [];
     for (let k = 0; k < u.length; k++) if (classify(u, k) > 0) big.push(k);
+    // A gap far longer than the reference can be (the crank nearly stopping in it, behind a dead cylinder's
+    // neighbour) still is the reference when gaps lie one revolution's teeth before and after it, up to three
+    // times its own length (the V6 behind a dead cylinder stretched a 60-2 gap to 7 pitches).
+    const bigSet = new Set(big);
+    const near = (k: number) => [-1, 0, 1].some((e) => bigSet.has(k + e));
+    const revolutionAway = (k: number) => near(k + teeth) && near(k - teeth);
     for (let b = 0; b < big.length; b++) {
       const k = big[b];
       // The reference reads at least half a pitch longer than the next-largest gap could (compression can
       // stretch a gap by most of a pitch on a wheel with one gap size).
-      if (u[k] < biggest + 0.5 || u[k] > biggest + 2.5) continue;
+      if (u[k] < biggest + 0.5 || (u[k] > biggest + 2.5 && !(u[k] <= 3 * (biggest + 1) && revolutionAway(k)))) continue;
       const next = big[b + 1];
       const sameSizeGaps = wheel.gapsAfter.filter((g) => g === biggest).length;
       if (sameSizeGaps > 1 && next !== undefined && next - k !== runAfter) continue;
