@@ -16,6 +16,13 @@ export default tseslint.config(
     },
   },
   {
+    // Layers: the app, the server, the database and the engine never reach up into scripts/ (the tools around them).
+    files: ['app/**', 'server/**', 'db/**', 'domain/**', 'components/**', 'workers/**'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: ['@/scripts/*', '**/scripts/*'] }],
+    },
+  },
+  {
     files: ['signal/**/*.ts'],
     rules: {
       'no-restricted-imports': ['error', { patterns: ['node:*', 'fs', 'path', 'react', 'next/*'] }],

@@ -1,6 +1,6 @@
 // npm start (and, with --dev, npm run demo): Next.js behind Crankprint's own HTTP server, which
 //   1. names the client from the socket, or from the forwarded chain behind CRANKPRINT_TRUSTED_PROXIES, in a
-//      header only it writes (scripts/client-address.mjs);
+//      header only it writes (server/client-address.mjs);
 //   2. gives every request an id, returned in X-Request-Id and carried into the logs;
 //   3. on SIGTERM or SIGINT answers new requests 503, lets the ones under way finish, tells any still running
 //      at STOP_AFTER_MS - CUTOFF_MS to give up (uploads stop reading and answer 503), answers 503 itself for
@@ -8,7 +8,7 @@
 // PORT (default 3000) and HOST (default 127.0.0.1) say where it listens.
 import { randomUUID } from 'node:crypto';
 import { createServer } from 'node:http';
-import { CLIENT_HEADER, clientAddress, trustFrom } from './client-address.mjs';
+import { CLIENT_HEADER, clientAddress, trustFrom } from '../server/client-address.mjs';
 
 export const STOP_AFTER_MS = 10_000;
 const CUTOFF_MS = 2_000;

@@ -12,7 +12,7 @@ import * as schema from '@/db/schema';
 import { recordAudit } from '@/db/queries/audit';
 import { authLogLine, log, safeError } from './log';
 import { sendMail } from './mail';
-import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
+import { CLIENT_HEADER } from '@/server/client-address.mjs';
 import { ac, roles } from './permissions';
 
 export const APP_URL = process.env.BETTER_AUTH_URL || 'http://127.0.0.1:3000';

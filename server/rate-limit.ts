@@ -7,7 +7,7 @@ import 'server-only';
 import { RateLimiterDrizzle, type RateLimiterAbstract, RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
 import { getDb } from '@/db/client';
 import { rateLimits } from '@/db/schema';
-import { CLIENT_HEADER } from '@/scripts/client-address.mjs';
+import { CLIENT_HEADER } from '@/server/client-address.mjs';
 import { clientKey } from './client-key';
 import { HttpError } from './http';
 import { log } from './log';

@@ -4,7 +4,7 @@
  * trust... the address returned is the furthest address that is trusted") and Express's "trust proxy" guide.
  */
 import { describe, expect, it } from 'vitest';
-import { CLIENT_HEADER, clientAddress, trustFrom } from '../../scripts/client-address.mjs';
+import { CLIENT_HEADER, clientAddress, trustFrom } from '../../server/client-address.mjs';
 
 const req = (socket: string, xff?: string) => ({ headers: xff === undefined ? {} : { 'x-forwarded-for': xff }, socket: { remoteAddress: socket } });
 
