@@ -14,17 +14,17 @@ export const analysisSettingsSchema = z
       layout: z.enum(['inline', 'v', 'flat']).default('inline'),
       numbering: z.enum(['along-crank', 'bank-by-bank']).default('along-crank'),
     }),
-    method: z.enum(METHOD_CHOICES).default('auto'),
+    method: z.enum(METHOD_CHOICES, { error: `The method is one of ${METHOD_CHOICES.join(', ')}.` }).default('auto'),
     teeth: z
       .string()
       .max(200, 'A wheel is written in at most 200 characters.')
       .refine((t) => parseWheel(t) !== null, 'Write the wheel like 60-2, or as runs and gaps such as 36:15/2,14/1,3/1.')
       .optional(),
     lowLimitPercent: z.number().gt(0, 'The low limit is a percentage above 0.').lt(100, 'The low limit is a percentage below 100.').default(90),
-    spreadLimitPercent: z.number().gt(0).lt(100).default(10),
+    spreadLimitPercent: z.number().gt(0, 'The spread limit is a number of points above 0.').lt(100, 'The spread limit is a number of points below 100.').default(10),
     highLimitPercent: z.number().gt(100, 'The upper limit is a percentage above 100.').lt(300, 'The upper limit is a percentage below 300.').default(110),
     window: z.object({ startS: z.number(), endS: z.number() }).refine((w) => w.endS > w.startS, 'The cranking window must end after it starts.').optional(),
-    rotation: z.number().int().min(-16).max(16).default(0),
+    rotation: z.number().int('The rotation is a whole number of steps.').min(-16, 'The rotation is at most 16 steps either way.').max(16, 'The rotation is at most 16 steps either way.').default(0),
     sensor: z.enum(['auto', 'hall', 'vr']).default('auto'),
     mapping: z.array(z.enum(CHANNEL_ROLES)).optional(),
     sampleRateHz: z.number().positive().optional(),

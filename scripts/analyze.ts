@@ -1,6 +1,7 @@
 /** Command line: analyse one capture file and print the per-cylinder result (or JSON with --json). */
 import { readFileSync, statSync } from 'node:fs';
 import { parseArgs } from 'node:util';
+import { analysisSettingsSchema, engineSettings } from '../domain/analysis-settings';
 import { progress } from './progress';
 import {
   analyzeBytes,
@@ -8,10 +9,6 @@ import {
   CaptureError,
   isCaptureError,
   MAX_CAPTURE_BYTES,
-  METHOD_CHOICES,
-  type MethodChoice,
-  parseFiringOrder,
-  parseWheel,
   intervalText,
   percentText,
 } from '../signal';
@@ -32,6 +29,19 @@ const HELP = `Usage: npm run --silent analyze -- FILE --cylinders N --firing-ord
   --rotation N           step the assumed cylinder assignment
   --json                 one JSON object on stdout
   --help                 this text`;
+
+/** The flag each setting comes from, to name it in a refusal. */
+const FLAG_OF: Record<string, string> = {
+  'engine.cylinders': '--cylinders',
+  'engine.firingOrder': '--firing-order',
+  'engine.intervalsDeg': '--intervals',
+  method: '--method',
+  teeth: '--teeth',
+  lowLimitPercent: '--low-limit',
+  highLimitPercent: '--high-limit',
+  spreadLimitPercent: '--spread-limit',
+  rotation: '--rotation',
+};
 
 function usage(): never {
   return fail(HELP.split('\n')[0]);
@@ -80,16 +90,28 @@ function main() {
   const cylinders = Number(values.cylinders);
   if (!values.cylinders || !Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) fail('Give --cylinders as a whole number from 1 to 16.');
   if (!values['firing-order']) fail('Give --firing-order, for example 1-3-4-2.');
-  const method = values.method;
-  if (!isMethodChoice(method)) fail(`--method must be ${METHOD_CHOICES.join(', ')}.`);
-  const lowLimit = Number(values['low-limit']);
-  if (!(lowLimit > 0 && lowLimit < 100)) fail('--low-limit must be a percentage between 0 and 100.');
-  const highLimit = Number(values['high-limit']);
-  if (!(highLimit > 100 && highLimit < 300)) fail('--high-limit must be a percentage above 100.');
-  const spreadLimit = Number(values['spread-limit']);
-  if (!(spreadLimit > 0 && spreadLimit < 100)) fail('--spread-limit must be a percentage between 0 and 100.');
-  const teeth = values.teeth ? parseWheel(values.teeth) : undefined;
-  if (values.teeth && !teeth) fail(`--teeth must look like 60-2, 36:15/2,14/1,3/1 or 12:12+1, not "${values.teeth}".`);
+  const num = (flag: 'low-limit' | 'high-limit' | 'spread-limit' | 'rotation') => {
+    const v = Number(values[flag]);
+    return Number.isFinite(v) ? v : fail(`--${flag} must be a number, not "${values[flag]}".`);
+  };
+  // The same schema, ranges and sentences as the workspace's settings (domain/analysis-settings.ts).
+  const checked = analysisSettingsSchema.safeParse({
+    engine: {
+      cylinders,
+      firingOrder: values['firing-order']!.trim().split(/[\s,\-–]+/).filter(Boolean).map(Number),
+      intervalsDeg: values.intervals ? values.intervals.split(/[-,/]/).map(Number) : undefined,
+    },
+    method: values.method,
+    teeth: values.teeth,
+    lowLimitPercent: num('low-limit'),
+    highLimitPercent: num('high-limit'),
+    spreadLimitPercent: num('spread-limit'),
+    rotation: num('rotation'),
+  });
+  if (!checked.success) {
+    const issue = checked.error.issues[0];
+    fail(`${FLAG_OF[issue.path.join('.')] ?? '--' + issue.path.join('.')}: ${issue.message}`);
+  }
   const markOffset = values['mark-offset'] === undefined ? undefined : Number(values['mark-offset']);
   if (markOffset !== undefined && !Number.isFinite(markOffset)) fail('--mark-offset must be a number of crank degrees.');
   const sampleRate = values['sample-rate'] ? Number(values['sample-rate']) : undefined;
@@ -106,20 +128,7 @@ function main() {
     throw e;
   }
   try {
-    const settings: AnalysisSettings = {
-      engine: {
-        cylinders,
-        firingOrder: parseFiringOrder(values['firing-order']!, cylinders),
-        intervalsDeg: values.intervals ? values.intervals.split(/[-,/]/).map(Number) : undefined,
-      },
-      method,
-      teeth: teeth ?? undefined,
-      markOffsetDeg: markOffset,
-      lowLimitPercent: lowLimit,
-      spreadLimitPercent: spreadLimit,
-      highLimitPercent: highLimit,
-      rotation: Number(values.rotation) || 0,
-    };
+    const settings: AnalysisSettings = { ...engineSettings(checked.data), markOffsetDeg: markOffset };
     const line = progress(file);
     line.step(`analysing ${(bytes.length / 1048576).toFixed(1)} MB`);
     const { result } = analyzeBytes(bytes, settings, { sampleRateHz: sampleRate });
@@ -150,7 +159,3 @@ function describe(e: CaptureError): string {
 }
 
 main();
-
-function isMethodChoice(v: unknown): v is MethodChoice {
-  return (METHOD_CHOICES as readonly unknown[]).includes(v);
-}

@@ -27,6 +27,9 @@ describe('npm run analyze', () => {
     [['samples/nope.csv', '--cylinders', '4', '--firing-order', '1-3-4-2', '--json'], /No file/],
     [['samples/malformed.csv', '--cylinders', '4', '--firing-order', '1-3-4-2', '--json'], /Line 7, column 2/],
     [['samples/i4-healthy-current-sync.csv', '--cylinders', '4', '--firing-order', '1-3-4-2', '--teeth', 'sixty', '--json'], /--teeth/],
+    // The limits go through the workspace's own schema: the same ranges and sentences, named by their flag.
+    [['samples/i4-healthy-current-sync.csv', '--cylinders', '4', '--firing-order', '1-3-4-2', '--low-limit', '100', '--json'], /^--low-limit: The low limit is a percentage below 100\.$/m],
+    [['samples/i4-healthy-current-sync.csv', '--cylinders', '4', '--firing-order', '1-3-4-2', '--high-limit', 'ten', '--json'], /--high-limit must be a number/],
   ])('bad input %j exits 2 with one sentence', (args, message) => {
     const r = analyze(...(args as string[]));
     expect(r.status).toBe(2);
