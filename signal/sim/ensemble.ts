@@ -1,8 +1,9 @@
 /**
  * An ensemble of simulated engines whose physics varies independently along every axis the analysis cannot
  * know: how a cylinder leaks, the gas's polytropic exponent, intake valve closing, crank inertia, the starter's
- * armature, the battery's internal resistance and the cables, and friction rising with speed. One family, heat
- * lost to the cylinder wall, is kept out of the ensemble: the analysis is calibrated without it and tested on it.
+ * armature, the battery's internal resistance and the cables, friction rising with speed, and a VR sensor's wave
+ * from the flux through its coil (amplitude, polarity). One family, heat lost to the cylinder wall, is kept out of
+ * the ensemble: the analysis is calibrated without it and tested on it.
  */
 import { seededRandom, type Random } from '../dsp/random';
 import type { EngineSetup } from '../engine/firing';
@@ -68,6 +69,12 @@ export function drawEngine(engine: EngineSetup, seed: number, family: EnsembleFa
     heatLossPerS: family === 'held-out' ? uniform(rnd, 3, 12) : 0,
   };
   const { leak, kind } = drawLeaks(rnd, engine, leakModel);
+  // The VR sensor from its own draw (so the engines stay as they were): the flux model's wave, a few tenths of a
+  // volt to over a volt, either polarity, recorded at 20 kHz.
+  const sensor = seededRandom(0x7e5 + 104_723 * seed);
+  physics.vrModel = 'flux';
+  physics.vrScale = uniform(sensor, 0.3, 1.2);
+  physics.vrInverted = sensor.next() < 0.5;
   const f = (v: number | undefined, d = 2) => (v ?? 0).toFixed(d);
   const label = `${kind} (${leakModel}) n=${f(physics.n)} ivc=${f(physics.ivcAbdcDeg, 0)} J×${f(physics.inertiaScale)} Rb=${f(1000 * physics.batteryOhm!, 0)}mΩ h=${f(physics.heatLossPerS, 1)}`;
   return { family, physics, leakPerS: leak, label };

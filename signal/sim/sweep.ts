@@ -47,7 +47,8 @@ export function sweepCase(
           : method === 'vr'
             ? ['vr']
             : [];
-  const sim = simulateCranking({ ...physics, engine, leakPerS: leak, channels, seed, sampleRateHz: method === 'hall+sync' || method === 'vr' ? 50_000 : 10_000 });
+  const rate = method === 'vr' && physics.vrModel === 'flux' ? 20_000 : method === 'hall+sync' || method === 'vr' ? 50_000 : 10_000;
+  const sim = simulateCranking({ ...physics, engine, leakPerS: leak, channels, seed, sampleRateHz: rate });
   const teethOnly = method === 'teeth' || method === 'teeth, event duration';
   const current = method === 'reversed clamp+sync' ? sim.current?.map((v) => -v) : sim.current;
   const columns: CaptureColumns = teethOnly
