@@ -22,5 +22,12 @@ export function registerPdfFonts(): void {
       { src: join(dir, 'atkinson-hyperlegible-mono-latin-500-normal.woff'), fontWeight: 500 },
     ],
   });
+  // Glyph fallbacks (app/fonts/FONTS.md): Chinese, Japanese and Korean, then emoji.
+  Font.register({ family: 'CJKFallback', src: join(dir, 'droid-sans-fallback.ttf') });
+  Font.register({ family: 'EmojiFallback', src: join(dir, 'noto-emoji-400-normal.woff') });
   Font.registerHyphenationCallback((w) => [w]);
 }
+
+/** The report's text families, each followed by the fallbacks for characters it does not have. */
+export const TEXT_FONTS = ['Atkinson', 'CJKFallback', 'EmojiFallback'];
+export const MONO_FONTS = ['AtkinsonMono', 'CJKFallback', 'EmojiFallback'];

@@ -5,18 +5,19 @@
 import { G, Line, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
 import { type AnalysisResult, intervalText, percentText, RAW_LABELS } from '@/signal';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
+import { MONO_FONTS, TEXT_FONTS } from './fonts';
 
 export const C = { ink: '#1B2430', muted: '#545C68', line: '#CDC7BC', brand: '#A64822', ok: '#166E60', low: '#B0261E', uncertain: '#606876', high: '#965C00', limit: '#6842A8', event: '#2656A0', raised: '#EEEAE2' };
 
 export const s = StyleSheet.create({
-  page: { fontFamily: 'Atkinson', fontSize: 9.5, color: C.ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40 },
+  page: { fontFamily: TEXT_FONTS, fontSize: 9.5, color: C.ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40 },
   // Line height sits on the body, not the page: inherited from the page it hides render-prop text (react-pdf 4.9).
   body: { lineHeight: 1.35 },
   header: { flexDirection: 'row', justifyContent: 'space-between', alignItems: 'flex-end', borderBottomWidth: 2, borderBottomColor: C.brand, paddingBottom: 6, marginBottom: 10 },
   shop: { fontSize: 15, fontWeight: 700 },
   h1: { fontSize: 12.5, fontWeight: 700, color: C.brand },
   h2: { fontSize: 11, fontWeight: 700, marginTop: 10, marginBottom: 4 },
-  mono: { fontFamily: 'AtkinsonMono', fontSize: 8.5 },
+  mono: { fontFamily: MONO_FONTS, fontSize: 8.5 },
   row: { flexDirection: 'row' },
   cellLabel: { width: 130, color: C.muted },
   table: { borderWidth: 1, borderColor: C.line, marginTop: 4 },

@@ -58,4 +58,16 @@ describe.skipIf(!hasPoppler)('report PDF', () => {
     execFileSync('pdftoppm', ['-png', '-r', '80', '-f', '1', '-l', '1', 'artifacts/report.pdf', 'artifacts/report-page']);
     expect(existsSync('artifacts/report-page-1.png')).toBe(true);
   }, 60_000);
+
+  it('draws whatever a user typed: accents, quotes, CJK and emoji come back out of the PDF, line by line', async () => {
+    const data = sampleReportData();
+    const concern = 'Rough idle — “shakes” at 100% cold, ü\n二行目 한국 かな 🚗';
+    const pdf = await renderReportPdf({ ...data, concern });
+    writeFileSync('artifacts/report-unicode.pdf', pdf);
+    // pdftotext reads each glyph back through the font's own character map: a glyph the fonts lack comes back
+    // as something else (it did: "Œ" for 二 before the fallback fonts).
+    const text = execFileSync('pdftotext', ['artifacts/report-unicode.pdf', '-']).toString();
+    expect(text).toContain('Rough idle — “shakes” at 100% cold, ü');
+    expect(text).toContain('二行目 한국 かな 🚗');
+  }, 60_000);
 });
