@@ -57,7 +57,7 @@ test('sign up, verify, create a shop, invite a technician who creates a job', as
   await tech.getByRole('link', { name: 'New job' }).click();
   await tech.getByLabel('Repair-order number').fill('RO-7001');
   await tech.getByLabel('Odometer').fill('123456');
-  await tech.getByLabel('Customer concern, in their words').fill('Shakes at idle and the light flashes.');
+  await tech.getByLabel('Customer concern, in their words').fill('Shakes at idle —\nthe light flashes.');
   await tech.getByLabel('VIN').fill('1M8GDM9AXKP042788');
   await tech.getByLabel('Year').fill('2012');
   await tech.getByLabel('Make').fill('Test Make');
@@ -66,6 +66,8 @@ test('sign up, verify, create a shop, invite a technician who creates a job', as
   await shot(tech, 'new-job');
   await tech.getByRole('button', { name: 'Create job' }).click();
   await expect(tech.getByRole('heading', { name: /RO-7001/ })).toBeVisible();
+  // The concern keeps the customer's line breaks on the job page.
+  expect(await tech.getByText('Customer concern:').locator('..').innerText()).toContain('Shakes at idle —\nthe light flashes.');
   await shot(tech, 'job');
   await tech.goto('/jobs');
   await expect(tech.getByRole('link', { name: 'RO-7001' })).toBeVisible();

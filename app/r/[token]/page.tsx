@@ -44,7 +44,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
         </div>
       </header>
       <h1 className="text-2xl font-bold">{vehicle}</h1>
-      <p>
+      <p className="whitespace-pre-line">
         You told us: “{b.job.concern}” To find out whether the cause is inside the engine, we measured how well each cylinder holds compression while the engine was turned over by its starter.
       </p>
       {r && (

@@ -73,7 +73,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
             </dd>
           </div>
         </dl>
-        <p className="mt-3">
+        <p className="mt-3 whitespace-pre-line">
           <span className="text-sm text-muted">Customer concern: </span>
           {job.concern}
         </p>

@@ -88,7 +88,7 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
               <Link className="figures font-bold text-brand underline" href={`/jobs/${j.id}`}>
                 {j.repairOrder}
               </Link>{' '}
-              — {j.concern}
+              — <span className="whitespace-pre-line">{j.concern}</span>
             </li>
           ))}
         </ul>
