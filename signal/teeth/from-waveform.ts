@@ -42,10 +42,10 @@ export function toothTimesFromWaveform(t: Float64Array, v: Float64Array, kind: S
       }
     }
   } else {
-    const w = conditionVr(t, v);
     // The noise is read on the raw wave: the smoothed one hides it from a second difference.
-    const noise = noiseLevel(v) / Math.sqrt(w.smoothing);
-    out.push(...vrCrossings(t, w.wave, vrPolarity(t, w.wave, noise), noise));
+    const rawNoise = noiseLevel(v);
+    const w = conditionVr(t, v, rawNoise);
+    out.push(...vrBestCrossings(t, w.wave, rawNoise / Math.sqrt(w.smoothing)));
   }
   return Float64Array.from(out);
 }
@@ -56,9 +56,9 @@ export function toothTimesFromWaveform(t: Float64Array, v: Float64Array, kind: S
  * moving average four teeth wide, taken away, removes a slow drift of the zero. Both are symmetric, so the zero
  * crossings keep their times. The tooth period comes from a first reading of the raw wave.
  */
-export function conditionVr(t: Float64Array, v: Float64Array): { wave: Float64Array; smoothing: number } {
+export function conditionVr(t: Float64Array, v: Float64Array, noise = noiseLevel(v)): { wave: Float64Array; smoothing: number } {
   const fs = (t.length - 1) / (t[t.length - 1] - t[0]);
-  const first = vrCrossings(t, v, vrPolarity(t, v));
+  const first = vrBestCrossings(t, v, noise);
   if (first.length < 20 || !(fs > 0)) return { wave: v, smoothing: 1 };
   const gaps = first.slice(1).map((x, k) => x - first[k]).sort((a, b) => a - b);
   const toothS = gaps[gaps.length >> 1];
@@ -105,11 +105,11 @@ export function vrCrossings(t: Float64Array, raw: Float64Array, sign: 1 | -1, no
   return out;
 }
 
-/** The polarity whose crossings read as a tooth wheel best (1 as recorded, −1 for a wire swapped). */
-export function vrPolarity(t: Float64Array, v: Float64Array, noise = noiseLevel(v)): 1 | -1 {
-  const a = directionScore(Float64Array.from(vrCrossings(t, v, 1, noise)));
-  const b = directionScore(Float64Array.from(vrCrossings(t, v, -1, noise)));
-  return b > a ? -1 : 1;
+/** The crossings of the polarity that reads as a tooth wheel best (as recorded, or the wires swapped). */
+export function vrBestCrossings(t: Float64Array, v: Float64Array, noise = noiseLevel(v)): number[] {
+  const a = vrCrossings(t, v, 1, noise);
+  const b = vrCrossings(t, v, -1, noise);
+  return directionScore(Float64Array.from(b)) > directionScore(Float64Array.from(a)) ? b : a;
 }
 
 /** Noise: from the median absolute second difference over a sparse probe (a smooth wave's is near zero). */

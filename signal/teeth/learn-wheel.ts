@@ -5,7 +5,7 @@
  * revolution; each position's size is the median over all revolutions. Glitch edges (far too soon after the
  * last) are dropped first; a revolution with one edge too few or too many is repaired and counted.
  */
-import { type ToothWheel, teethOf } from './wheel';
+import { positionsOf, type ToothWheel, teethOf } from './wheel';
 
 export interface WheelAngles {
   wheel: ToothWheel;
@@ -153,17 +153,20 @@ function learnWith(u: Float64Array, times?: Float64Array): ToothWheel | null {
   for (let j = 0; j < lag; j++) if (!gapped && medianCls(j) === -1 && extraAt < 0) extraAt = j;
   // With an extra tooth the revolution holds lag periods but one pitch fewer positions.
   const gapsAfter: number[] = [];
+  // Each gap's votes over its sizes (none without edge times), kept for the whole-degrees check below.
+  const votes: number[][] = [];
   const start = extraAt >= 0 ? (extraAt + 2) % lag : startAfterLargestGap(size);
   for (let i = 0; i < lag; i++) {
     const j = (start + i) % lag;
     if (extraAt >= 0 && j === extraAt) continue;
     const c = medianCls(j);
-    gapsAfter.push(c > 0 ? (times ? votedGap(times, slotIndex[j]).winner || c : c) : 0);
+    const voted = c > 0 && times ? votedGap(times, slotIndex[j]) : null;
+    votes.push(voted?.votes ?? [0, 0, 0, 0]);
+    gapsAfter.push(c > 0 ? voted?.winner || c : 0);
   }
   if (extraAt < 0 && !gapsAfter.some((g) => g > 0)) return null;
-  roundToWholeDegrees(gapsAfter, times ? (j) => votedGap(times, slotIndex[(start + j) % lag]).votes : null);
-  const positions = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
-  return { positions, gapsAfter, extraTooth: extraAt >= 0 };
+  roundToWholeDegrees(gapsAfter, votes);
+  return { positions: positionsOf(gapsAfter), gapsAfter, extraTooth: extraAt >= 0 };
 }
 
 /** Position 0 is the tooth after the largest gap (the first of equal ones followed by the longest run). */
@@ -338,27 +341,26 @@ function dropExtra(span: number[], wheel: ToothWheel): void {
 }
 
 /**
+ * Crank wheels divide the revolution into whole degrees (60, 36, 24, 12 positions …). A one-gap wheel whose
+ * voted gap makes a count that does not (58 teeth and a gap of 3: 61 positions) misread its gap against a
+ * compression dip that stretched it; the gap one tooth smaller or larger that does, with the most votes, is taken.
+ */
+function roundToWholeDegrees(gapsAfter: number[], votes: number[][]): void {
+  const gaps = gapsAfter.map((g, j) => (g > 0 ? j : -1)).filter((j) => j >= 0);
+  const positions = positionsOf(gapsAfter);
+  if (gaps.length !== 1 || 360 % positions === 0) return;
+  const j = gaps[0];
+  const g = gapsAfter[j];
+  const fits = [g - 1, g + 1].filter((c) => c >= 1 && c <= 3 && 360 % (positions - g + c) === 0);
+  if (fits.length) gapsAfter[j] = fits.sort((a, b) => votes[j][b] - votes[j][a])[0];
+}
+
+/**
  * A gap's size on a fine wheel, by vote over its occurrences: for each candidate of 1–3 missing teeth, the
  * periods of the three teeth on either side, placed at their angles, give a smooth (quadratic in log) speed
  * curve across the gap; the candidate whose curve best predicts the gap's duration wins. This follows a crank
  * that slows or speeds up across the gap, where a ratio to the neighbours alone reads a gap a tooth long.
  */
-/**
- * Crank wheels divide the revolution into whole degrees (60, 36, 24, 12 positions …). A one-gap wheel whose
- * voted gap makes a count that does not (58 teeth and a gap of 3: 61 positions) misread its gap against a
- * compression dip that stretched it; the gap one tooth smaller or larger that does, with the most votes, is taken.
- */
-function roundToWholeDegrees(gapsAfter: number[], votesAt: ((j: number) => number[]) | null): void {
-  const gaps = gapsAfter.map((g, j) => (g > 0 ? j : -1)).filter((j) => j >= 0);
-  const positions = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
-  if (gaps.length !== 1 || 360 % positions === 0) return;
-  const j = gaps[0];
-  const g = gapsAfter[j];
-  const votes = votesAt?.(j) ?? [0, 0, 0, 0];
-  const fits = [g - 1, g + 1].filter((c) => c >= 1 && c <= 3 && 360 % (positions - g + c) === 0);
-  if (fits.length) gapsAfter[j] = fits.sort((a, b) => votes[b] - votes[a])[0];
-}
-
 function votedGap(times: Float64Array, occurrences: number[]): { winner: number; votes: number[] } {
   const votes = [0, 0, 0, 0];
   for (const k of occurrences) {

@@ -16,6 +16,11 @@ export interface ToothWheel {
 }
 
 /** Present teeth per revolution. */
+/** Positions a wheel's teeth and gaps cover: each tooth one pitch, each gap its missing teeth. */
+export function positionsOf(gapsAfter: readonly number[]): number {
+  return gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
+}
+
 export function teethOf(w: ToothWheel): number {
   return w.gapsAfter.length;
 }
@@ -84,8 +89,7 @@ export function parseWheel(text: string): ToothWheel | null {
     for (let i = 0; i < run; i++) gapsAfter.push(0);
     gapsAfter[gapsAfter.length - 1] = gap;
   }
-  const covered = gapsAfter.length + gapsAfter.reduce((a, b) => a + b, 0);
-  if (positions < 3 || covered !== positions) return null;
+  if (positions < 3 || positionsOf(gapsAfter) !== positions) return null;
   return { positions, gapsAfter, extraTooth: !!m[3] };
 }
 
