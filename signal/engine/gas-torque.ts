@@ -51,7 +51,6 @@ export type LeakDepth = 'early' | 'whole stroke' | 'near TDC';
 
 export interface LeakyShape {
   leakPerS: number;
-  depth: LeakDepth;
   table: Float64Array;
   /** Peak gauge pressure relative to the sealed cylinder's. */
   peakRatio: number;
@@ -87,5 +86,5 @@ export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number,
     table[i] = gauge * volumeRatioSlope(model.compressionRatio, model.rodRatio, psi * rad);
     if (gauge > 0 && psi >= from) mass *= Math.exp(-leakPerS * (depth === 'early' ? Math.sqrt(gauge) : gauge) * dtPerStep);
   }
-  return { leakPerS, depth, table, peakRatio: sealedPeak > 0 ? peak / sealedPeak : 1 };
+  return { leakPerS, table, peakRatio: sealedPeak > 0 ? peak / sealedPeak : 1 };
 }

@@ -54,6 +54,5 @@ function relabel(fit: TorqueFit, order: number[], map: Int32Array): TorqueFit {
     perCylinder: permute(fit.perCylinder),
     pressure: permute(fit.pressure),
     leakPerS: permute(fit.leakPerS),
-    leakDepth: Array.from(permute(Float64Array.from({ length: n }, (_, i) => i)), (i) => fit.leakDepth[i]),
   };
 }

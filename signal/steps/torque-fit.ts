@@ -4,7 +4,7 @@
  * the offset with the smallest residual wins. Modelling every cylinder at once keeps the neighbour's gas-spring
  * return out of each figure.
  */
-import { GENERIC_GAS, LATE_LEAK_FAMILY_PER_S, LEAK_FAMILY_PER_S, ORIFICE_LEAK_FAMILY_PER_S, type LeakDepth, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
+import { GENERIC_GAS, LATE_LEAK_FAMILY_PER_S, LEAK_FAMILY_PER_S, ORIFICE_LEAK_FAMILY_PER_S, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
 import { NormalEquations } from '../dsp/solve';
 import { type CrankMotion, meanRpm } from './crank-motion';
 
@@ -28,8 +28,6 @@ export interface TorqueFit {
   pressure: Float64Array;
   /** The leak rate of the shape each cylinder took, 1/s. */
   leakPerS: Float64Array;
-  /** Where in the stroke each cylinder's chosen shape loses its charge (sealed cylinders: 'whole stroke'). */
-  leakDepth: LeakDepth[];
   /** Peak-pressure estimate per complete event, same order as `events`. NaN for incomplete events. */
   perEvent: Float64Array;
   events: FitEvent[];
@@ -221,7 +219,6 @@ function summarise(m: CrankMotion, o: FitOptions, family: LeakyShape[], choice: 
   const perCylinder = new Float64Array(n).fill(NaN);
   const pressure = new Float64Array(n).fill(NaN);
   const leakPerS = new Float64Array(n);
-  const leakDepth = Array.from(choice, (f) => family[f].depth);
   const seen = new Uint8Array(n);
   for (let e = 0; e < global.events.length; e++) {
     const ev = global.events[e];
@@ -248,5 +245,5 @@ function summarise(m: CrankMotion, o: FitOptions, family: LeakyShape[], choice: 
   let tss = 0;
   for (let r = 0; r < m.y.length; r++) tss += (m.y[r] - mean) * (m.y[r] - mean);
   const phaseDeg = ((bestPhase % 720) + 720) % 720;
-  return { phaseDeg, perCylinder, pressure, leakPerS, leakDepth, perEvent, events, r2: tss > 0 ? 1 - global.rss / tss : 0 };
+  return { phaseDeg, perCylinder, pressure, leakPerS, perEvent, events, r2: tss > 0 ? 1 - global.rss / tss : 0 };
 }
