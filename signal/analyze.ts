@@ -13,7 +13,7 @@ import { findCycleMarks } from './teeth/cycle-marks';
 import { describePattern } from './steps/pattern';
 import { summarize } from './steps/summarize';
 import { runFit } from './steps/run-fit';
-import { type QualityWarning, warning } from './steps/warnings';
+import { dropWarnings, type QualityWarning, warning } from './steps/warnings';
 import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, CylinderStatus, Method, MethodResult, WheelInfo } from './types';
 import { ENGINE_VERSION } from './version';
 import { cylinderIntervals } from './steps/interval';
@@ -222,7 +222,7 @@ function toMethodResult(
   if (noCompression) {
     // With no compression there is no cylinder count to read either.
     const none = run.warnings.some((w) => w.code === 'NO_COMPRESSION');
-    for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'FIRING_ORDER_MISMATCH' && (none || warnings[i].cylinders === undefined)) warnings.splice(i, 1);
+    dropWarnings(warnings, (w) => w.code === 'FIRING_ORDER_MISMATCH' && (none || w.cylinders === undefined));
   }
   const rpm = Math.round(run.rpm * 10) / 10;
   if (rpm < MIN_RPM) warnings.push(warning('CRANKING_TOO_SLOW', `Cranking averaged ${rpm.toFixed(0)} rpm, below the ${MIN_RPM} rpm needed; charge or replace the battery and check the starter, then record again.`));

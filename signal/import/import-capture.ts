@@ -3,7 +3,7 @@
  * the columns, and hand back decoded channels with the warnings found on the way.
  */
 import { CaptureError } from '../errors';
-import { type QualityWarning, warning } from '../steps/warnings';
+import { dropWarnings, type QualityWarning, warning } from '../steps/warnings';
 import type { CaptureColumns } from '../types';
 import { checkTime, checkValues, fillMissing } from './check-columns';
 import { parseNumberField, timeScale, timeUnitInName } from './header';
@@ -209,7 +209,7 @@ export class CaptureImporter {
       columns.toothTimes = log.toothTimes;
       delete columns.time;
       // The marker rows between buffers are expected: not missing values.
-      for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'MISSING_VALUES' || warnings[i].code === 'TIME_GAPS' || warnings[i].code === 'TIME_NOT_MONOTONIC') warnings.splice(i, 1);
+      dropWarnings(warnings, (w) => w.code === 'MISSING_VALUES' || w.code === 'TIME_GAPS' || w.code === 'TIME_NOT_MONOTONIC');
       notes.push(...log.notes);
     }
     if (roles.length === 1 && roles[0] !== 'toothTimes' && roles[0] !== 'toothPeriod') {

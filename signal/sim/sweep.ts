@@ -173,7 +173,8 @@ export class SweepTally {
   line(label = 'sweep', methods: SweepMethod[] = SWEEP_METHODS): string {
     const parts = methods.map((m) => {
       const f = this.figures(m);
-      return `${m.replace(/[ ,+]+/g, '_')}_mae=${f.mae.toFixed(2)} ${m.replace(/[ ,+]+/g, '_')}_cover=${(100 * f.coverage).toFixed(1)} ${m.replace(/[ ,+]+/g, '_')}_width=${f.medianWidth.toFixed(1)}`;
+      const key = m.replace(/[ ,+]+/g, '_');
+      return `${key}_mae=${f.mae.toFixed(2)} ${key}_cover=${(100 * f.coverage).toFixed(1)} ${key}_width=${f.medianWidth.toFixed(1)}`;
     });
     return `${label}: ${parts.join(' ')} wrong_flags=${this.wrong.length}`;
   }

@@ -5,7 +5,7 @@
  */
 import type { EngineSetup } from '../engine/firing';
 import type { CylinderResult, CylinderStatus, Method, QualityGrade, WheelInfo } from '../types';
-import { type QualityWarning, THIN_EVIDENCE, warning } from './warnings';
+import { dropWarnings, type QualityWarning, THIN_EVIDENCE, warning } from './warnings';
 
 export interface Limits {
   lowLimitPercent: number;
@@ -30,7 +30,7 @@ export function isThin(method: Method, warnings: QualityWarning[], wheel?: Wheel
 
 /** Sets every cylinder's status and says, for each close call, what to do. Replaces earlier close-call words. */
 export function settleStatuses(cylinders: CylinderResult[], thin: boolean, l: Limits, warnings: QualityWarning[]): void {
-  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'CLOSE_CALL') warnings.splice(i, 1);
+  dropWarnings(warnings, (w) => w.code === 'CLOSE_CALL');
   for (const c of cylinders) {
     c.status = thin ? 'uncertain' : statusOf(c, l);
     if (thin || c.status !== 'uncertain' || !c.interval || c.relativePercent === null || c.events < l.minEvents) continue;
@@ -51,7 +51,7 @@ export function settleStatuses(cylinders: CylinderResult[], thin: boolean, l: Li
  * this, so the interval must say it, not only the status.
  */
 export function holdAfterLow(cylinders: CylinderResult[], setup: EngineSetup, lowLimit: number, warnings: QualityWarning[], method: Method): void {
-  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'AFTER_LOW') warnings.splice(i, 1);
+  dropWarnings(warnings, (w) => w.code === 'AFTER_LOW');
   const order = setup.firingOrder;
   const n = order.length;
   const byNumber = new Map(cylinders.map((c) => [c.cylinder, c]));
@@ -70,19 +70,16 @@ export function holdAfterLow(cylinders: CylinderResult[], setup: EngineSetup, lo
     }
     const reads = c.relativePercent ?? 0;
     if (anchor && reads >= lowLimit - margin && reads > (anchor.relativePercent ?? 0)) {
-      c.status = 'uncertain';
-      if (c.interval) c.interval = [c.interval[0], Math.max(c.interval[1], AFTER_LOW_REACH)];
+      holdPerhapsHealthy(c);
       held.push(c.cylinder);
     } else {
       anchor = c;
     }
   }
   if (held.length) {
-    const cause =
-      method === 'crank-speed' || method === 'event-duration'
-        ? 'the low cylinder before it can pull its figure down'
-        : "the starter's clutch overruns there and the current method can read low without cause";
-    const confirm = method === 'crank-speed' || method === 'event-duration' ? 'Confirm with a gauge test.' : 'Confirm with crank speed (a crank sensor channel) or a gauge test.';
+    const onTeeth = method === 'crank-speed' || method === 'event-duration';
+    const cause = onTeeth ? 'the low cylinder before it can pull its figure down' : "the starter's clutch overruns there and the current method can read low without cause";
+    const confirm = onTeeth ? 'Confirm with a gauge test.' : 'Confirm with crank speed (a crank sensor channel) or a gauge test.';
     warnings.push(warning('AFTER_LOW', `Cylinder${held.length > 1 ? 's' : ''} ${held.join(', ')} fire${held.length > 1 ? '' : 's'} right after a low cylinder and read${held.length > 1 ? '' : 's'} a little low; ${cause}. ${confirm}`));
   }
 }
@@ -93,7 +90,7 @@ export function holdAfterLow(cylinders: CylinderResult[], setup: EngineSetup, lo
  * cylinder). A cylinder it reads above the upper limit is `uncertain`, with a sentence.
  */
 export function holdHigh(cylinders: CylinderResult[], warnings: QualityWarning[]): void {
-  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'HIGH_HELD') warnings.splice(i, 1);
+  dropWarnings(warnings, (w) => w.code === 'HIGH_HELD');
   const held = cylinders.filter((c) => c.status === 'high');
   for (const c of held) c.status = 'uncertain';
   if (held.length) {
@@ -110,16 +107,13 @@ export function holdHigh(cylinders: CylinderResult[], warnings: QualityWarning[]
  * cylinders that still hold some compression are `uncertain`, their intervals reaching past 100 %, with a sentence.
  */
 export function holdMostLow(cylinders: CylinderResult[], warnings: QualityWarning[]): void {
-  for (let i = warnings.length - 1; i >= 0; i--) if (warnings[i].code === 'MOST_LOW_HELD') warnings.splice(i, 1);
+  dropWarnings(warnings, (w) => w.code === 'MOST_LOW_HELD');
   const low = cylinders.filter((c) => c.status === 'low');
   const dead = cylinders.some((c) => c.relativePercent !== null && c.relativePercent < MOST_LOW_KEEPS_BELOW);
   const most = low.length * 2 >= cylinders.length;
   if (!most && !dead) return;
   const held = low.filter((c) => (c.relativePercent ?? 0) >= MOST_LOW_KEEPS_BELOW);
-  for (const c of held) {
-    c.status = 'uncertain';
-    if (c.interval) c.interval = [c.interval[0], Math.max(c.interval[1], AFTER_LOW_REACH)];
-  }
+  for (const c of held) holdPerhapsHealthy(c);
   if (held.length) {
     const list = `cylinder${held.length > 1 ? 's' : ''} ${held.map((c) => c.cylinder).join(', ')} ${held.length > 1 ? 'are' : 'is'} not judged`;
     const why = most
@@ -139,6 +133,12 @@ const MOST_LOW_KEEPS_BELOW = 40;
 const AFTER_LOW_MARGIN = 40;
 /** A held cylinder's interval reaches at least this high (percent): a healthy cylinder reads 100 % give or take a few. */
 const AFTER_LOW_REACH = 104;
+
+/** A low reading that may be a healthy cylinder misread: `uncertain`, its interval reaching past 100 %. */
+function holdPerhapsHealthy(c: CylinderResult): void {
+  c.status = 'uncertain';
+  if (c.interval) c.interval = [c.interval[0], Math.max(c.interval[1], AFTER_LOW_REACH)];
+}
 /** The same on crank speed, where the spill from a neighbour is smaller (up to 18 points on the ensemble). */
 const AFTER_LOW_MARGIN_CRANK = 20;
 

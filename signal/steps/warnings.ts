@@ -42,6 +42,11 @@ export interface QualityWarning {
   cylinders?: number;
 }
 
+/** Removes, in place, the warnings `drop` picks (a step that says its words again clears its earlier ones). */
+export function dropWarnings(warnings: QualityWarning[], drop: (w: QualityWarning) => boolean): void {
+  for (let i = warnings.length - 1; i >= 0; i--) if (drop(warnings[i])) warnings.splice(i, 1);
+}
+
 export function warning(code: WarningCode, message: string, cylinders?: number): QualityWarning {
   return cylinders === undefined ? { code, message } : { code, message, cylinders };
 }
