@@ -8,7 +8,7 @@ import { useEffect, useState } from 'react';
 import { useMutation } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 import { CAUTIONS } from '@/domain/cautions';
 
 export function CautionsGate({ jobId, read: readBefore, children }: { jobId: string; read: boolean; children: React.ReactNode }) {
@@ -36,7 +36,7 @@ export function CautionsGate({ jobId, read: readBefore, children }: { jobId: str
         I have read this — go on
       </Button>
       {record.isError && (
-        <Notice tone="error">{record.error instanceof ApiError ? record.error.message : 'Could not record that you read the cautions; check the connection and press the button again.'}</Notice>
+        <Notice tone="error">{errorText(record.error, 'Could not record that you read the cautions; check the connection and press the button again.')}</Notice>
       )}
     </div>
   );

@@ -9,7 +9,7 @@ import { useRouter } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
 import { SURE_MAPPING } from '@/signal/steps/screen';
@@ -293,7 +293,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, sav
                     <span data-testid="saved">Saved. The server re-ran the engine on the stored file.</span>
                   </Notice>
                 )}
-                {save.isError && <Notice tone="error">{save.error instanceof ApiError ? save.error.message : 'Could not save; try again.'}</Notice>}
+                {save.isError && <Notice tone="error">{errorText(save.error, 'Could not save; try again.')}</Notice>}
               </div>
             ) : (
               <p className="border-t border-line pt-3 text-sm text-muted">Your role can read analyses but not save them.</p>

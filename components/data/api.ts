@@ -12,6 +12,11 @@ export class ApiError extends Error {
   }
 }
 
+/** What to tell the user when a call failed: the server's own sentence, or `fallback` when it gave none. */
+export function errorText(e: unknown, fallback = 'That did not work; try again.'): string {
+  return e instanceof ApiError ? e.message : fallback;
+}
+
 export async function api<T>(path: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
   const { json, ...rest } = init;
   const res = await fetch(path, {

@@ -8,7 +8,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 import { RETENTION_DAYS, retentionInput, retentionWords } from '@/domain/retention';
 import { withoutDigitGroups } from '@/domain/typed-number';
 
@@ -35,7 +35,7 @@ export function RetentionForm({ days, lastSweep }: { days: number | null; lastSw
           setNote({ tone: 'ok', text: `Saved: captures and analyses are ${retentionWords(parsed.data.retentionDays)}.` });
           router.refresh();
         } catch (e) {
-          setNote({ tone: 'error', text: e instanceof ApiError ? e.message : 'That did not save; try again.' });
+          setNote({ tone: 'error', text: errorText(e, 'That did not save; try again.') });
         }
       })}
     >

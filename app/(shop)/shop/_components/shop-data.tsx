@@ -7,7 +7,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 
 export function ShopData({ name }: { name: string }) {
   const [error, setError] = useState<string | null>(null);
@@ -29,7 +29,7 @@ export function ShopData({ name }: { name: string }) {
             await api('/api/shop', { method: 'DELETE', json: v });
             window.location.assign('/');
           } catch (e) {
-            setError(e instanceof ApiError ? e.message : 'The shop was not removed; try again.');
+            setError(errorText(e, 'The shop was not removed; try again.'));
           }
         })}
       >

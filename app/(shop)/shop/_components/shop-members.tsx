@@ -5,7 +5,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, Select } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 
 interface ShopData {
   role: string;
@@ -25,7 +25,7 @@ export function ShopMembers({ isOwner, selfMemberId }: { isOwner: boolean; selfM
     setMessage({ tone: 'ok', text });
     return qc.invalidateQueries({ queryKey: shopKeys.current });
   };
-  const fail = (e: unknown) => setMessage({ tone: 'error', text: e instanceof ApiError ? e.message : 'That did not work; try again.' });
+  const fail = (e: unknown) => setMessage({ tone: 'error', text: errorText(e) });
 
   const invite = useMutation({
     mutationFn: () => api('/api/shop/invitations', { method: 'POST', json: { email, role } }),

@@ -6,7 +6,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 import { type ShopSettings, shopSettingsSchema } from '@/domain/shop-settings';
 import type { z } from 'zod';
 import { timeZoneNames } from '@/domain/time';
@@ -26,7 +26,7 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
           setNote({ tone: 'ok', text: 'Saved: dates, temperatures and distances now show this way for everyone in the shop, and customers see the phone and address.' });
           router.refresh();
         } catch (e) {
-          setNote({ tone: 'error', text: e instanceof ApiError ? e.message : 'That did not save; try again.' });
+          setNote({ tone: 'error', text: errorText(e, 'That did not save; try again.') });
         }
       })}
     >

@@ -3,7 +3,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { api, ApiError } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 import { jobKeys } from '@/components/data/jobs/keys';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
@@ -20,7 +20,7 @@ export function JobStatusControl({ jobId, status }: { jobId: string; status: str
       router.refresh();
     },
   });
-  const error = move.error instanceof ApiError ? move.error.message : move.error ? 'That did not work; try again.' : undefined;
+  const error = move.error ? errorText(move.error) : undefined;
   if (status === 'done') {
     return (
       <div className="flex flex-col items-start gap-2">

@@ -1,5 +1,4 @@
 /** The report page's data as the report route answers it, and the empty draft. */
-import { ApiError } from '@/components/data/api';
 import type { ReportContent } from '@/domain/report';
 import type { AnalysisResult } from '@/signal';
 
@@ -29,4 +28,3 @@ export interface ReportData {
 }
 
 export const EMPTY: ReportContent = { analysisIds: [], conditions: {}, interpretation: '', nextSteps: [], technicianName: undefined };
-export const errorText = (e: unknown) => (e instanceof ApiError ? e.message : 'That did not work; try again.');

@@ -5,13 +5,13 @@
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { api } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 import { reportKeys } from '@/components/data/reports/keys';
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { formatWhen } from '@/domain/time';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, TextArea } from '@/components/ui/field';
-import { errorText, type ReportData, type Revision } from './report-data';
+import { type ReportData, type Revision } from './report-data';
 
 export function ReportDelivery({
   jobId,

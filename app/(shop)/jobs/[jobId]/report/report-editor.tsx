@@ -11,11 +11,11 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, TextArea } from '@/components/ui/field';
-import { api } from '@/components/data/api';
+import { api, errorText } from '@/components/data/api';
 import { interpretationFor, nextStepsFor } from '@/domain/report-wording';
 import type { ReportContent } from '@/domain/report';
 import { ConditionFields } from './condition-fields';
-import { EMPTY, errorText, type ReportData, type Revision } from './report-data';
+import { EMPTY, type ReportData, type Revision } from './report-data';
 import { ReportDelivery } from './report-delivery';
 
 export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defaultName: string; can: { edit: boolean; sign: boolean; send: boolean; share: boolean } }) {
