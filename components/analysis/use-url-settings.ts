@@ -3,8 +3,8 @@
  * The workspace's analysis settings, kept in the URL (?s=…) so a reload or a hand-over keeps them; invalid or
  * absent → the defaults. A change applies at once (the URL follows when the router has replaced it), so a value
  * committed by leaving a field is the one a click on Save straight after sends. A URL changed from outside (a
- * link to a saved analysis, back and forward) is taken up; the URLs of this page's own changes still on their
- * way are not, so quick changes never step back.
+ * link to a saved analysis, back and forward) is taken up, even while this page's own changes are on their way;
+ * the URLs of those own changes are not, so quick changes never step back.
  */
 import { usePathname, useRouter, useSearchParams } from 'next/navigation';
 import { useCallback, useMemo, useRef, useState } from 'react';
@@ -28,17 +28,22 @@ export function useUrlSettings(initial: AnalysisSettingsValues): [AnalysisSettin
   const fromUrl = useMemo(() => settingsFromUrl(raw, initial), [raw, initial]);
   const [settings, setLocal] = useState(fromUrl);
   const [seen, setSeen] = useState(raw);
-  /** What this page last wrote to the URL, until the URL shows it. */
-  const pending = useRef<string | null>(null);
+  /** What this page wrote to the URL, oldest first, until the URL shows it (quick writes may land only the last). */
+  const pending = useRef<string[]>([]);
   if (raw !== seen) {
     setSeen(raw);
-    if (pending.current === null) setLocal(fromUrl);
-    else if (raw === pending.current) pending.current = null;
+    const ours = raw === null ? -1 : pending.current.indexOf(raw);
+    if (ours >= 0) pending.current = pending.current.slice(ours + 1);
+    else {
+      // A URL this page did not write (a link, back or forward) wins over writes still on their way.
+      pending.current = [];
+      setLocal(fromUrl);
+    }
   }
   const setSettings = useCallback(
     (s: AnalysisSettingsValues) => {
       const text = JSON.stringify(s);
-      pending.current = text;
+      pending.current = [...pending.current, text];
       setLocal(s);
       const next = new URLSearchParams(params);
       next.set('s', text);
