@@ -34,26 +34,62 @@ export interface EngineStart {
 export function findEngineStart(timeS: ArrayLike<number>, speed: ArrayLike<number>, minRunningRpm = MIN_RUNNING_RPM): EngineStart | null {
   const n = speed.length;
   if (n < 4) return null;
+  // The speeds before each event, kept sorted as they come (the medians in O(log n), not a sort per event).
+  const sorted = new Float64Array(n);
+  let count = 0;
+  const recent: number[] = [];
+  const add = (v: number) => {
+    const at = lowerBound(sorted, count, v);
+    sorted.copyWithin(at + 1, at, count);
+    sorted[at] = v;
+    count++;
+    recent.push(v);
+    if (recent.length > 6) recent.shift();
+  };
+  if (speed[0] > 0) add(speed[0]);
   for (let i = 1; i < n; i++) {
     if (!(speed[i] > 0)) continue;
-    const before = Array.from({ length: i }, (_, k) => speed[k]).filter((v) => v > 0);
-    if (!before.length) continue;
-    const rough = median(before);
-    const band = median(before.filter((v) => v >= 0.5 * rough));
-    const limit = STARTED_FACTOR * band;
-    if (!(speed[i] > limit)) continue;
-    // The band must be cranking: at least three recent events near it (a starter still engaging is not).
-    if (before.slice(-6).filter((v) => Math.abs(v / band - 1) < 0.2).length < 3) continue;
-    let up = 0;
-    const after: number[] = [];
-    for (let k = i; k < n; k++) {
-      after.push(speed[k]);
-      if (speed[k] > STAYS_FACTOR * band) up++;
+    if (count === 0) {
+      add(speed[i]);
+      continue;
     }
-    const running = median(after);
-    if (up >= STAYS_UP * (n - i) && running > 1.5 * band && running >= minRunningRpm && (n - i >= 3 || speed[n - 1] > 2 * band)) return { index: i, timeS: timeS[i] };
+    const rough = medianOfSorted(sorted, 0, count);
+    const band = medianOfSorted(sorted, lowerBound(sorted, count, 0.5 * rough), count);
+    const limit = STARTED_FACTOR * band;
+    if (speed[i] > limit && recent.filter((v) => Math.abs(v / band - 1) < 0.2).length >= 3) {
+      // The band is cranking (at least three recent events near it; a starter still engaging is not).
+      let up = 0;
+      const after: number[] = [];
+      for (let k = i; k < n; k++) {
+        after.push(speed[k]);
+        if (speed[k] > STAYS_FACTOR * band) up++;
+      }
+      const running = median(after);
+      if (up >= STAYS_UP * (n - i) && running > 1.5 * band && running >= minRunningRpm && (n - i >= 3 || speed[n - 1] > 2 * band)) return { index: i, timeS: timeS[i] };
+    }
+    add(speed[i]);
   }
   return null;
+}
+
+/** First index in sorted[0, count) whose value is not below v. */
+function lowerBound(sorted: Float64Array, count: number, v: number): number {
+  let lo = 0;
+  let hi = count;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (sorted[mid] < v) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** The median of sorted[from, to). */
+function medianOfSorted(sorted: Float64Array, from: number, to: number): number {
+  const m = to - from;
+  if (m <= 0) return NaN;
+  const mid = from + (m >> 1);
+  return m % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
 }
 
 /** Where the engine started on teeth with known angles: one speed per firing interval, from the segments' durations. */

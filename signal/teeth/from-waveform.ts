@@ -19,11 +19,22 @@ export function guessSensorKind(v: Float64Array): SensorKind {
 }
 
 /** Edge times (s) from a sampled sensor waveform. */
+/** A Hall wave's swing must stand this many noise levels clear of the noise to be read. */
+const HALL_MIN_SWING_NOISES = 12;
+
 export function toothTimesFromWaveform(t: Float64Array, v: Float64Array, kind: SensorKind): Float64Array {
   const out: number[] = [];
   if (kind === 'hall') {
-    const lo = quantileProbe(v, 0.05, 50_000);
-    const hi = quantileProbe(v, 0.95, 50_000);
+    let lo = quantileProbe(v, 0.05, 50_000);
+    let hi = quantileProbe(v, 0.95, 50_000);
+    // A crank that hardly turned sits at one level nearly all the time: its levels from the extremes, and no teeth
+    // at all where there is no swing above the noise (else the noise itself is read as thousands of teeth).
+    const noise = noiseLevel(v);
+    if (hi - lo < HALL_MIN_SWING_NOISES * noise) {
+      lo = quantileProbe(v, 0.001, 50_000);
+      hi = quantileProbe(v, 0.999, 50_000);
+      if (hi - lo < HALL_MIN_SWING_NOISES * noise) return new Float64Array(0);
+    }
     const mid = (lo + hi) / 2;
     const band = 0.15 * (hi - lo);
     let high = v[0] > mid;
