@@ -64,7 +64,7 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
     await tx.insert(organizations).values({ id: shopId, name: 'Demo Engine Clinic', slug: 'demo-engine-clinic' });
     // The demo shop keeps its dates in a US zone, its temperatures in °F and distances in miles, to show the
     // conversions; its phone number is in the range kept for fiction, its address invented.
-    await tx.insert(shopSettings).values({ shopId, timeZone: 'America/Chicago', temperatureUnit: 'F', distanceUnit: 'mi', phone: '(555) 010-4821', address: '48 Gearwheel Lane\nRivertown' });
+    await tx.insert(shopSettings).values({ shopId, timeZone: 'America/Chicago', temperatureUnit: 'F', distanceUnit: 'mi', pressureUnit: 'psi', phone: '(555) 010-4821', address: '48 Gearwheel Lane\nRivertown' });
     const ids: string[] = [];
     for (const a of DEMO_ACCOUNTS) {
       const userId = crypto.randomUUID();

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, METHOD_CHOICES, parseWheel } from '@/signal';
 import type { EngineSpec } from './engine';
+import { type StartingLimits, startingLimitsSchema } from './starting-limits';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'toothPeriod', 'ignore'] as const;
 
@@ -27,6 +28,15 @@ export const analysisSettingsSchema = z
     rotation: z.number().int('The rotation is a whole number of steps.').min(-16, 'The rotation is at most 16 steps either way.').max(16, 'The rotation is at most 16 steps either way.').default(0),
     sensor: z.enum(['auto', 'hall', 'vr']).default('auto'),
     mapping: z.array(z.enum(CHANNEL_ROLES)).optional(),
+    /** The starting-system check: the shop's limits and the conditions it needs. */
+    starting: z
+      .object({
+        temperatureC: z.number().min(-50, 'The air temperature is between −50 and 60 °C.').max(60, 'The air temperature is between −50 and 60 °C.').optional(),
+        displacementL: z.number().gt(0, 'The displacement is above 0 litres.').max(30, 'The displacement is at most 30 litres.').optional(),
+        diesel: z.boolean().optional(),
+        limits: startingLimitsSchema.partial().optional(),
+      })
+      .optional(),
     sampleRateHz: z.number().positive().optional(),
   })
   .superRefine((s, ctx) => {
@@ -39,10 +49,11 @@ export const analysisSettingsSchema = z
 export type AnalysisSettingsInput = z.input<typeof analysisSettingsSchema>;
 export type AnalysisSettingsValues = z.output<typeof analysisSettingsSchema>;
 
-/** The settings an analysis starts from for a vehicle's engine (the schema's defaults for the rest). */
-export function settingsForEngine(e: EngineSpec): AnalysisSettingsValues {
+/** The settings an analysis starts from for a vehicle's engine and the shop's starting limits (the schema's defaults for the rest). */
+export function settingsForEngine(e: EngineSpec, startingLimits?: StartingLimits): AnalysisSettingsValues {
   return analysisSettingsSchema.parse({
     engine: { cylinders: e.cylinders, firingOrder: e.firingOrder, intervalsDeg: e.intervalsDeg, layout: e.layout, numbering: e.numbering ?? 'along-crank' },
+    starting: e.displacementL || startingLimits ? { displacementL: e.displacementL, limits: startingLimits } : undefined,
   });
 }
 
@@ -63,5 +74,6 @@ export function engineSettings(s: AnalysisSettingsValues): AnalysisSettings {
     window: s.window,
     rotation: s.rotation,
     sensor: s.sensor,
+    starting: s.starting,
   };
 }

@@ -1,5 +1,6 @@
 /** The report's editable content: which analyses, the test conditions, interpretation, next steps, sign-off name. */
 import { z } from 'zod';
+import { gaugeSchema } from './gauge-pressures';
 
 const optionalNumber = (min: number, max: number, message: string) =>
   z.preprocess((v) => (v === '' || v === null || v === undefined ? undefined : v), z.coerce.number({ message }).min(min, message).max(max, message).optional());
@@ -24,6 +25,8 @@ export const reportContentSchema = z.object({
   interpretation: z.string().max(5000, 'Keep the interpretation under 5,000 characters.').default(''),
   nextSteps: z.array(z.string().trim().min(1).max(300)).max(10).default([]),
   technicianName: optionalText(120),
+  /** One cylinder's gauge reading and the specification, for gauge-equivalent pressures (domain/gauge-pressures.ts). */
+  gauge: gaugeSchema.optional(),
 });
 
 export type ReportContent = z.output<typeof reportContentSchema>;

@@ -3,11 +3,15 @@
  * distance units, and the phone number and address shown on a customer's report page.
  */
 import { z } from 'zod';
+import { DEFAULT_STARTING_LIMITS, type StartingLimits, startingLimitsSchema } from './starting-limits';
 
 export const TEMPERATURE_UNITS = ['C', 'F'] as const;
 export type TemperatureUnit = (typeof TEMPERATURE_UNITS)[number];
 export const DISTANCE_UNITS = ['km', 'mi'] as const;
 export type DistanceUnit = (typeof DISTANCE_UNITS)[number];
+/** Gauge pressures: kilopascals, pounds per square inch or bar. */
+export const PRESSURE_UNITS = ['kPa', 'psi', 'bar'] as const;
+export type PressureUnit = (typeof PRESSURE_UNITS)[number];
 
 /** True for a zone name this runtime's time-zone database knows (IANA names such as Europe/Berlin, or UTC). */
 export function isTimeZone(name: string): boolean {
@@ -31,22 +35,33 @@ export const shopSettingsSchema = z.object({
   distanceUnit: z.enum(DISTANCE_UNITS, { message: 'Choose km or mi.' }).default('km'),
   phone: z.string().trim().max(40, 'Keep the phone number under 40 characters.').default(''),
   address: z.string().max(300, 'Keep the address under 300 characters.').overwrite(trimLines).default(''),
+  /** Left out: kept as it is. */
+  pressureUnit: z.enum(PRESSURE_UNITS, { message: 'Choose kPa, psi or bar.' }).optional(),
+  /** Left out: kept as they are. */
+  startingLimits: startingLimitsSchema.optional(),
 });
-export type ShopSettings = z.output<typeof shopSettingsSchema>;
+/** Settings as a form or the API sends them (the pressure unit and starting limits may be left out). */
+export type ShopSettingsInput = z.output<typeof shopSettingsSchema>;
+export type ShopSettings = Required<ShopSettingsInput>;
 
-/** Until an owner chooses: coordinated universal time, degrees Celsius, kilometres, and no contact details. */
-export const DEFAULT_SHOP_SETTINGS: ShopSettings = { timeZone: 'UTC', temperatureUnit: 'C', distanceUnit: 'km', phone: '', address: '' };
+/** Until an owner chooses: coordinated universal time, degrees Celsius, kilometres, kPa, no contact details and the default starting limits. */
+export const DEFAULT_SHOP_SETTINGS: ShopSettings = { timeZone: 'UTC', temperatureUnit: 'C', distanceUnit: 'km', phone: '', address: '', pressureUnit: 'kPa', startingLimits: DEFAULT_STARTING_LIMITS };
 
 /** A shop's settings from its stored row (null columns or no row: the defaults). */
 export function shopSettingsFrom(
-  row: { timeZone: string | null; temperatureUnit: string | null; distanceUnit?: string | null; phone?: string | null; address?: string | null } | undefined,
+  row:
+    | { timeZone: string | null; temperatureUnit: string | null; distanceUnit?: string | null; phone?: string | null; address?: string | null; pressureUnit?: string | null; startingLimits?: unknown }
+    | undefined,
 ): ShopSettings {
+  const limits = startingLimitsSchema.safeParse({ ...DEFAULT_STARTING_LIMITS, ...(row?.startingLimits as Partial<StartingLimits> | null | undefined) });
   return {
     timeZone: row?.timeZone ?? DEFAULT_SHOP_SETTINGS.timeZone,
     temperatureUnit: (row?.temperatureUnit as TemperatureUnit | null | undefined) ?? DEFAULT_SHOP_SETTINGS.temperatureUnit,
     distanceUnit: (row?.distanceUnit as DistanceUnit | null | undefined) ?? DEFAULT_SHOP_SETTINGS.distanceUnit,
     phone: row?.phone ?? '',
     address: row?.address ?? '',
+    pressureUnit: (row?.pressureUnit as PressureUnit | null | undefined) ?? DEFAULT_SHOP_SETTINGS.pressureUnit,
+    startingLimits: limits.success ? limits.data : DEFAULT_STARTING_LIMITS,
   };
 }
 

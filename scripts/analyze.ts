@@ -5,6 +5,7 @@ import { analysisSettingsSchema, engineSettings } from '../domain/analysis-setti
 import { progress } from './progress';
 import {
   analyzeBytes,
+  type AnalysisResult,
   type AnalysisSettings,
   CaptureError,
   isCaptureError,
@@ -27,6 +28,9 @@ const HELP = `Usage: npm run --silent analyze -- FILE --cylinders N --firing-ord
   --intervals 90-150-…   firing intervals for uneven fire, degrees
   --sample-rate HZ       samples per second, for a sample-index column
   --rotation N           step the assumed cylinder assignment
+  --displacement L       engine displacement, litres (the starting-system check's current limit)
+  --diesel               a diesel engine (twice the cranking-current allowance)
+  --temperature C        air temperature, °C (the cranking-voltage limit falls when colder)
   --json                 one JSON object on stdout
   --help                 this text`;
 
@@ -41,6 +45,8 @@ const FLAG_OF: Record<string, string> = {
   highLimitPercent: '--high-limit',
   spreadLimitPercent: '--spread-limit',
   rotation: '--rotation',
+  'starting.displacementL': '--displacement',
+  'starting.temperatureC': '--temperature',
 };
 
 function usage(): never {
@@ -72,6 +78,9 @@ function main() {
         'sample-rate': { type: 'string' },
         rotation: { type: 'string', default: '0' },
         'mark-offset': { type: 'string' },
+        displacement: { type: 'string' },
+        diesel: { type: 'boolean', default: false },
+        temperature: { type: 'string' },
         json: { type: 'boolean', default: false },
         help: { type: 'boolean', default: false },
       },
@@ -90,7 +99,7 @@ function main() {
   const cylinders = Number(values.cylinders);
   if (!values.cylinders || !Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) fail('Give --cylinders as a whole number from 1 to 16.');
   if (!values['firing-order']) fail('Give --firing-order, for example 1-3-4-2.');
-  const num = (flag: 'low-limit' | 'high-limit' | 'spread-limit' | 'rotation') => {
+  const num = (flag: 'low-limit' | 'high-limit' | 'spread-limit' | 'rotation' | 'displacement' | 'temperature') => {
     const v = Number(values[flag]);
     return Number.isFinite(v) ? v : fail(`--${flag} must be a number, not "${values[flag]}".`);
   };
@@ -107,6 +116,11 @@ function main() {
     highLimitPercent: num('high-limit'),
     spreadLimitPercent: num('spread-limit'),
     rotation: num('rotation'),
+    starting: {
+      displacementL: values.displacement === undefined ? undefined : num('displacement'),
+      temperatureC: values.temperature === undefined ? undefined : num('temperature'),
+      diesel: values.diesel || undefined,
+    },
   });
   if (!checked.success) {
     const issue = checked.error.issues[0];
@@ -145,6 +159,7 @@ function main() {
       `Capture quality ${result.quality.grade}${result.quality.limitedBy !== 'none' ? `, limited by ${result.quality.limitedBy}` : ''}: ${result.quality.note}`,
       ...(result.crossCheck ? [`Cross-check (${result.crossCheck.method}): ${result.crossCheck.cylinders.map((c) => c.relativePercent ?? '—').join(' ')} — ${result.crossCheck.agree ? 'agrees' : 'disagrees'}`] : []),
       `Spread ${result.spreadPercent} points. ${result.pattern.hint}`,
+      ...(result.startingSystem ? startingLines(result.startingSystem) : []),
       ...result.warnings.map((w) => `  ! ${w.code}: ${w.message}${w.cylinders !== undefined ? ` Try --cylinders ${w.cylinders} with that engine's firing order.` : ''}`),
     ];
     process.stdout.write(`${lines.join('\n')}\n`);
@@ -159,3 +174,12 @@ function describe(e: CaptureError): string {
 }
 
 main();
+
+/** The starting system in a few lines: each measured figure against its limit, then what to do. */
+function startingLines(s: NonNullable<AnalysisResult['startingSystem']>): string[] {
+  const measured = s.checks.filter((c) => c.status !== 'not measured');
+  return [
+    `Starting system (${s.systemV} V): ${measured.map((c) => `${c.label.toLowerCase()} ${c.value} ${c.unit} ${c.status === 'ok' ? 'ok' : c.status} (${c.limit})`).join('; ') || 'nothing measured'}`,
+    ...s.advice.map((a) => `  ! ${a}`),
+  ];
+}

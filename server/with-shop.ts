@@ -85,6 +85,8 @@ async function lookUpMembership(s: SessionContext): Promise<Membership> {
       distanceUnit: shopSettings.distanceUnit,
       phone: shopSettings.phone,
       address: shopSettings.address,
+      pressureUnit: shopSettings.pressureUnit,
+      startingLimits: shopSettings.startingLimits,
     })
     .from(members)
     .innerJoin(organizations, eq(members.organizationId, organizations.id))

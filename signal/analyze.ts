@@ -4,7 +4,7 @@
  */
 import { checkFiringOrder, firingIntervals } from './engine/firing';
 import { CaptureError } from './errors';
-import { type MethodOutcome, type MethodRun, runCurrentMethod } from './methods/current';
+import { clampReversed, type MethodOutcome, type MethodRun, runCurrentMethod } from './methods/current';
 import { type CrankInput, type CrankTeeth, readCrankTeeth, runCrankSpeedMethod, runSpeedChannelMethod } from './methods/crank-speed';
 import { runEventDurationMethod } from './methods/event-duration';
 import { startedSentence } from './steps/cranking-end';
@@ -19,9 +19,10 @@ import { ENGINE_VERSION } from './version';
 import { cylinderIntervals } from './steps/interval';
 import { crossCheck as compareMethods } from './steps/cross-check';
 import { gradeCapture, holdAfterLow, holdHigh, holdMostLow, isThin, type Limits, settleStatuses } from './steps/status';
-import { quantileProbe } from './dsp/stats';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
 import { teethOf, wheelNotation } from './teeth/wheel';
+import { measureStarting, type StartingFigures } from './starting/measure';
+import { checkStartingSystem, type StartingSystem } from './starting/check';
 
 const MIN_RPM = 100;
 const MAX_RPM = 400;
@@ -121,6 +122,8 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     const skipped = result.window.startS - firstTooth;
     result.warnings.push(warning('UNSTEADY_START', `The first ${skipped.toFixed(1)} s of crank teeth were unsteady (the starter engaging, or lost, extra or noisy edges) and were left out; the steady cranking from ${result.window.startS.toFixed(1)} s was read.`));
   }
+  const startingSystem = checkStarting(columns, result, settings);
+  if (distortedByStarting(result, startingSystem)) settle(result.cylinders, result.method, result.warnings, result.wheel, setup, limits);
 
   let crossCheck: AnalysisResult['crossCheck'];
   const electrical: Method | null = hasCurrent ? 'current' : hasBattery ? 'battery' : null;
@@ -165,9 +168,71 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
       rotation,
       teeth: settings.teeth ? wheelNotation(settings.teeth) : undefined,
     },
+    startingSystem,
     crossCheck,
   };
 }
+
+/** The battery and starter from the electrical channels, and the cranking speed. */
+function checkStarting(columns: CaptureColumns, result: MethodResult, settings: AnalysisSettings): StartingSystem | undefined {
+  const figures = columns.time ? measureStarting({ time: columns.time, current: columns.current, battery: columns.battery, window: result.window }) : null;
+  if (!figures && !(result.crankingRpm > 0)) return undefined;
+  // An electrical method that found no compression found no cranking speed either (a stalled starter reads its ripple).
+  const noSpeed = result.method !== 'crank-speed' && result.method !== 'event-duration' && result.warnings.some((w) => w.code === 'NO_COMPRESSION' || w.code === 'NO_CRANKING');
+  return checkStartingSystem(figures ?? NOTHING_MEASURED, noSpeed ? null : result.crankingRpm || null, settings.starting);
+}
+
+/**
+ * Points added to each side of every interval when the engine cranked slower than the starting-system limit:
+ * slow cranking moves the figures further than their events show (measured on the simulator's weak-battery and
+ * dragging-starter families, where the intervals without it held 83–84 % of the truths on the electrical methods).
+ */
+const SLOW_CRANKING_POINTS = 4;
+/**
+ * Below this share of the slowest cranking speed the electrical and event-duration methods give no figures: the
+ * starter's one-way clutch lets go between compressions, so its current no longer follows the crank and each
+ * event's duration follows the starter catching up (on the simulator's weak-battery and dragging-starter families
+ * their figures went wrong from about 120 rpm down, and held above it).
+ */
+const OVERRUN_SHARE = 0.8;
+
+/**
+ * Figures read through a starting-system fault. A crank slower than the analysis needs gives no figures at all;
+ * cranking slower than the starting-system limit widens every interval, and well below it the electrical and
+ * event-duration methods give no figures (OVERRUN_SHARE). True when figures changed.
+ */
+function distortedByStarting(result: MethodResult, s: StartingSystem | undefined): boolean {
+  if (!result.cylinders.some((c) => c.relativePercent !== null)) return false;
+  const status = (key: string) => s?.checks.find((c) => c.key === key)?.status;
+  const slow = status('cranking-speed') === 'low';
+  const speed = s?.checks.find((c) => c.key === 'cranking-speed');
+  const crawling = speed?.value != null && speed.threshold !== null && speed.value < OVERRUN_SHARE * speed.threshold;
+  const drawHigh = status('cranking-current') === 'high';
+  const fault = !!s?.weakBattery || drawHigh;
+  const cause = s?.weakBattery ? 'The battery is weak' : drawHigh ? 'The starter draws too much' : 'The engine cranked slowly';
+  const electrical = result.method === 'current' || result.method === 'battery';
+  // Event durations at a crawl follow the starter catching the crank up, not the compression.
+  const starterBound = electrical || result.method === 'event-duration';
+  const tooSlow = result.warnings.some((w) => w.code === 'CRANKING_TOO_SLOW');
+  if (tooSlow || (starterBound && crawling)) {
+    for (const c of result.cylinders) {
+      c.relativePercent = null;
+      c.interval = null;
+      c.plainPercent = null;
+      c.perCycle = [];
+    }
+    const why = tooSlow ? 'the crank turned too slowly to compare cylinders' : electrical ? 'the starter’s current no longer follows the crank' : 'each event’s duration follows the starter catching the crank up';
+    if (fault || slow) result.warnings.push(warning('WEAK_BATTERY', `${cause} (see the starting system) and ${why}: no figures are given. Put the battery or starter right and record again${electrical && !tooSlow ? ', or record the crank sensor' : ''}.`));
+    return true;
+  }
+  if (slow) {
+    for (const c of result.cylinders) if (c.interval) c.interval = [Math.max(0, Math.round((c.interval[0] - SLOW_CRANKING_POINTS) * 10) / 10), Math.round((c.interval[1] + SLOW_CRANKING_POINTS) * 10) / 10];
+  }
+  if (slow || fault) result.warnings.push(warning('WEAK_BATTERY', `${cause} (see the starting system): slow, uneven cranking moves the figures${slow ? ', so their ranges are wider' : ''}; put it right and record again before acting on a close call.`));
+  return slow;
+}
+
+const NOTHING_MEASURED: StartingFigures = { systemV: 12, engagedAtS: null, restingV: null, inrushMinV: null, crankingMinV: null, crankingMeanV: null, inrushPeakA: null, crankingMeanA: null, internalMilliOhm: null };
 
 function toMethodResult(
   method: Method,
@@ -314,9 +379,7 @@ function wheelForDurations(read: CrankTeeth, marks: CaptureColumns['marks']): { 
 
 /** A clamp put on backwards reads the cranking current negative: read its magnitude, and say so. */
 function orientCurrent(current: Float64Array): { current: Float64Array; notice?: QualityWarning } {
-  const lo = quantileProbe(current, 0.02, 50_000);
-  const hi = quantileProbe(current, 0.98, 50_000);
-  if (!(lo < -20 && -lo > 2 * Math.max(0, hi))) return { current };
+  if (!clampReversed(current)) return { current };
   return {
     current: current.map((v) => -v),
     notice: warning('CLAMP_REVERSED', 'The current reads negative while cranking: the clamp is on backwards. The capture was read as its magnitude; turn the clamp so its arrow points along the current next time.'),

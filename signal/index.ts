@@ -16,6 +16,7 @@ export type { EngineSetup, BankLayout, Numbering } from './engine/firing';
 export { describeWheel, parseWheel, wheelNotation } from './teeth/wheel';
 export type { ToothWheel } from './teeth/wheel';
 export type * from './types';
+export type { StartingCheck, StartingStatus, StartingSystem } from './starting/check';
 export type { QualityWarning, WarningCode } from './steps/warnings';
 export { refusalFor, SURE_MAPPING } from './steps/screen';
 export { NUMBERING_ASSUMED } from './steps/pattern';

@@ -4,6 +4,7 @@ import type { QualityWarning } from './steps/warnings';
 import type { CylinderMarks } from './import/edge-log';
 import type { ToothWheel } from './teeth/wheel';
 import type { METHOD_CHOICES } from './format';
+import type { StartingOptions, StartingSystem } from './starting/check';
 
 /** Decoded channels of one capture; every array is aligned with `time` except `toothTimes`. */
 export interface CaptureColumns {
@@ -56,6 +57,8 @@ export interface AnalysisSettings {
   rotation?: number;
   /** Crank sensor type for a sampled waveform. @default 'auto' */
   sensor?: 'auto' | 'hall' | 'vr';
+  /** The starting-system check's limits and the conditions it needs (temperature, displacement, fuel). */
+  starting?: StartingOptions;
 }
 
 export interface CylinderResult {
@@ -151,6 +154,8 @@ export interface AnalysisResult extends MethodResult {
     firingOrder: number[];
     teeth?: string;
   };
+  /** The battery and starter, as far as the capture's channels show them. */
+  startingSystem?: StartingSystem;
   /** The other method's result when the capture holds both current and crank channels. */
   crossCheck?: { method: Method; cylinders: { cylinder: number; relativePercent: number | null; status: CylinderStatus }[]; agree: boolean; maxDifference: number };
 }

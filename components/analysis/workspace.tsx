@@ -17,6 +17,7 @@ import type { WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';
 import { Findings } from './findings';
+import { StartingPanel } from './starting-panel';
 import { MappingDialog } from './mapping-dialog';
 import { ResultsTable } from './results-table';
 import { sameSettings } from './settings-differences';
@@ -264,6 +265,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, sav
                 </div>
               </section>
             )}
+            {result?.startingSystem && <StartingPanel system={result.startingSystem} />}
           </div>
           <aside aria-labelledby="setup-title" className="flex flex-col gap-3 rounded-2xl border border-line bg-surface p-4">
             <h2 id="setup-title" className="text-lg font-bold">

@@ -2,7 +2,7 @@
 import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { getDb } from '../client';
-import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';
+import { type ShopSettings, type ShopSettingsInput, shopSettingsFrom } from '@/domain/shop-settings';
 import { invitations, members, shopSettings, users } from '../schema';
 
 export async function listMembers(shopId: string) {
@@ -61,7 +61,7 @@ export async function getInvitation(shopId: string, invitationId: string) {
 }
 
 /** Sets the shop's settings and contact details (one row per shop, created on first save). */
-export async function saveShopSettings(shopId: string, settings: ShopSettings) {
+export async function saveShopSettings(shopId: string, settings: ShopSettingsInput) {
   const db = await getDb();
   await db
     .insert(shopSettings)

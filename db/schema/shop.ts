@@ -230,5 +230,9 @@ export const shopSettings = pgTable('shop_settings', {
   address: text().notNull().default(''),
   /** Days a done job keeps its captures and analyses (domain/retention.ts); null keeps them for ever. */
   retentionDays: integer(),
+  /** Gauge pressures in kPa, psi or bar (domain/shop-settings.ts). */
+  pressureUnit: text().notNull().default('kPa'),
+  /** The shop's starting-system limits (domain/starting-limits.ts); null uses the defaults. */
+  startingLimits: jsonb(),
   updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });

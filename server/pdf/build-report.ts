@@ -10,12 +10,15 @@ import type { ReportBundle } from '@/db/queries/reports';
 import { conditionRows, NR } from './format';
 import type { PdfTrace, ReportPdfData } from './report-document';
 import { vehicleName } from '@/domain/vehicle-name';
+import { ESTIMATE_CAUTION, type GaugeReading, gaugePressures } from '@/domain/gauge-pressures';
+import { type PressureUnit, shopSettingsFrom } from '@/domain/shop-settings';
+import { pressureIn, pressureText } from '@/domain/units';
 
 export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
   const v = b.vehicle;
   const e = v.engine;
   // A signed revision keeps the shop's settings as they were when it was signed.
-  const { timeZone, temperatureUnit } = b.shopSettings ?? (await getShopSettings(b.shop.id));
+  const { timeZone, temperatureUnit, pressureUnit } = shopSettingsFrom(b.shopSettings ?? (await getShopSettings(b.shop.id)));
   const analyses = [];
   for (const a of b.analyses) {
     const result = a.analysis.result;
@@ -50,7 +53,25 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
     interpretation: b.content.interpretation,
     nextSteps: b.content.nextSteps,
     analyses,
+    pressures: b.content.gauge && analyses[0] ? pressureRows(gaugePressures(analyses[0].result, b.content.gauge), b.content.gauge, pressureUnit) : undefined,
     cautions: CAUTIONS,
     limits: TEST_LIMITS,
+  };
+}
+
+/** The estimated gauge pressures as the PDF prints them, in the shop's unit. */
+function pressureRows(p: ReturnType<typeof gaugePressures>, g: GaugeReading, unit: PressureUnit): NonNullable<ReportPdfData['pressures']> {
+  const heading = `Gauge on cylinder ${g.cylinder}: ${pressureText(g.readingKpa, unit)} (± ${g.accuracyPercent} %)${g.minimumKpa !== undefined ? `; minimum ${pressureText(g.minimumKpa, unit)}` : ''}${g.maxDifferencePercent !== undefined ? `; largest difference ${g.maxDifferencePercent} % of the highest` : ''}.`;
+  if ('problem' in p) return { heading, rows: [], sentence: p.problem, caution: ESTIMATE_CAUTION };
+  return {
+    heading,
+    rows: p.cylinders.map((c) => ({
+      cylinder: c.cylinder,
+      estimate: c.kpa === null ? '—' : `${pressureIn(c.kpa, unit)} ${unit}${c.gauged ? ' (gauged)' : ''}`,
+      range: c.interval ? `${pressureIn(c.interval[0], unit)}–${pressureIn(c.interval[1], unit)} ${unit}` : '—',
+      status: g.minimumKpa === undefined ? '' : c.status,
+    })),
+    sentence: `${p.sentence}${p.spread ? ` Weakest at ${p.spread.lowestShare} % of the strongest (at least ${p.spread.allowedShare} % allowed).` : ''}`,
+    caution: ESTIMATE_CAUTION,
   };
 }

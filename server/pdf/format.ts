@@ -11,12 +11,17 @@ export function conditionRows(c: Conditions, r?: AnalysisResult, unit: Temperatu
   const v = (x: number | undefined, unit: string) => (x === undefined ? NR : `${x} ${unit}`);
   return [
     ['Coolant temperature', c.coolantTempC === undefined ? NR : temperatureText(c.coolantTempC, unit)],
-    ['Battery rest voltage', v(c.batteryRestV, 'V')],
-    ['Lowest cranking voltage', v(c.lowestCrankingV, 'V')],
+    // Typed by the technician, else as the capture measured it (said so), else not recorded.
+    ['Battery rest voltage', c.batteryRestV !== undefined ? v(c.batteryRestV, 'V') : measured(r?.startingSystem?.restingV)],
+    ['Lowest cranking voltage', c.lowestCrankingV !== undefined ? v(c.lowestCrankingV, 'V') : measured(r?.startingSystem?.crankingMinV)],
     ['Mean cranking speed', r ? `${r.crankingRpm} rpm (measured)` : NR],
     ['Throttle position', c.throttle === 'wide-open' ? 'wide open' : c.throttle === 'closed' ? 'closed' : NR],
     ['Fuel disabled by', c.fuelDisabledBy ?? NR],
     ['Sync source', c.syncSource ?? (r ? (r.identity === 'assumed' ? 'none (numbers assumed)' : `capture: ${identityWords(r.identity)}`) : NR)],
     ['Firing order and numbering', r ? `${r.settings.firingOrder.join('-')}${c.numbering ? `, ${c.numbering}` : ''}` : (c.numbering ?? NR)],
   ];
+}
+
+function measured(volts: number | null | undefined): string {
+  return volts === null || volts === undefined ? NR : `${volts.toFixed(2)} V (measured)`;
 }

@@ -38,6 +38,8 @@ export interface ReportPdfData {
   interpretation: string;
   nextSteps: string[];
   analyses: PdfAnalysis[];
+  /** Estimated gauge pressures from one gauge reading, where one was entered. */
+  pressures?: { heading: string; rows: { cylinder: number; estimate: string; range: string; status: string }[]; sentence: string; caution: string };
   cautions: readonly string[];
   limits: string;
 }
@@ -116,6 +118,8 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
             )}
             <Text style={s.h2}>Figures</Text>
             <Figures r={r} />
+            {d.pressures && <PressureSection p={d.pressures} />}
+            {r.startingSystem && <StartingSection system={r.startingSystem} />}
             {r.warnings.length > 0 && (
               <>
                 <Text style={s.h2}>Warnings</Text>
@@ -176,6 +180,49 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
 
       </Page>
     </Document>
+  );
+}
+
+/** Estimated gauge pressures: a column per cylinder's estimate and its 90 % range, then the sentence and the caution. */
+function PressureSection({ p }: { p: NonNullable<ReportPdfData['pressures']> }) {
+  return (
+    <View wrap={false}>
+      <Text style={s.h2}>Estimated gauge pressures</Text>
+      <Text>{p.heading}</Text>
+      {p.rows.map((row) => (
+        <View key={row.cylinder} style={s.row}>
+          <Text style={s.cellLabel}>{`Cylinder ${row.cylinder}`}</Text>
+          <Text style={{ width: 130 }}>{row.estimate}</Text>
+          <Text style={{ width: 130 }}>{`90 %: ${row.range}`}</Text>
+          <Text style={{ color: row.status === 'below minimum' ? C.low : row.status === 'ok' ? C.ok : C.muted }}>{row.status}</Text>
+        </View>
+      ))}
+      <Text style={{ fontWeight: 700 }}>{p.sentence}</Text>
+      <Text style={s.small}>{p.caution}</Text>
+    </View>
+  );
+}
+
+const STARTING_WORD = { ok: 'within limit', low: 'below limit', high: 'above limit', 'not measured': 'not in this capture' } as const;
+
+/** The battery and starter: each check, its limit and the limit's source, then what to do. */
+function StartingSection({ system }: { system: NonNullable<AnalysisResult['startingSystem']> }) {
+  return (
+    <View wrap={false}>
+      <Text style={s.h2}>{`Battery and starter (${system.systemV} V system)`}</Text>
+      {system.checks.map((c) => (
+        <View key={c.key} style={s.row}>
+          <Text style={s.cellLabel}>{c.label}</Text>
+          <Text style={{ width: 70 }}>{c.value === null ? '—' : `${c.unit === 'V' ? c.value.toFixed(2) : c.value.toFixed(c.unit === 'mΩ' ? 1 : 0)} ${c.unit}`}</Text>
+          <Text style={{ width: 80, color: c.status === 'ok' ? C.ok : c.status === 'not measured' ? C.muted : C.low }}>{STARTING_WORD[c.status]}</Text>
+          <Text style={[s.small, { flex: 1 }]}>{`${c.limit}; ${c.source}`}</Text>
+        </View>
+      ))}
+      {system.advice.map((a, i) => (
+        <Text key={i} style={{ fontWeight: 700 }}>{a}</Text>
+      ))}
+      {system.advice.length === 0 && system.customerLine ? <Text>{system.customerLine}</Text> : null}
+    </View>
   );
 }
 

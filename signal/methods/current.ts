@@ -7,7 +7,7 @@ import { type EngineSetup, firingIntervals } from '../engine/firing';
 import { indexAtTime } from '../dsp/decimate';
 import { estimateRate } from '../dsp/event-rate';
 import { blockMean, movingAverage } from '../dsp/smooth';
-import { median, quantile } from '../dsp/stats';
+import { median, quantile, quantileProbe } from '../dsp/stats';
 import { windowFromCurrent, type CrankingWindow } from '../steps/cranking-window';
 import { type CrankMotion, motionFromCurrent } from '../steps/crank-motion';
 import { findPeaks } from '../steps/find-peaks';
@@ -217,4 +217,11 @@ function alignIntervals(marks: number[], iv: number[]): number[] {
     }
   }
   return d.map((_, k) => iv[(bestShift + k) % n]);
+}
+
+/** A current that reads strongly negative while cranking: the clamp is on backwards. */
+export function clampReversed(current: Float64Array): boolean {
+  const lo = quantileProbe(current, 0.02, 50_000);
+  const hi = quantileProbe(current, 0.98, 50_000);
+  return lo < -20 && -lo > 2 * Math.max(0, hi);
 }

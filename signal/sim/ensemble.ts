@@ -9,7 +9,11 @@ import { seededRandom, type Random } from '../dsp/random';
 import type { EngineSetup } from '../engine/firing';
 import type { LeakModel, SimOptions } from './simulate';
 
-export type EnsembleFamily = 'ensemble' | 'held-out';
+/**
+ * `weak-battery` (25–40 mΩ) and `dragging-starter` (a drag of 12–22 % of the starter's stall torque) are the
+ * ensemble with a starting-system fault: the check must name it, and the compression figures stay honest on it.
+ */
+export type EnsembleFamily = 'ensemble' | 'held-out' | 'weak-battery' | 'dragging-starter';
 
 /** The physics of one drawn engine, and its leak pattern. */
 export interface EnsembleDraw {
@@ -68,6 +72,10 @@ export function drawEngine(engine: EngineSetup, seed: number, family: EnsembleFa
     frictionSquare: uniform(rnd, 0, 0.015),
     heatLossPerS: family === 'held-out' ? uniform(rnd, 3, 12) : 0,
   };
+  // The faults from their own draw, so each engine is the ensemble's with only the fault added.
+  const fault = seededRandom(0xfa17 + 7907 * seed);
+  if (family === 'weak-battery') physics.batteryOhm = uniform(fault, 0.025, 0.04);
+  if (family === 'dragging-starter') physics.starterDrag = uniform(fault, 0.12, 0.22);
   const { leak, kind } = drawLeaks(rnd, engine, leakModel);
   // The VR sensor from its own draw (so the engines stay as they were): the flux model's wave, a few tenths of a
   // volt to over a volt, either polarity, recorded at 20 kHz.
@@ -76,6 +84,6 @@ export function drawEngine(engine: EngineSetup, seed: number, family: EnsembleFa
   physics.vrScale = uniform(sensor, 0.3, 1.2);
   physics.vrInverted = sensor.next() < 0.5;
   const f = (v: number | undefined, d = 2) => (v ?? 0).toFixed(d);
-  const label = `${kind} (${leakModel}) n=${f(physics.n)} ivc=${f(physics.ivcAbdcDeg, 0)} J×${f(physics.inertiaScale)} Rb=${f(1000 * physics.batteryOhm!, 0)}mΩ h=${f(physics.heatLossPerS, 1)}`;
+  const label = `${kind} (${leakModel}) n=${f(physics.n)} ivc=${f(physics.ivcAbdcDeg, 0)} J×${f(physics.inertiaScale)} Rb=${f(1000 * physics.batteryOhm!, 0)}mΩ h=${f(physics.heatLossPerS, 1)}${physics.starterDrag ? ` drag=${f(physics.starterDrag)}` : ''}`;
   return { family, physics, leakPerS: leak, label };
 }

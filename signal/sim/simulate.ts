@@ -98,6 +98,11 @@ export interface SimOptions {
   viscousScale?: number;
   /** Friction rising with the square of speed, N·m per (rad/s)². @default 0 */
   frictionSquare?: number;
+  /**
+   * A dragging starter (worn bushes, an armature rubbing its field): a friction torque on the armature, reflected
+   * to the crank, as a share of the starter's stall torque. It draws more current for less speed. @default 0
+   */
+  starterDrag?: number;
   channels?: SimChannel[];
 }
 
@@ -109,6 +114,19 @@ export interface SimTruth {
   meanRpm: number;
   /** Cycles completed while the starter was engaged. */
   cycles: number;
+  /** The starting system as simulated: what a starting-system check should read. */
+  starting: {
+    /** Battery rest voltage, V. */
+    restingV: number;
+    /** Resistance inside the battery, between its rest voltage and its terminals, Ω. */
+    batteryOhm: number;
+    /** Highest current, A (the inrush as the starter engages). */
+    inrushPeakA: number;
+    /** Mean current while cranking steadily, A. */
+    crankingMeanA: number;
+    /** Lowest terminal voltage while cranking steadily, V. */
+    crankingMinV: number;
+  };
 }
 
 export interface SimResult {
@@ -204,6 +222,7 @@ export function simulateCranking(options: SimOptions): SimResult {
   // cable), so the engine cranks slower yet still cranks: an engine that does not turn is no compression test.
   const rTotal = rNominal * (1 + (0.25 * (batteryOhm - 0.011 + (o.cableOhm ?? 0))) / 0.018);
   const rBattery = Math.min(0.7 * rTotal, batteryOhm * Math.min(1, rNominal / 0.017));
+  const dragNm = (o.starterDrag ?? 0) * stallNm;
   const gearRatio = 12;
   const commutatorSegments = 24;
 
@@ -241,6 +260,10 @@ export function simulateCranking(options: SimOptions): SimResult {
   let rpmCount = 0;
   const steadyFrom = onS + 0.8;
   let currentNow = 0;
+  let inrushPeak = 0;
+  let steadyCurrentSum = 0;
+  let steadyCurrentCount = 0;
+  let steadyCurrentMax = 0;
   const psiOf = (c: number, th: number) => {
     let psi = (th - phases[c]) % 720;
     if (psi < -360) psi += 720;
@@ -287,7 +310,13 @@ export function simulateCranking(options: SimOptions): SimResult {
         }
       }
       currentNow = engaged ? Math.max(0, (batteryV - motorK * omegaArm) / rTotal) : 0;
-      const motorNm = motorK * currentNow;
+      const motorNm = motorK * currentNow - (engaged ? dragNm : 0);
+      if (currentNow > inrushPeak) inrushPeak = currentNow;
+      if (engaged && t > steadyFrom) {
+        steadyCurrentSum += currentNow;
+        steadyCurrentCount++;
+        steadyCurrentMax = Math.max(steadyCurrentMax, currentNow);
+      }
       const friction = omega > 1e-6 ? frictionNm + viscousNmPerRad * omega + frictionSquare * omega * omega : 0;
       const springNm = omega > 1e-6 ? -valveSpringNm * Math.sin(n * theta * RAD) : 0;
       const load = gasNm + springNm - friction;
@@ -383,7 +412,19 @@ export function simulateCranking(options: SimOptions): SimResult {
     battery,
     camEdges: o.camWindowDeg ? cam : undefined,
     toothTimes: Float64Array.from(tooth),
-    truth: { peakKpa, relativePercent, meanRpm: (meanOmega * 60) / (2 * Math.PI), cycles },
+    truth: {
+      peakKpa,
+      relativePercent,
+      meanRpm: (meanOmega * 60) / (2 * Math.PI),
+      cycles,
+      starting: {
+        restingV: batteryV,
+        batteryOhm: rBattery,
+        inrushPeakA: inrushPeak,
+        crankingMeanA: steadyCurrentCount ? steadyCurrentSum / steadyCurrentCount : 0,
+        crankingMinV: batteryV - steadyCurrentMax * rBattery,
+      },
+    },
   };
 }
 

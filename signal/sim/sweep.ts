@@ -122,6 +122,8 @@ export class SweepTally {
     const list = <T>(m: Map<SweepMethod, T[]>) => m.get(method) ?? (m.set(method, []), m.get(method)!);
     for (let i = 0; i < engine.cylinders; i++) {
       const t = truth[i];
+      // An engine the starter could not turn has no truth to hold a figure against.
+      if (!Number.isFinite(t)) continue;
       const where = `${name} ${method} ${kind} cyl ${i + 1}`;
       if ((t >= 95 && status[i] === 'low') || (t < 80 && status[i] === 'ok')) {
         this.wrong.push(`${where}: truth ${t.toFixed(0)}, read ${got[i]} ${status[i]}`);

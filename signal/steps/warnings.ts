@@ -33,7 +33,8 @@ export type WarningCode =
   | 'HIGH_HELD'
   | 'MOST_LOW_HELD'
   | 'UNSTEADY_START'
-  | 'EVENTS_OVERLAP';
+  | 'EVENTS_OVERLAP'
+  | 'WEAK_BATTERY';
 
 export interface QualityWarning {
   code: WarningCode;

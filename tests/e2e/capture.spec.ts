@@ -7,16 +7,9 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { expect, type Page, test } from '@playwright/test';
 import { simulateCranking } from '../../signal/sim/simulate';
 import { simToCsv } from '../../signal/sim/to-csv';
-import { DEMO, pastCautions, signIn, uploadOnJobPage } from './helpers';
+import { DEMO, pastCautions, signIn, signInAs, uploadOnJobPage } from './helpers';
 
 mkdirSync('artifacts/screens', { recursive: true });
-
-async function signInAs(page: Page, role: 'technician' | 'advisor' | 'owner') {
-  await page.goto('/sign-in');
-  await page.getByRole('button', { name: new RegExp(role, 'i') }).click();
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByRole('heading', { name: 'Jobs' })).toBeVisible();
-}
 
 async function openJob(page: Page, ro: string) {
   await page.getByRole('link', { name: ro }).click();

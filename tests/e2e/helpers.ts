@@ -82,3 +82,11 @@ export async function uploadOnJobPage(page: Page, file: string): Promise<void> {
   await pastCautions(page, uploader, 30_000);
   await uploader.locator('input[type=file]').first().setInputFiles(file);
 }
+
+/** Signs in through the page as one of the demo members, and waits for the jobs list. */
+export async function signInAs(page: Page, role: 'technician' | 'advisor' | 'owner'): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByRole('button', { name: new RegExp(role, 'i') }).click();
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await expect(page.getByRole('heading', { name: 'Jobs' })).toBeVisible();
+}

@@ -17,7 +17,16 @@ test('a new shop starts in the creator’s zone; the owner sets Berlin, °F, mil
   const owner = await signUpVerified(unique('zone-owner'), 'Zone Owner');
   const created = await owner.post('/api/shops', { data: { name: 'Zone Test Garage', timeZone: 'Asia/Kolkata' } });
   expect(created.status(), await created.text()).toBe(200);
-  expect((await (await owner.get('/api/shop')).json()).shop.settings).toEqual({ timeZone: 'Asia/Kolkata', temperatureUnit: 'C', distanceUnit: 'km', phone: '', address: '' });
+  // The defaults: kPa, and the starting-system limits with their sources (signal/starting/limits.ts).
+  const defaults = { crankingMinRpm: 150, crankingMinV: 9.6, currentBaseA: 80, currentPerLitreA: 50, internalMaxMilliOhm: 20, restingMinV: 12.4 };
+  expect((await (await owner.get('/api/shop')).json()).shop.settings).toEqual({ timeZone: 'Asia/Kolkata', temperatureUnit: 'C', distanceUnit: 'km', phone: '', address: '', pressureUnit: 'kPa', startingLimits: defaults });
+  // A limit out of range is refused in words; a good one is kept, and a later change that leaves the limits out keeps them.
+  const wrongLimit = await owner.patch('/api/shop', { data: { timeZone: 'Asia/Kolkata', temperatureUnit: 'C', startingLimits: { ...defaults, crankingMinV: 30 } } });
+  expect(wrongLimit.status()).toBe(400);
+  expect(JSON.stringify((await wrongLimit.json()).error)).toContain('The cranking voltage limit must be between 6 and 12 V.');
+  expect((await owner.patch('/api/shop', { data: { timeZone: 'Asia/Kolkata', temperatureUnit: 'C', pressureUnit: 'bar', startingLimits: { ...defaults, crankingMinV: 9.8 } } })).status()).toBe(200);
+  expect((await owner.patch('/api/shop', { data: { timeZone: 'Asia/Kolkata', temperatureUnit: 'C' } })).status()).toBe(200);
+  expect((await (await owner.get('/api/shop')).json()).shop.settings).toMatchObject({ pressureUnit: 'bar', startingLimits: { crankingMinV: 9.8 } });
   // A zone the database does not know is refused in words.
   const bad = await owner.patch('/api/shop', { data: { timeZone: 'Mars/Olympus', temperatureUnit: 'C' } });
   expect(bad.status()).toBe(400);

@@ -5,6 +5,7 @@ import { notFound } from 'next/navigation';
 import { LogoMark } from '@/components/brand/logo';
 import { CustomerBars } from '@/components/report/customer-bars';
 import { customerFindings } from '@/domain/customer-words';
+import { ESTIMATE_CAUTION, gaugePressures } from '@/domain/gauge-pressures';
 import { approvalThroughLink, findShareLink, reportBundle } from '@/db/queries/reports';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
@@ -28,6 +29,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
   const b = link && (await reportBundle(link.shopId, link.reportId));
   if (!link || !b) notFound();
   const r = b.analyses[0]?.analysis.result;
+  const pressures = r && b.content.gauge ? gaugePressures(r, b.content.gauge) : null;
   const vehicle = vehicleName(b.vehicle);
   const low = r?.cylinders.filter((c) => c.status === 'low') ?? [];
   const { timeZone, phone, address } = await getShopSettings(link.shopId);
@@ -61,6 +63,16 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
           </ul>
           <CustomerBars cylinders={r.cylinders} lowLimit={r.settings.lowLimitPercent} />
           <p className="mt-2 text-base">This is a screening test; the next step confirms it.</p>
+          {pressures && !('problem' in pressures) && (
+            <p className="mt-2 text-base" data-testid="customer-pressures">
+              {pressures.sentence} {ESTIMATE_CAUTION}
+            </p>
+          )}
+          {r.startingSystem?.customerLine && (
+            <p className="mt-2 text-base" data-testid="customer-starting">
+              {r.startingSystem.customerLine}
+            </p>
+          )}
         </section>
       )}
       <section aria-labelledby="next" className="rounded-2xl border-2 border-brand bg-surface p-4">

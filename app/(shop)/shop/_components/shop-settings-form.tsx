@@ -1,5 +1,5 @@
 'use client';
-/** Owners set the time zone, the units and how customers reach the shop; the same zod schema as the route. */
+/** Owners set the time zone, the units, how customers reach the shop and the starting-system limits; the same zod schema as the route. */
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
@@ -7,14 +7,15 @@ import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
 import { api, errorText } from '@/components/data/api';
-import { type ShopSettings, shopSettingsSchema } from '@/domain/shop-settings';
+import { type ShopSettings, type ShopSettingsInput, shopSettingsSchema } from '@/domain/shop-settings';
+import { LIMIT_SOURCES } from '@/domain/starting-limits';
 import type { z } from 'zod';
 import { timeZoneNames } from '@/domain/time';
 
 export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
   const router = useRouter();
   const [note, setNote] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
-  const { register, handleSubmit, formState, watch } = useForm<z.input<typeof shopSettingsSchema>, unknown, ShopSettings>({ resolver: zodResolver(shopSettingsSchema), defaultValues: settings });
+  const { register, handleSubmit, formState, watch } = useForm<z.input<typeof shopSettingsSchema>, unknown, ShopSettingsInput>({ resolver: zodResolver(shopSettingsSchema), defaultValues: settings });
   const zone = watch('timeZone');
   return (
     <form
@@ -51,6 +52,21 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
           <option value="mi">mi (miles)</option>
         </Select>
       </Field>
+      <Field id="pressure-unit" label="Pressure" error={formState.errors.pressureUnit?.message} hint="Gauge readings are typed, and estimated gauge pressures shown, in this unit.">
+        <Select id="pressure-unit" defaultValue={settings.pressureUnit} {...register('pressureUnit')}>
+          <option value="kPa">kPa (kilopascals)</option>
+          <option value="psi">psi (pounds per square inch)</option>
+          <option value="bar">bar</option>
+        </Select>
+      </Field>
+      <fieldset className="flex flex-col gap-2 rounded border border-line p-3">
+        <legend className="px-1 font-bold">Starting-system limits (12 V; a 24 V system doubles the voltages)</legend>
+        {LIMIT_FIELDS.map((f) => (
+          <Field key={f.key} id={`limit-${f.key}`} label={f.label} error={formState.errors.startingLimits?.[f.key]?.message} hint={f.hint}>
+            <Input id={`limit-${f.key}`} inputMode="decimal" className="figures" invalid={!!formState.errors.startingLimits?.[f.key]} {...register(`startingLimits.${f.key}`, { setValueAs: typedNumber })} />
+          </Field>
+        ))}
+      </fieldset>
       <Field id="shop-phone" label="Phone for customers" error={formState.errors.phone?.message} hint="Shown on the customer’s report page beside the buttons, so they can call before they answer.">
         <Input id="shop-phone" type="tel" autoComplete="tel" invalid={!!formState.errors.phone} {...register('phone')} />
       </Field>
@@ -63,4 +79,19 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
       </Button>
     </form>
   );
+}
+
+const LIMIT_FIELDS: { key: keyof ShopSettings['startingLimits']; label: string; hint: string }[] = [
+  { key: 'restingMinV', label: 'Lowest resting voltage (V)', hint: `Default 12.4 V; ${LIMIT_SOURCES.resting}.` },
+  { key: 'crankingMinV', label: 'Lowest voltage while cranking, at about 21 °C (V)', hint: `Default 9.6 V; ${LIMIT_SOURCES.crankingVoltage}.` },
+  { key: 'internalMaxMilliOhm', label: 'Highest battery resistance (mΩ)', hint: `Default 20 mΩ; ${LIMIT_SOURCES.internalResistance}.` },
+  { key: 'currentBaseA', label: 'Cranking current: base (A)', hint: 'Default 80 A; with the next, the most a petrol engine may draw (twice for a diesel).' },
+  { key: 'currentPerLitreA', label: 'Cranking current: per litre of displacement (A)', hint: `Default 50 A; ${LIMIT_SOURCES.crankingCurrent}.` },
+  { key: 'crankingMinRpm', label: 'Slowest cranking speed (rpm)', hint: `Default 150 rpm; ${LIMIT_SOURCES.crankingSpeed}.` },
+];
+
+/** A typed number as the schema takes it: a comma for the decimal point is read, anything else not a number stays NaN (and is named). */
+function typedNumber(v: unknown): number {
+  const t = String(v ?? '').trim().replace(',', '.');
+  return t === '' ? Number.NaN : Number(t);
 }

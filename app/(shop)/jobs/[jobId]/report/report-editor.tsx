@@ -15,6 +15,7 @@ import { api, errorText } from '@/components/data/api';
 import { interpretationFor, nextStepsFor } from '@/domain/report-wording';
 import type { ReportContent } from '@/domain/report';
 import { ConditionFields } from './condition-fields';
+import { GaugeFields } from './gauge-fields';
 import { EMPTY, type ReportData, type Revision } from './report-data';
 import { ReportDelivery } from './report-delivery';
 
@@ -115,6 +116,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
           <p className="text-sm text-muted">Two analyses of the vehicle (before and after a repair) are shown side by side.</p>
         </fieldset>
         <ConditionFields conditions={c.conditions} readOnly={readOnly} onChange={setCond} />
+        <GaugeFields key={loadedFor ?? 'new'} gauge={c.gauge} result={first?.result} readOnly={readOnly} onChange={(gauge) => set({ gauge })} />
         <fieldset disabled={readOnly} className="flex flex-col gap-2 rounded-2xl border border-line bg-surface p-4">
           <legend className="px-1 text-lg font-bold">Interpretation and next steps</legend>
           <Field id="interp" label="Interpretation">

@@ -24,7 +24,7 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
   const [job, capture, cautionsRead] = await Promise.all([getJob(m.shop.id, jobId), getCapture(m.shop.id, captureId), cautionsReadAt(m.shop.id, m.user.id, jobId)]);
   if (!job || !capture || capture.jobId !== job.id) notFound();
   const history = await listAnalyses(m.shop.id, capture.id);
-  const fromVehicle = settingsForEngine(job.vehicle.engine);
+  const fromVehicle = settingsForEngine(job.vehicle.engine, m.shop.settings.startingLimits);
   // A saved analysis opened from the list (?a=…) starts from its settings; otherwise the latest save's, or the job's engine.
   const opened = history.find((h) => h.id === openedId) ?? null;
   const settingsOf = (h: (typeof history)[number] | undefined) => {

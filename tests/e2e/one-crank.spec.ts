@@ -1,0 +1,71 @@
+/**
+ * One crank, the whole answer: the starting-system panel on the workspace, and gauge-equivalent pressures from one
+ * gauge reading in the report editor, the PDF (pdftotext) and the customer's page. Check values: gauge tests pass
+ * when the lowest cylinder is at least 70 % of the highest (factory service information, several makes;
+ * ../shared/design/TRADE.md).
+ */
+import { execFileSync } from 'node:child_process';
+import { expect, test } from '@playwright/test';
+import { pastCautions, signInAs } from './helpers';
+
+test('the workspace shows the battery and starter beside their limits and sources', async ({ page }) => {
+  await signInAs(page, 'technician');
+  const jobs = (await (await page.request.get('/api/jobs')).json()).jobs;
+  const job = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24104');
+  const captures = (await (await page.request.get(`/api/jobs/${job.id}/captures`)).json()).captures;
+  await page.goto(`/jobs/${job.id}/captures/${captures[0].id}`);
+  await pastCautions(page, page.getByTestId('cylinder-chart'));
+  const panel = page.getByTestId('starting-system');
+  await expect(panel).toContainText('Battery and starter');
+  await expect(panel).toContainText('Mean cranking current');
+  await expect(panel).toContainText('Cranking speed');
+  await expect(panel).toContainText('from memory');
+  await panel.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'artifacts/screens/starting-system.png', fullPage: true });
+  // The saved analysis carries it for the API.
+  const stored = await (await page.request.get(`/api/captures/${captures[0].id}`)).json();
+  expect(stored.analyses[0].result.startingSystem.checks.map((c: { key: string }) => c.key)).toEqual(['resting', 'cranking-voltage', 'internal-resistance', 'cranking-current', 'cranking-speed']);
+});
+
+test('one gauge reading gives every cylinder an estimated pressure: on screen, in the PDF and on the customer’s page', async ({ page, browser }) => {
+  await signInAs(page, 'technician');
+  await page.getByRole('link', { name: 'RO-24101' }).click();
+  await page.getByRole('link', { name: /Write the report|Open the report/ }).click();
+  const gauge = page.getByTestId('gauge-fields');
+  await expect(gauge).toBeVisible();
+  await gauge.getByLabel('Cylinder gauged').selectOption('1');
+  // The demo shop reads pressures in psi. A half-typed reading says what is wrong and changes nothing.
+  await gauge.getByLabel('Reading (psi)').fill('1,,');
+  await expect(gauge).toContainText('Enter the gauge reading.');
+  await expect(page.getByTestId('gauge-estimates')).toHaveCount(0);
+  await gauge.getByLabel('Reading (psi)').fill('150');
+  await gauge.getByLabel('Specification: minimum (psi)').fill('100');
+  await gauge.getByLabel('Specification: largest difference (% of highest)').fill('30');
+  const table = page.getByTestId('gauge-estimates');
+  await expect(table).toContainText('1 (gauged)');
+  await expect(table).toContainText('150');
+  await expect(table).toContainText(/at least 70 % allowed/);
+  await table.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'artifacts/screens/gauge-pressures.png', fullPage: true });
+  await page.getByRole('button', { name: 'Save draft' }).click();
+  await expect(page.getByText(/Draft saved as revision \d+/)).toBeVisible();
+  const data = await (await page.request.get(`${new URL(page.url()).pathname.replace(/^\/jobs/, '/api/jobs')}`)).json();
+  const latest = data.revisions[0];
+  expect(latest.content.gauge).toMatchObject({ cylinder: 1, maxDifferencePercent: 30 });
+  expect(latest.content.gauge.readingKpa).toBeCloseTo(1034.2, 0);
+  const pdf = await page.request.get(`/api/reports/${latest.id}/pdf`);
+  const text = execFileSync('pdftotext', ['-layout', '-', '-'], { input: await pdf.body() }).toString();
+  expect(text).toContain('Estimated gauge pressures');
+  expect(text).toContain('Gauge on cylinder 1: 150 psi');
+  expect(text).toContain('150 psi (gauged)');
+  expect(text).toContain('a gauge test on any cylinder that matters confirms it');
+  expect(text).toContain('Battery and starter');
+  // Signed and shared: the customer reads one plain line on the pressures.
+  await page.getByRole('button', { name: `Sign revision ${latest.revision}` }).click();
+  await expect(page.getByText(`Revision ${latest.revision} is signed. Send it or share it with the customer below.`)).toBeVisible();
+  await page.getByRole('button', { name: 'Create a customer link (14 days)' }).click();
+  const url = (await page.getByTestId('share-url').textContent())!;
+  const customer = await (await browser.newContext()).newPage();
+  await customer.goto(url.replace(/^https?:\/\/[^/]+/, ''));
+  await expect(customer.getByTestId('customer-pressures')).toContainText('a gauge test on any cylinder that matters confirms it');
+});
