@@ -6,14 +6,19 @@ import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { hashPassword } from 'better-auth/crypto';
-import { sql } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { analyzeBytes } from '../signal';
+import { simulateCranking } from '../signal/sim/simulate';
+import { simToCsv } from '../signal/sim/to-csv';
+import { reportContentSchema } from '../domain/report';
+import { shopSettingsFrom } from '../domain/shop-settings';
+import { signedSnapshot } from './queries/report-bundle';
 import { traceExcerpt } from '../domain/trace-excerpt';
 import { compressPiece, insertChunks } from './chunks';
 import { engineSettings, settingsForEngine } from '@/domain/analysis-settings';
 import type { Db } from './db-type';
 import type { EngineSpec } from '../domain/engine';
-import { accounts, analyses, captures, jobs, members, organizations, shopSettings, users, vehicles } from './schema';
+import { accounts, analyses, captures, jobs, members, organizations, reports, shopSettings, users, vehicles } from './schema';
 import { vinCheckDigit } from '@/domain/vin';
 
 export const DEMO_PASSWORD = 'crank-demo-2026';
@@ -102,18 +107,54 @@ export async function seedDemoIfEmpty(db: Db): Promise<boolean> {
       const file = join(/*turbopackIgnore: true*/ process.cwd(), 'samples', j.sample);
       if (!existsSync(file)) continue;
       const bytes = new Uint8Array(readFileSync(file));
-      const sha256 = createHash('sha256').update(bytes).digest('hex');
-      const chunks: Uint8Array[] = [];
-      for (let o = 0; o < bytes.length; o += 1 << 20) chunks.push(compressPiece(bytes.subarray(o, o + (1 << 20))));
-      const captureId = crypto.randomUUID();
-      await tx.insert(captures).values({ id: captureId, shopId, jobId: job.id, fileName: j.sample, contentType: 'text/csv', sizeBytes: bytes.length, sha256, chunkCount: chunks.length, uploadedBy: ids[1], createdAt: at });
-      await insertChunks(tx, captureId, chunks);
-      const engine = DEMO_VEHICLES[j.vehicle].engine;
-      const settings = settingsForEngine(engine);
-      const { capture, result } = analyzeBytes(bytes, engineSettings(settings));
-      const trace = traceExcerpt(capture.columns, result) ?? null;
-      await tx.insert(analyses).values({ shopId, captureId, settings, engineVersion: result.engineVersion, fileSha256: sha256, result, trace, verdict: result.verdict, crankingRpm: result.crankingRpm, createdBy: ids[1], createdAt: at });
+      await insertAnalysedCapture(tx, { shopId, jobId: job.id, fileName: j.sample, bytes, engine: DEMO_VEHICLES[j.vehicle].engine, by: ids[1], at });
     }
+    // The hatchback's earlier visits: healthy captures in signed reports, the shop's baseline for its engine.
+    await seedHealthyHistory(tx, { shopId, vehicleId: vehicleIds[4], engine: DEMO_VEHICLES[4].engine, technician: ids[1] });
   });
   return true;
+}
+
+type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+/** One capture stored as uploaded, with its analysis saved as the server would; the analysis's id. */
+async function insertAnalysedCapture(tx: Tx, c: { shopId: string; jobId: string; fileName: string; bytes: Uint8Array; engine: EngineSpec; by: string; at: Date }): Promise<string> {
+  const sha256 = createHash('sha256').update(c.bytes).digest('hex');
+  const chunks: Uint8Array[] = [];
+  for (let o = 0; o < c.bytes.length; o += 1 << 20) chunks.push(compressPiece(c.bytes.subarray(o, o + (1 << 20))));
+  const captureId = crypto.randomUUID();
+  await tx.insert(captures).values({ id: captureId, shopId: c.shopId, jobId: c.jobId, fileName: c.fileName, contentType: 'text/csv', sizeBytes: c.bytes.length, sha256, chunkCount: chunks.length, uploadedBy: c.by, createdAt: c.at });
+  await insertChunks(tx, captureId, chunks);
+  const settings = settingsForEngine(c.engine);
+  const { capture, result } = analyzeBytes(c.bytes, engineSettings(settings));
+  const trace = traceExcerpt(capture.columns, result) ?? null;
+  const [row] = await tx
+    .insert(analyses)
+    .values({ shopId: c.shopId, captureId, settings, engineVersion: result.engineVersion, fileSha256: sha256, result, trace, verdict: result.verdict, crankingRpm: result.crankingRpm, createdBy: c.by, createdAt: c.at })
+    .returning({ id: analyses.id });
+  return row.id;
+}
+
+/** Visits of one vehicle, a month or more apart: each a done job, a healthy simulated capture and a signed report. */
+const HISTORY_VISITS = 6;
+
+async function seedHealthyHistory(tx: Tx, h: { shopId: string; vehicleId: string; engine: EngineSpec; technician: string }): Promise<void> {
+  const [settingsRow] = await tx.select().from(shopSettings).where(eq(shopSettings.shopId, h.shopId));
+  const settings = shopSettingsFrom(settingsRow);
+  for (let k = 0; k < HISTORY_VISITS; k++) {
+    const at = new Date(Date.now() - (40 + 35 * k) * 86_400_000);
+    const repairOrder = `RO-23${String(900 - 37 * k)}`;
+    const [job] = await tx
+      .insert(jobs)
+      .values({ shopId: h.shopId, vehicleId: h.vehicleId, repairOrder, odometer: 60_500 - 900 * k, odometerUnit: 'mi', concern: 'Scheduled service; a compression screen before the timing-belt job.', status: 'done', createdBy: h.technician, createdAt: at, updatedAt: at, doneAt: at })
+      .returning({ id: jobs.id });
+    // A healthy engine on a slightly different day each visit: battery charge, oil temperature (friction), starter wear.
+    const sim = simulateCranking({ engine: { cylinders: h.engine.cylinders, firingOrder: h.engine.firingOrder }, channels: ['current', 'sync', 'battery'], seed: 700 + k, targetRpm: 186 + 6 * k, batteryV: 12.45 + 0.04 * k, viscousScale: 0.8 + 0.12 * k });
+    const bytes = new TextEncoder().encode(simToCsv(sim, { channels: ['current', 'sync', 'battery'] }));
+    const analysisId = await insertAnalysedCapture(tx, { shopId: h.shopId, jobId: job.id, fileName: `visit-${k + 1}.csv`, bytes, engine: h.engine, by: h.technician, at });
+    const content = reportContentSchema.parse({ analysisIds: [analysisId], interpretation: 'All cylinders measured alike; no mechanical fault found by this screen.', technicianName: 'Demo Technician' });
+    const row = { id: crypto.randomUUID(), shopId: h.shopId, jobId: job.id, revision: 1, status: 'signed', version: 2, content, signedBy: h.technician, signedAt: at, snapshot: null, snapshotSha256: null, createdAt: at };
+    const { text, sha256 } = await signedSnapshot(tx, h.shopId, row, settings);
+    await tx.insert(reports).values({ ...row, snapshot: text, snapshotSha256: sha256 });
+  }
 }

@@ -8,6 +8,7 @@ export { CaptureImporter, importCapture, MAX_CAPTURE_BYTES } from './import/impo
 export type { ChannelInfo, ImportedCapture, ImportOptions } from './import/import-capture';
 export type { ChannelRole } from './import/map-channels';
 export { decimateMinMax, indexAtTime } from './dsp/decimate';
+export { median, quantile } from './dsp/stats';
 export { CaptureError, isCaptureError } from './errors';
 export { ENGINE_VERSION } from './version';
 export { ENGINE_PROFILES } from './engine/profiles';

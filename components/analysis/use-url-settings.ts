@@ -1,12 +1,12 @@
 'use client';
 /**
  * The workspace's analysis settings, kept in the URL (?s=…) so a reload or a hand-over keeps them; invalid or
- * absent → the defaults. A change applies at once (the URL follows when the router has replaced it), so a value
+ * absent → the defaults. A change applies at once (the URL follows through the history API), so a value
  * committed by leaving a field is the one a click on Save straight after sends. A URL changed from outside (a
  * link to a saved analysis, back and forward) is taken up, even while this page's own changes are on their way;
  * the URLs of those own changes are not, so quick changes never step back.
  */
-import { usePathname, useRouter, useSearchParams } from 'next/navigation';
+import { usePathname, useSearchParams } from 'next/navigation';
 import { useCallback, useMemo, useRef, useState } from 'react';
 import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/domain/analysis-settings';
 
@@ -21,7 +21,6 @@ function settingsFromUrl(raw: string | null, fallback: AnalysisSettingsValues): 
 }
 
 export function useUrlSettings(initial: AnalysisSettingsValues): [AnalysisSettingsValues, (s: AnalysisSettingsValues) => void] {
-  const router = useRouter();
   const path = usePathname();
   const params = useSearchParams();
   const raw = params.get('s');
@@ -47,9 +46,12 @@ export function useUrlSettings(initial: AnalysisSettingsValues): [AnalysisSettin
       setLocal(s);
       const next = new URLSearchParams(params);
       next.set('s', text);
-      router.replace(`${path}?${next}`, { scroll: false });
+      // The browser's own history API, which Next's router follows (useSearchParams sees it): the URL changes at
+      // once and nothing is asked of the server, so a navigation that follows (a link to a saved analysis) can
+      // never be overtaken by a settings change still on its way.
+      window.history.replaceState(null, '', `${path}?${next}`);
     },
-    [params, path, router],
+    [params, path],
   );
   return [settings, setSettings];
 }

@@ -18,6 +18,8 @@ import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';
 import { Findings } from './findings';
 import { StartingPanel } from './starting-panel';
+import { BaselineNote } from './baseline-note';
+import type { Baseline } from '@/domain/baseline';
 import { MappingDialog } from './mapping-dialog';
 import { ResultsTable } from './results-table';
 import { sameSettings } from './settings-differences';
@@ -39,6 +41,8 @@ interface Props {
   /** The saved analysis this page was opened on, if any: the page says whether the settings still match it. */
   savedAs?: { when: string; settings: AnalysisSettingsValues };
   profiles: ProfileOption[];
+  /** The shop's healthy captures of this engine (domain/baseline.ts): each figure that has enough of them. */
+  baseline?: Baseline;
   /** Whether this member has read the job's safety cautions (on any device). */
   cautionsRead: boolean;
   /** The job the capture belongs to: its cautions, once read, are not asked again. */
@@ -46,7 +50,7 @@ interface Props {
   canSave: boolean;
 }
 
-export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, savedAs, profiles, cautionsRead, jobId, canSave }: Props) {
+export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, savedAs, baseline, profiles, cautionsRead, jobId, canSave }: Props) {
   const router = useRouter();
   const [settings, applySettings] = useUrlSettings(initialSettings);
   const history = useSettingsHistory(settings, applySettings);
@@ -265,6 +269,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, sav
                 </div>
               </section>
             )}
+            {result && baseline && <BaselineNote result={result} baseline={baseline} />}
             {result?.startingSystem && <StartingPanel system={result.startingSystem} />}
           </div>
           <aside aria-labelledby="setup-title" className="flex flex-col gap-3 rounded-2xl border border-line bg-surface p-4">

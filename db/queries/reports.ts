@@ -7,10 +7,11 @@ import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, gt, inArray, isNull, ne } from 'drizzle-orm';
 import { getDb } from '../client';
-import { analyses, approvals, captures, jobs, organizations, reports, shareLinks, users, vehicles } from '../schema';
+import { analyses, approvals, captures, jobs, reports, shareLinks, users } from '../schema';
 import type { ReportContent } from '@/domain/report';
 import type { ShopSettings } from '@/domain/shop-settings';
-import { readSnapshot, writeSnapshot } from './report-snapshot';
+import { readSnapshot } from './report-snapshot';
+import { liveBundle, signedSnapshot } from './report-bundle';
 import { getShopSettings } from './shops';
 
 export class ReportStateError extends Error {}
@@ -107,9 +108,8 @@ export async function signReport(shopId: string, reportId: string, userId: strin
     if (r.content.analysisIds.length === 0) throw new ReportStateError('A report needs at least one saved analysis before it can be signed; include one.');
     const signedAt = new Date();
     const signedRow = { ...r, status: 'signed', signedBy: userId, signedAt };
-    const bundle = await liveBundle(tx, shopId, signedRow);
+    const { bundle, text, sha256 } = await signedSnapshot(tx, shopId, signedRow, shopSettings);
     if (bundle.analyses.length === 0) throw new ReportStateError('The analyses this report includes are no longer on file; include a saved analysis, then sign.');
-    const { text, sha256 } = writeSnapshot({ ...bundle, report: { ...signedRow, snapshot: null, snapshotSha256: null }, shopSettings });
     const [signed] = await tx
       .update(reports)
       .set({ status: 'signed', signedBy: userId, signedAt, snapshot: text, snapshotSha256: sha256, version: r.version + 1 })
@@ -128,31 +128,6 @@ export async function reportBundle(shopId: string, reportId: string) {
   if (!report) return null;
   if (report.status === 'signed' && report.snapshot) return readSnapshot<LiveBundle & { shopSettings?: ShopSettings }>(report.snapshot);
   return { ...(await liveBundle(await getDb(), shopId, report)), shopSettings: undefined as ShopSettings | undefined };
-}
-
-type Executor = Pick<Awaited<ReturnType<typeof getDb>>, 'select'>;
-type ReportRow = typeof reports.$inferSelect;
-
-/** The bundle from the rows as they stand. */
-async function liveBundle(db: Executor, shopId: string, report: ReportRow) {
-  const [row] = await db
-    .select({ shop: organizations, job: jobs, vehicle: vehicles })
-    .from(jobs)
-    .innerJoin(vehicles, eq(jobs.vehicleId, vehicles.id))
-    .innerJoin(organizations, eq(jobs.shopId, organizations.id))
-    .where(and(eq(jobs.shopId, shopId), eq(jobs.id, report.jobId)));
-  const content = report.content;
-  const included = content.analysisIds.length
-    ? await db
-        .select({ analysis: analyses, capture: captures, jobRepairOrder: jobs.repairOrder })
-        .from(analyses)
-        .innerJoin(captures, eq(analyses.captureId, captures.id))
-        .innerJoin(jobs, eq(captures.jobId, jobs.id))
-        .where(and(eq(analyses.shopId, shopId), inArray(analyses.id, content.analysisIds)))
-    : [];
-  const ordered = content.analysisIds.map((id) => included.find((i) => i.analysis.id === id)).filter((x): x is (typeof included)[number] => !!x);
-  const [signer] = report.signedBy ? await db.select({ name: users.name, email: users.email }).from(users).where(eq(users.id, report.signedBy)) : [];
-  return { report, content, shop: row.shop, job: row.job, vehicle: row.vehicle, analyses: ordered, signerName: signer?.name ?? null, signerEmail: signer?.email ?? null };
 }
 
 type LiveBundle = Awaited<ReturnType<typeof liveBundle>>;

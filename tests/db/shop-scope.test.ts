@@ -10,6 +10,7 @@ import { eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { type Db, getDb } from '@/db/client';
 import { listShopActivity } from '@/db/queries/audit';
+import { shopBaseline } from '@/db/queries/baselines';
 import { getCapture, latestAnalysesForJob, listAnalyses, listCaptures, readCapturePacked, readCaptureStream } from '@/db/queries/captures';
 import { deleteJob, getJob, listJobs, updateJob } from '@/db/queries/jobs';
 import { listProfiles } from '@/db/queries/profiles';
@@ -47,6 +48,16 @@ describe('the data-access layer is scoped to the shop it is given', () => {
     expect((await listAnalyses(shop, captureId)).length).toBeGreaterThan(0);
     expect(await getVehicle(shop, job.vehicleId)).not.toBeNull();
     expect(await getMember(shop, memberId)).not.toBeNull();
+  });
+
+  it('builds the demo shop’s baseline for its hatchback’s engine from its six signed healthy visits, and none for another shop', async () => {
+    const engine = { cylinders: 4, layout: 'inline' as const, firingOrder: [1, 3, 4, 2], displacementL: 2.0 };
+    const own = await shopBaseline(shop, engine);
+    expect(own.crankingRpm?.captures).toBeGreaterThanOrEqual(6);
+    expect(own.crankingRpm!.low).toBeLessThanOrEqual(own.crankingRpm!.high);
+    expect(await shopBaseline(other, engine)).toEqual({});
+    // Another engine has none in the demo shop.
+    expect(await shopBaseline(shop, { ...engine, displacementL: 1.6 })).toEqual({});
   });
 
   it('finds nothing of it with another shop’s id', async () => {

@@ -69,3 +69,23 @@ test('one gauge reading gives every cylinder an estimated pressure: on screen, i
   await customer.goto(url.replace(/^https?:\/\/[^/]+/, ''));
   await expect(customer.getByTestId('customer-pressures')).toContainText('a gauge test on any cylinder that matters confirms it');
 });
+
+test('a capture is held against the shop’s healthy captures of the same engine, from five up', async ({ page }) => {
+  await signInAs(page, 'technician');
+  const jobs = (await (await page.request.get('/api/jobs')).json()).jobs;
+  // The demo sedan shares its engine with the hatchback, whose six earlier visits were signed healthy.
+  const job = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24101');
+  const captures = (await (await page.request.get(`/api/jobs/${job.id}/captures`)).json()).captures;
+  await page.goto(`/jobs/${job.id}/captures/${captures[0].id}`);
+  await pastCautions(page, page.getByTestId('cylinder-chart'));
+  const note = page.getByTestId('baseline');
+  await expect(note).toContainText(/Cranking speed \d+ rpm; healthy captures of this engine in your shop: \d+–\d+ rpm \(6 captures\), (below|within|above) them\./);
+  await note.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'artifacts/screens/baseline.png', fullPage: true });
+  // The V8 has no healthy history: no sentence.
+  const v8 = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24104');
+  const v8Captures = (await (await page.request.get(`/api/jobs/${v8.id}/captures`)).json()).captures;
+  await page.goto(`/jobs/${v8.id}/captures/${v8Captures[0].id}`);
+  await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 60_000 });
+  await expect(page.getByTestId('baseline')).toHaveCount(0);
+});

@@ -6,6 +6,7 @@ import { Suspense } from 'react';
 import Link from 'next/link';
 import { settingsDifferences } from '@/components/analysis/settings-differences';
 import { Workspace } from '@/components/analysis/workspace';
+import { shopBaseline } from '@/db/queries/baselines';
 import { getCapture, listAnalyses } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
 import { cautionsReadAt } from '@/db/queries/audit';
@@ -35,6 +36,7 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
   const initial = (opened ? openedSettings : settingsOf(history[0])) ?? fromVehicle;
   const savedAs = opened && openedSettings ? { when: formatWhen(opened.createdAt, m.shop.settings.timeZone), settings: openedSettings } : undefined;
   const own = await listProfiles(m.shop.id);
+  const baseline = await shopBaseline(m.shop.id, job.vehicle.engine);
   const profiles = [
     ...own.map((p) => ({ key: `shop-${p.id}`, label: `${p.label} (shop)`, engine: { ...p.engine, numbering: p.engine.numbering ?? 'along-crank' } })),
     ...ENGINE_PROFILES.map((p) => ({ key: p.key, label: p.label, engine: profileEngine(p) })),
@@ -54,6 +56,7 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
           initialSettings={initial}
           jobSettings={fromVehicle}
           savedAs={savedAs}
+          baseline={baseline}
           profiles={profiles}
           cautionsRead={cautionsRead !== null}
           jobId={job.id}
