@@ -5,6 +5,7 @@ import { Field, Input, Select } from '@/components/ui/field';
 import { useState } from 'react';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import { DraftNumberField } from './draft-number-field';
+import { StartingConditions } from './starting-conditions';
 import { firingOrderProblem } from '@/signal';
 import type { Method } from '@/signal';
 
@@ -124,6 +125,7 @@ export function SettingsPanel({
         <DraftNumberField id="s-high" label="Upper limit (%)" field="highLimitPercent" settings={settings} onChange={onChange} />
         <DraftNumberField id="s-spread" label="Spread limit (%)" field="spreadLimitPercent" settings={settings} onChange={onChange} />
       </div>
+      <StartingConditions settings={settings} onChange={onChange} />
       {identityAssumed && (
         <div className="rounded-lg bg-raised p-3">
           <p className="text-sm">Without sync the first event is taken as cylinder {e.firingOrder[0]}. Step the assignment along the firing order:</p>

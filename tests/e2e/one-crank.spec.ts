@@ -20,6 +20,18 @@ test('the workspace shows the battery and starter beside their limits and source
   await expect(panel).toContainText('Mean cranking current');
   await expect(panel).toContainText('Cranking speed');
   await expect(panel).toContainText('from memory');
+  // The conditions the check needs: 14 °F (the demo shop's unit) is −10 °C, where the cranking-voltage limit falls to
+  // 8.7 + 0.2·2/5 ≈ 8.8 V between −12 °C (8.7 V) and −7 °C (8.9 V) of the cold table (common practice, from memory);
+  // a diesel doubles the current allowed.
+  await page.getByLabel('Air temperature (°F)').fill('14');
+  await page.getByLabel('Air temperature (°F)').press('Enter');
+  await expect(panel).toContainText('at least 8.8 V at -10 °C');
+  await page.getByLabel('Diesel engine').check();
+  await expect(panel).toContainText('L diesel');
+  await page.getByLabel('Air temperature (°F)').fill('abc');
+  await page.getByLabel('Air temperature (°F)').press('Tab');
+  await expect(page.locator('#s-air-error')).toContainText('Enter a temperature');
+  await expect(panel).toContainText('at -10 °C');
   await panel.scrollIntoViewIfNeeded();
   await page.screenshot({ path: 'artifacts/screens/starting-system.png', fullPage: true });
   // The saved analysis carries it for the API.
