@@ -5,8 +5,8 @@
 import type { StartingStatus, StartingSystem } from '@/signal';
 import { STATUS_TEXT } from './status-style';
 
-const WORD: Record<StartingStatus, string> = { ok: '✓ within limit', low: '▼ below limit', high: '▲ above limit', 'not measured': '– not in this capture' };
-const TONE: Record<StartingStatus, string> = { ok: STATUS_TEXT.ok, low: STATUS_TEXT.low, high: STATUS_TEXT.low, 'not measured': 'text-muted' };
+const WORD: Record<StartingStatus, string> = { ok: '✓ within limit', low: '▼ below limit', high: '▲ above limit', 'no limit': '– no limit (enter the displacement)', 'not measured': '– not in this capture' };
+const TONE: Record<StartingStatus, string> = { ok: STATUS_TEXT.ok, low: STATUS_TEXT.low, high: STATUS_TEXT.low, 'no limit': 'text-muted', 'not measured': 'text-muted' };
 
 export function StartingPanel({ system }: { system: StartingSystem }) {
   return (
@@ -30,7 +30,7 @@ export function StartingPanel({ system }: { system: StartingSystem }) {
           </tr>
         </thead>
         <tbody>
-          {system.checks.map((c) => (
+          {system.checks.filter((c) => c.status !== 'not measured').map((c) => (
             <tr key={c.key} className="border-t border-line align-top">
               <th scope="row" className="py-1 pr-2 text-left font-normal">
                 {c.label}
@@ -45,6 +45,7 @@ export function StartingPanel({ system }: { system: StartingSystem }) {
           ))}
         </tbody>
       </table>
+      {system.notInCapture && <p className="mt-1 text-sm text-muted">{system.notInCapture}</p>}
       {system.advice.length > 0 ? (
         <ul className="mt-2 list-disc pl-5 text-sm font-bold" data-testid="starting-advice">
           {system.advice.map((a) => (
@@ -58,3 +59,4 @@ export function StartingPanel({ system }: { system: StartingSystem }) {
     </section>
   );
 }
+

@@ -203,23 +203,26 @@ function PressureSection({ p }: { p: NonNullable<ReportPdfData['pressures']> }) 
   );
 }
 
-const STARTING_WORD = { ok: 'within limit', low: 'below limit', high: 'above limit', 'not measured': 'not in this capture' } as const;
+const STARTING_WORD = { ok: 'within limit', low: 'below limit', high: 'above limit', 'no limit': 'no limit set', 'not measured': 'not in this capture' } as const;
+/** The PDF's fonts draw Ω narrower than it advances: milliohms are written out. */
+const pdfUnits = (text: string) => text.replace(/mΩ/g, 'milliohms');
 
 /** The battery and starter: each check, its limit and the limit's source, then what to do. */
 function StartingSection({ system }: { system: NonNullable<AnalysisResult['startingSystem']> }) {
   return (
     <View wrap={false}>
       <Text style={s.h2}>{`Battery and starter (${system.systemV} V system)`}</Text>
-      {system.checks.map((c) => (
+      {system.checks.filter((c) => c.status !== 'not measured').map((c) => (
         <View key={c.key} style={s.row}>
           <Text style={s.cellLabel}>{c.label}</Text>
-          <Text style={{ width: 70 }}>{c.value === null ? '—' : `${c.unit === 'V' ? c.value.toFixed(2) : c.value.toFixed(c.unit === 'mΩ' ? 1 : 0)} ${c.unit}`}</Text>
-          <Text style={{ width: 80, color: c.status === 'ok' ? C.ok : c.status === 'not measured' ? C.muted : C.low }}>{STARTING_WORD[c.status]}</Text>
-          <Text style={[s.small, { flex: 1 }]}>{`${c.limit}; ${c.source}`}</Text>
+          <Text style={{ width: 70 }}>{c.value === null ? '—' : pdfUnits(`${c.unit === 'V' ? c.value.toFixed(2) : c.value.toFixed(c.unit === 'mΩ' ? 1 : 0)} ${c.unit}`)}</Text>
+          <Text style={{ width: 80, color: c.status === 'ok' ? C.ok : c.status === 'not measured' || c.status === 'no limit' ? C.muted : C.low }}>{STARTING_WORD[c.status]}</Text>
+          <Text style={[s.small, { flex: 1 }]}>{pdfUnits(`${c.limit}; ${c.source}`)}</Text>
         </View>
       ))}
+      {system.notInCapture ? <Text style={s.small}>{system.notInCapture}</Text> : null}
       {system.advice.map((a, i) => (
-        <Text key={i} style={{ fontWeight: 700 }}>{a}</Text>
+        <Text key={i} style={{ fontWeight: 700 }}>{pdfUnits(a)}</Text>
       ))}
       {system.advice.length === 0 && system.customerLine ? <Text>{system.customerLine}</Text> : null}
     </View>

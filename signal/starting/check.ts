@@ -6,7 +6,8 @@
 import { coldAllowanceV, DEFAULT_STARTING_LIMITS, LIMIT_SOURCES, type StartingLimits } from './limits';
 import type { StartingFigures } from './measure';
 
-export type StartingStatus = 'ok' | 'low' | 'high' | 'not measured';
+/** `no limit`: measured, but the limit needs what the capture cannot tell (the engine's displacement). */
+export type StartingStatus = 'ok' | 'low' | 'high' | 'no limit' | 'not measured';
 export type StartingCheckKey = 'resting' | 'cranking-voltage' | 'internal-resistance' | 'cranking-current' | 'cranking-speed';
 
 export interface StartingCheck {
@@ -40,6 +41,8 @@ export interface StartingSystem extends StartingFigures {
   advice: string[];
   /** One plain line for the customer. */
   customerLine: string;
+  /** The checks this capture holds nothing for, in one sentence (empty when it holds them all). */
+  notInCapture: string;
   /** The battery is weak (its resistance, or a sag the draw does not explain): the figures deserve a second capture once it is put right. */
   weakBattery: boolean;
 }
@@ -55,7 +58,7 @@ export function checkStartingSystem(f: StartingFigures, crankingRpm: number | nu
   const ampMax = o.displacementL ? (fuel * (l.currentBaseA + l.currentPerLitreA * o.displacementL)) / volts : null;
   const rpm = crankingRpm && crankingRpm > 0 ? Math.round(crankingRpm) : null;
   const below = (v: number | null, min: number): StartingStatus => (v === null ? 'not measured' : v < min ? 'low' : 'ok');
-  const above = (v: number | null, max: number | null): StartingStatus => (v === null || max === null ? 'not measured' : v > max ? 'high' : 'ok');
+  const above = (v: number | null, max: number | null): StartingStatus => (v === null ? 'not measured' : max === null ? 'no limit' : v > max ? 'high' : 'ok');
   const at = o.temperatureC === undefined ? 'at about 21 °C' : `at ${o.temperatureC.toFixed(0)} °C`;
   const checks: StartingCheck[] = [
     { key: 'resting', label: 'Resting battery voltage', value: f.restingV, unit: 'V', limit: `at least ${restMin.toFixed(1)} V`, threshold: restMin, status: below(f.restingV, restMin), source: own('restingMinV') ?? LIMIT_SOURCES.resting },
@@ -107,8 +110,10 @@ export function checkStartingSystem(f: StartingFigures, crankingRpm: number | nu
       ? 'The starter or its cables need checking before the engine test is repeated.'
       : seenWhole
         ? 'The battery and starter are healthy on this test.'
-        : checks.some((c) => c.status !== 'not measured')
+        : checks.some((c) => c.status === 'ok')
           ? 'Nothing on this test points at the battery or the starter.'
           : '';
-  return { ...f, crankingRpm: rpm, checks, advice, customerLine, weakBattery: status('internal-resistance') === 'high' || sagFromBattery };
+  const absent = checks.filter((c) => c.status === 'not measured').map((c) => c.label.toLowerCase());
+  const notInCapture = absent.length ? `Not in this capture: ${absent.join(', ')}. Record the starter current, and the battery voltage from before the starter engages, to check them.` : '';
+  return { ...f, crankingRpm: rpm, checks, advice, customerLine, notInCapture, weakBattery: status('internal-resistance') === 'high' || sagFromBattery };
 }
