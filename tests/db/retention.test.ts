@@ -37,6 +37,8 @@ describe('the retention sweep', () => {
     const [old, recent, open] = all;
     const withCaptures = async (id: string) => (await countOf(captures, [id])) > 0;
     for (const j of [old, recent, open]) expect(await withCaptures(j.id)).toBe(true);
+    // The demo's other done jobs (its hatchback's earlier visits) were done within the period here.
+    await db.update(jobs).set({ doneAt: daysAgo(5) }).where(and(eq(jobs.shopId, shopId), eq(jobs.status, 'done')));
     await db.update(jobs).set({ status: 'done', doneAt: daysAgo(100) }).where(eq(jobs.id, old.id));
     await db.update(jobs).set({ status: 'done', doneAt: daysAgo(10) }).where(eq(jobs.id, recent.id));
     await db.update(jobs).set({ status: 'open', doneAt: null, createdAt: daysAgo(400) }).where(eq(jobs.id, open.id));
