@@ -16,7 +16,7 @@ import { runFit } from './steps/run-fit';
 import { dropWarnings, type QualityWarning, warning } from './steps/warnings';
 import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, CylinderStatus, Method, MethodResult, WheelInfo } from './types';
 import { ENGINE_VERSION } from './version';
-import { cylinderIntervals } from './steps/interval';
+import { cylinderIntervals, widenBy } from './steps/interval';
 import { crossCheck as compareMethods } from './steps/cross-check';
 import { gradeCapture, holdAfterLow, holdHigh, holdMostLow, isThin, type Limits, settleStatuses } from './steps/status';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
@@ -203,9 +203,10 @@ const OVERRUN_SHARE = 0.8;
  */
 function distortedByStarting(result: MethodResult, s: StartingSystem | undefined): boolean {
   if (!result.cylinders.some((c) => c.relativePercent !== null)) return false;
-  const status = (key: string) => s?.checks.find((c) => c.key === key)?.status;
+  const check = (key: string) => s?.checks.find((c) => c.key === key);
+  const status = (key: string) => check(key)?.status;
   const slow = status('cranking-speed') === 'low';
-  const speed = s?.checks.find((c) => c.key === 'cranking-speed');
+  const speed = check('cranking-speed');
   const crawling = speed?.value != null && speed.threshold !== null && speed.value < OVERRUN_SHARE * speed.threshold;
   const drawHigh = status('cranking-current') === 'high';
   const fault = !!s?.weakBattery || drawHigh;
@@ -215,21 +216,22 @@ function distortedByStarting(result: MethodResult, s: StartingSystem | undefined
   const starterBound = electrical || result.method === 'event-duration';
   const tooSlow = result.warnings.some((w) => w.code === 'CRANKING_TOO_SLOW');
   if (tooSlow || (starterBound && crawling)) {
-    for (const c of result.cylinders) {
-      c.relativePercent = null;
-      c.interval = null;
-      c.plainPercent = null;
-      c.perCycle = [];
-    }
+    for (const c of result.cylinders) withholdFigures(c);
     const why = tooSlow ? 'the crank turned too slowly to compare cylinders' : electrical ? 'the starter’s current no longer follows the crank' : 'each event’s duration follows the starter catching the crank up';
     if (fault || slow) result.warnings.push(warning('WEAK_BATTERY', `${cause} (see the starting system) and ${why}: no figures are given. Put the battery or starter right and record again${electrical && !tooSlow ? ', or record the crank sensor' : ''}.`));
     return true;
   }
-  if (slow) {
-    for (const c of result.cylinders) if (c.interval) c.interval = [Math.max(0, Math.round((c.interval[0] - SLOW_CRANKING_POINTS) * 10) / 10), Math.round((c.interval[1] + SLOW_CRANKING_POINTS) * 10) / 10];
-  }
+  if (slow) for (const c of result.cylinders) if (c.interval) c.interval = widenBy(c.interval, SLOW_CRANKING_POINTS);
   if (slow || fault) result.warnings.push(warning('WEAK_BATTERY', `${cause} (see the starting system): slow, uneven cranking moves the figures${slow ? ', so their ranges are wider' : ''}; put it right and record again before acting on a close call.`));
   return slow;
+}
+
+/** A cylinder's figures taken away (its raw measurements stay): no compression to compare, or none to trust. */
+function withholdFigures(c: CylinderResult): void {
+  c.relativePercent = null;
+  c.interval = null;
+  c.plainPercent = null;
+  c.perCycle = [];
 }
 
 const NOTHING_MEASURED: StartingFigures = { systemV: 12, engagedAtS: null, restingV: null, inrushMinV: null, crankingMinV: null, crankingMeanV: null, inrushPeakA: null, crankingMeanA: null, internalMilliOhm: null };
@@ -310,9 +312,7 @@ function toMethodResult(
   for (const [i, c] of summary.cylinders.entries()) {
     if (noCompression) {
       // Nothing to compare: no figure of any kind, only the raw measurements.
-      c.relativePercent = null;
-      c.plainPercent = null;
-      c.perCycle = [];
+      withholdFigures(c);
       c.spreadPercent = 0;
     }
     // A method that gives its own intervals (event duration) keeps them.

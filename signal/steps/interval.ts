@@ -85,6 +85,11 @@ export function widenToward(interval: [number, number], other: number): [number,
   return [round1(Math.min(interval[0], mid + half)), round1(Math.max(interval[1], mid + half))];
 }
 
+/** Widens an interval by `points` on each side, never below 0 %. */
+export function widenBy(interval: [number, number], points: number): [number, number] {
+  return [round1(Math.max(0, interval[0] - points)), round1(interval[1] + points)];
+}
+
 function round1(v: number): number {
   return Math.round(v * 10) / 10;
 }
