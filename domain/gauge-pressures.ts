@@ -97,6 +97,11 @@ export function gaugePressures(r: Result, g: GaugeReading): GaugePressures | { p
   return { cylinders, spread, sentence };
 }
 
+/** The sentence with the weakest cylinder's share beside the share allowed, for the report editor and the PDF. */
+export function gaugeSummary(p: GaugePressures): string {
+  return p.spread ? `${p.sentence} Weakest at ${p.spread.lowestShare} % of the strongest (at least ${p.spread.allowedShare} % allowed).` : p.sentence;
+}
+
 function allowed(s: NonNullable<GaugePressures['spread']>): string {
   return s.allowedShare.toFixed(0);
 }

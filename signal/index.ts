@@ -18,6 +18,7 @@ export { describeWheel, parseWheel, wheelNotation } from './teeth/wheel';
 export type { ToothWheel } from './teeth/wheel';
 export type * from './types';
 export type { StartingCheck, StartingStatus, StartingSystem } from './starting/check';
+export { readingText } from './starting/check';
 export type { QualityWarning, WarningCode } from './steps/warnings';
 export { refusalFor, SURE_MAPPING } from './steps/screen';
 export { NUMBERING_ASSUMED } from './steps/pattern';

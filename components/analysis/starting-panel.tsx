@@ -2,7 +2,7 @@
  * The starting system as the capture shows it: each figure beside its limit and the limit's source, and what to
  * do about the battery or the starter before the compression figures are trusted.
  */
-import type { StartingStatus, StartingSystem } from '@/signal';
+import { readingText, type StartingStatus, type StartingSystem } from '@/signal';
 import { STATUS_TEXT } from './status-style';
 
 const WORD: Record<StartingStatus, string> = { ok: '✓ within limit', low: '▼ below limit', high: '▲ above limit', 'no limit': '– no limit (enter the displacement)', 'not measured': '– not in this capture' };
@@ -35,7 +35,7 @@ export function StartingPanel({ system }: { system: StartingSystem }) {
               <th scope="row" className="py-1 pr-2 text-left font-normal">
                 {c.label}
               </th>
-              <td className="figures py-1 pr-2">{c.value === null ? '—' : `${c.unit === 'V' ? c.value.toFixed(2) : c.value.toFixed(c.unit === 'mΩ' ? 1 : 0)} ${c.unit}`}</td>
+              <td className="figures py-1 pr-2">{readingText(c)}</td>
               <td className="py-1 pr-2">
                 <span className="figures">{c.limit}</span>
                 <span className="block text-xs text-muted">{c.source}</span>

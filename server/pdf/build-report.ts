@@ -10,7 +10,7 @@ import type { ReportBundle } from '@/db/queries/reports';
 import { conditionRows, NR } from './format';
 import type { PdfTrace, ReportPdfData } from './report-document';
 import { vehicleName } from '@/domain/vehicle-name';
-import { ESTIMATE_CAUTION, type GaugeReading, gaugePressures } from '@/domain/gauge-pressures';
+import { ESTIMATE_CAUTION, type GaugeReading, gaugePressures, gaugeSummary } from '@/domain/gauge-pressures';
 import { type PressureUnit, shopSettingsFrom } from '@/domain/shop-settings';
 import { pressureIn, pressureText } from '@/domain/units';
 
@@ -71,7 +71,7 @@ function pressureRows(p: ReturnType<typeof gaugePressures>, g: GaugeReading, uni
       range: c.interval ? `${pressureIn(c.interval[0], unit)}–${pressureIn(c.interval[1], unit)} ${unit}` : '—',
       status: g.minimumKpa === undefined ? '' : c.status,
     })),
-    sentence: `${p.sentence}${p.spread ? ` Weakest at ${p.spread.lowestShare} % of the strongest (at least ${p.spread.allowedShare} % allowed).` : ''}`,
+    sentence: gaugeSummary(p),
     caution: ESTIMATE_CAUTION,
   };
 }

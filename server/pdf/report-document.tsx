@@ -4,7 +4,7 @@
  * engine version and SHA-256, page numbers. Built from plain data so it renders without a database.
  */
 import { Document, Page, Text, View } from '@react-pdf/renderer';
-import { type AnalysisResult, compareResults, identityWords, METHOD_NAMES, percentText } from '@/signal';
+import { type AnalysisResult, compareResults, identityWords, METHOD_NAMES, percentText, readingText } from '@/signal';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import { gaugeToConfirm } from '@/domain/report-wording';
 import { C, ChartSvg, Figures, s, STATUS_COLOR, TraceSvg } from './report-parts';
@@ -215,7 +215,7 @@ function StartingSection({ system }: { system: NonNullable<AnalysisResult['start
       {system.checks.filter((c) => c.status !== 'not measured').map((c) => (
         <View key={c.key} style={s.row}>
           <Text style={s.cellLabel}>{c.label}</Text>
-          <Text style={{ width: 70 }}>{c.value === null ? '—' : pdfUnits(`${c.unit === 'V' ? c.value.toFixed(2) : c.value.toFixed(c.unit === 'mΩ' ? 1 : 0)} ${c.unit}`)}</Text>
+          <Text style={{ width: 70 }}>{pdfUnits(readingText(c))}</Text>
           <Text style={{ width: 80, color: c.status === 'ok' ? C.ok : c.status === 'not measured' || c.status === 'no limit' ? C.muted : C.low }}>{STARTING_WORD[c.status]}</Text>
           <Text style={[s.small, { flex: 1 }]}>{pdfUnits(`${c.limit}; ${c.source}`)}</Text>
         </View>

@@ -117,3 +117,9 @@ export function checkStartingSystem(f: StartingFigures, crankingRpm: number | nu
   const notInCapture = absent.length ? `Not in this capture: ${absent.join(', ')}. Record the starter current, and the battery voltage from before the starter engages, to check them.` : '';
   return { ...f, crankingRpm: rpm, checks, advice, customerLine, notInCapture, weakBattery: status('internal-resistance') === 'high' || sagFromBattery };
 }
+
+/** A check's reading as the screens and the PDF print it: volts to two decimals, milliohms to one, else whole. */
+export function readingText(c: Pick<StartingCheck, 'value' | 'unit'>): string {
+  if (c.value === null) return '—';
+  return `${c.value.toFixed(c.unit === 'V' ? 2 : c.unit === 'mΩ' ? 1 : 0)} ${c.unit}`;
+}

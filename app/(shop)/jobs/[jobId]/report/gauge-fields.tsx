@@ -7,7 +7,7 @@
 import { useState } from 'react';
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { Field, Input, Notice, Select } from '@/components/ui/field';
-import { ESTIMATE_CAUTION, type GaugeReading, gaugePressures, gaugeSchema } from '@/domain/gauge-pressures';
+import { ESTIMATE_CAUTION, type GaugeReading, gaugePressures, gaugeSchema, gaugeSummary } from '@/domain/gauge-pressures';
 import { pressureFrom, pressureIn } from '@/domain/units';
 import type { AnalysisResult } from '@/signal';
 
@@ -112,8 +112,7 @@ export function GaugeFields({ gauge, result, readOnly, onChange }: { gauge: Gaug
             </tbody>
           </table>
           <p className="mt-2 text-sm font-bold">
-            {estimate.sentence}
-            {estimate.spread && ` Weakest at ${estimate.spread.lowestShare} % of the strongest (at least ${estimate.spread.allowedShare} % allowed).`}
+            {gaugeSummary(estimate)}
           </p>
         </div>
       )}
