@@ -4,7 +4,7 @@
  * (on Enter or on leaving the field), and only when the settings with it pass the settings schema. An invalid
  * draft shows its reason beside the field; every other setting is left as it was.
  */
-import { useState } from 'react';
+import { type KeyboardEvent, useState } from 'react';
 import { Field, Input } from '@/components/ui/field';
 import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/domain/analysis-settings';
 
@@ -30,15 +30,20 @@ export function DraftNumberField({ id, label, field, settings, onChange }: { id:
         invalid={!!problem}
         onChange={(ev) => setDraft(ev.target.value)}
         onBlur={apply}
-        onKeyDown={(ev) => {
-          if (ev.key === 'Enter') {
-            ev.preventDefault();
-            apply();
-          } else if (ev.key === 'Escape') setDraft(null);
-        }}
+        onKeyDown={draftKeys(apply, () => setDraft(null))}
       />
     </Field>
   );
+}
+
+/** A draft field's keys: Enter applies what is typed (and submits nothing), Escape drops it. */
+export function draftKeys(apply: () => void, drop: () => void) {
+  return (ev: KeyboardEvent<HTMLInputElement>) => {
+    if (ev.key === 'Enter') {
+      ev.preventDefault();
+      apply();
+    } else if (ev.key === 'Escape') drop();
+  };
 }
 
 /** Why the draft cannot be applied, in the schema's words, or undefined when it can. */

@@ -10,6 +10,7 @@ import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { Field, Input } from '@/components/ui/field';
 import { type AnalysisSettingsValues, analysisSettingsSchema } from '@/domain/analysis-settings';
 import { temperatureFrom, temperatureIn } from '@/domain/units';
+import { draftKeys } from './draft-number-field';
 
 export function StartingConditions({ settings, onChange }: { settings: AnalysisSettingsValues; onChange: (s: AnalysisSettingsValues) => void }) {
   const { temperatureUnit: unit } = useShopSettings();
@@ -44,15 +45,10 @@ export function StartingConditions({ settings, onChange }: { settings: AnalysisS
           invalid={!!problem}
           onChange={(ev) => setDraft(ev.target.value)}
           onBlur={apply}
-          onKeyDown={(ev) => {
-            if (ev.key === 'Enter') {
-              ev.preventDefault();
-              apply();
-            } else if (ev.key === 'Escape') {
-              setDraft(null);
-              setProblem(undefined);
-            }
-          }}
+          onKeyDown={draftKeys(apply, () => {
+            setDraft(null);
+            setProblem(undefined);
+          })}
         />
       </Field>
     </fieldset>

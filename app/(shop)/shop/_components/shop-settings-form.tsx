@@ -8,7 +8,8 @@ import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
 import { api, errorText } from '@/components/data/api';
 import { type ShopSettings, type ShopSettingsInput, shopSettingsSchema } from '@/domain/shop-settings';
-import { LIMIT_SOURCES } from '@/domain/starting-limits';
+import { DEFAULT_STARTING_LIMITS, LIMIT_SOURCES } from '@/domain/starting-limits';
+import { typedDecimal } from '@/domain/typed-number';
 import type { z } from 'zod';
 import { timeZoneNames } from '@/domain/time';
 
@@ -62,7 +63,7 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
       <fieldset className="flex flex-col gap-2 rounded border border-line p-3">
         <legend className="px-1 font-bold">Starting-system limits (12 V; a 24 V system doubles the voltages)</legend>
         {LIMIT_FIELDS.map((f) => (
-          <Field key={f.key} id={`limit-${f.key}`} label={f.label} error={formState.errors.startingLimits?.[f.key]?.message} hint={f.hint}>
+          <Field key={f.key} id={`limit-${f.key}`} label={f.label} error={formState.errors.startingLimits?.[f.key]?.message} hint={hintOf(f)}>
             <Input id={`limit-${f.key}`} inputMode="decimal" className="figures" invalid={!!formState.errors.startingLimits?.[f.key]} {...register(`startingLimits.${f.key}`, { setValueAs: typedNumber })} />
           </Field>
         ))}
@@ -81,17 +82,16 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
   );
 }
 
-const LIMIT_FIELDS: { key: keyof ShopSettings['startingLimits']; label: string; hint: string }[] = [
-  { key: 'restingMinV', label: 'Lowest resting voltage (V)', hint: `Default 12.4 V; ${LIMIT_SOURCES.resting}.` },
-  { key: 'crankingMinV', label: 'Lowest voltage while cranking, at about 21 °C (V)', hint: `Default 9.6 V; ${LIMIT_SOURCES.crankingVoltage}.` },
-  { key: 'internalMaxMilliOhm', label: 'Highest battery resistance (mΩ)', hint: `Default 20 mΩ; ${LIMIT_SOURCES.internalResistance}.` },
-  { key: 'currentBaseA', label: 'Cranking current: base (A)', hint: 'Default 80 A; with the next, the most a petrol engine may draw (twice for a diesel).' },
-  { key: 'currentPerLitreA', label: 'Cranking current: per litre of displacement (A)', hint: `Default 50 A; ${LIMIT_SOURCES.crankingCurrent}.` },
-  { key: 'crankingMinRpm', label: 'Slowest cranking speed (rpm)', hint: `Default 150 rpm; ${LIMIT_SOURCES.crankingSpeed}.` },
+/** Each limit's field; its hint names the default (the engine's own, signal/starting/limits.ts) and where it comes from. */
+const LIMIT_FIELDS: { key: keyof ShopSettings['startingLimits']; label: string; unit: string; source: string }[] = [
+  { key: 'restingMinV', label: 'Lowest resting voltage (V)', unit: 'V', source: LIMIT_SOURCES.resting },
+  { key: 'crankingMinV', label: 'Lowest voltage while cranking, at about 21 °C (V)', unit: 'V', source: LIMIT_SOURCES.crankingVoltage },
+  { key: 'internalMaxMilliOhm', label: 'Highest battery resistance (mΩ)', unit: 'mΩ', source: LIMIT_SOURCES.internalResistance },
+  { key: 'currentBaseA', label: 'Cranking current: base (A)', unit: 'A', source: 'with the next, the most a petrol engine may draw (twice for a diesel)' },
+  { key: 'currentPerLitreA', label: 'Cranking current: per litre of displacement (A)', unit: 'A', source: LIMIT_SOURCES.crankingCurrent },
+  { key: 'crankingMinRpm', label: 'Slowest cranking speed (rpm)', unit: 'rpm', source: LIMIT_SOURCES.crankingSpeed },
 ];
+const hintOf = (f: (typeof LIMIT_FIELDS)[number]) => `Default ${DEFAULT_STARTING_LIMITS[f.key]} ${f.unit}; ${f.source}.`;
 
-/** A typed number as the schema takes it: a comma for the decimal point is read, anything else not a number stays NaN (and is named). */
-function typedNumber(v: unknown): number {
-  const t = String(v ?? '').trim().replace(',', '.');
-  return t === '' ? Number.NaN : Number(t);
-}
+/** A typed number as the schema takes it: an empty field is not a number either (and is named). */
+const typedNumber = (v: unknown): number => typedDecimal(v) ?? Number.NaN;

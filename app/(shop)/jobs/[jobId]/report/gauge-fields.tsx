@@ -8,6 +8,7 @@ import { useState } from 'react';
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { Field, Input, Notice, Select } from '@/components/ui/field';
 import { ESTIMATE_CAUTION, type GaugeReading, gaugePressures, gaugeSchema, gaugeSummary } from '@/domain/gauge-pressures';
+import { typedDecimal } from '@/domain/typed-number';
 import { pressureFrom, pressureIn } from '@/domain/units';
 import type { AnalysisResult } from '@/signal';
 
@@ -18,8 +19,6 @@ interface Drafts {
   minimum: string;
   difference: string;
 }
-
-const number = (t: string) => (t.trim() === '' ? undefined : Number(t.trim().replace(',', '.')));
 
 export function GaugeFields({ gauge, result, readOnly, onChange }: { gauge: GaugeReading | undefined; result: AnalysisResult | undefined; readOnly: boolean; onChange: (g: GaugeReading | undefined) => void }) {
   const { pressureUnit: unit } = useShopSettings();
@@ -40,14 +39,14 @@ export function GaugeFields({ gauge, result, readOnly, onChange }: { gauge: Gaug
       setErrors({});
       return onChange(undefined);
     }
-    const reading = number(next.reading);
-    const minimum = number(next.minimum);
+    const reading = typedDecimal(next.reading);
+    const minimum = typedDecimal(next.minimum);
     const parsed = gaugeSchema.safeParse({
       cylinder: next.cylinder === '' ? Number.NaN : Number(next.cylinder),
       readingKpa: reading === undefined ? Number.NaN : pressureFrom(reading, unit),
-      accuracyPercent: number(next.accuracy) ?? 0,
+      accuracyPercent: typedDecimal(next.accuracy) ?? 0,
       minimumKpa: minimum === undefined ? undefined : pressureFrom(minimum, unit),
-      maxDifferencePercent: number(next.difference),
+      maxDifferencePercent: typedDecimal(next.difference),
     });
     if (!parsed.success) {
       setErrors(Object.fromEntries(parsed.error.issues.map((i) => [FIELD[String(i.path[0])], i.message])));
