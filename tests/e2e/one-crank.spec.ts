@@ -5,16 +5,22 @@
  * ../shared/design/TRADE.md).
  */
 import { execFileSync } from 'node:child_process';
-import { expect, test } from '@playwright/test';
+import { expect, type Page, test } from '@playwright/test';
 import { pastCautions, signInAs } from './helpers';
 
-test('the workspace shows the battery and starter beside their limits and sources', async ({ page }) => {
-  await signInAs(page, 'technician');
+/** Opens a demo job's first capture on the workspace, past the job's cautions; its capture's id. */
+async function openFirstCapture(page: Page, repairOrder: string): Promise<string> {
   const jobs = (await (await page.request.get('/api/jobs')).json()).jobs;
-  const job = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24104');
+  const job = jobs.find((j: { repairOrder: string }) => j.repairOrder === repairOrder);
   const captures = (await (await page.request.get(`/api/jobs/${job.id}/captures`)).json()).captures;
   await page.goto(`/jobs/${job.id}/captures/${captures[0].id}`);
   await pastCautions(page, page.getByTestId('cylinder-chart'));
+  return captures[0].id;
+}
+
+test('the workspace shows the battery and starter beside their limits and sources', async ({ page }) => {
+  await signInAs(page, 'technician');
+  const captureId = await openFirstCapture(page, 'RO-24104');
   const panel = page.getByTestId('starting-system');
   await expect(panel).toContainText('Battery and starter');
   await expect(panel).toContainText('Mean cranking current');
@@ -38,7 +44,7 @@ test('the workspace shows the battery and starter beside their limits and source
   await panel.scrollIntoViewIfNeeded();
   await page.screenshot({ path: 'artifacts/screens/starting-system.png', fullPage: true });
   // The saved analysis carries it for the API.
-  const stored = await (await page.request.get(`/api/captures/${captures[0].id}`)).json();
+  const stored = await (await page.request.get(`/api/captures/${captureId}`)).json();
   expect(stored.analyses[0].result.startingSystem.checks.map((c: { key: string }) => c.key)).toEqual(['resting', 'cranking-voltage', 'internal-resistance', 'cranking-current', 'cranking-speed']);
 });
 
@@ -87,20 +93,13 @@ test('one gauge reading gives every cylinder an estimated pressure: on screen, i
 
 test('a capture is held against the shop’s healthy captures of the same engine, from five up', async ({ page }) => {
   await signInAs(page, 'technician');
-  const jobs = (await (await page.request.get('/api/jobs')).json()).jobs;
   // The demo sedan shares its engine with the hatchback, whose six earlier visits were signed healthy.
-  const job = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24101');
-  const captures = (await (await page.request.get(`/api/jobs/${job.id}/captures`)).json()).captures;
-  await page.goto(`/jobs/${job.id}/captures/${captures[0].id}`);
-  await pastCautions(page, page.getByTestId('cylinder-chart'));
+  await openFirstCapture(page, 'RO-24101');
   const note = page.getByTestId('baseline');
   await expect(note).toContainText(/Cranking speed \d+ rpm; healthy captures of this engine in your shop: \d+–\d+ rpm \(6 captures\), (below|within|above) them\./);
   await note.scrollIntoViewIfNeeded();
   await page.screenshot({ path: 'artifacts/screens/baseline.png', fullPage: true });
   // The V8 has no healthy history: no sentence.
-  const v8 = jobs.find((j: { repairOrder: string }) => j.repairOrder === 'RO-24104');
-  const v8Captures = (await (await page.request.get(`/api/jobs/${v8.id}/captures`)).json()).captures;
-  await page.goto(`/jobs/${v8.id}/captures/${v8Captures[0].id}`);
-  await expect(page.getByTestId('cylinder-chart')).toBeVisible({ timeout: 60_000 });
+  await openFirstCapture(page, 'RO-24104');
   await expect(page.getByTestId('baseline')).toHaveCount(0);
 });
