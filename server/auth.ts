@@ -84,8 +84,9 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
       },
     },
     // Every request looks its session up (no cookie cache): a sign-out, a password reset or a revoked session
-    // ends a copied cookie at once. Shop membership and role are read from the database on every request
-    // (server/with-shop.ts), so removing a member takes effect at once too.
+    // ends a copied cookie at once. Shop membership and role are remembered for a few seconds per instance
+    // (server/membership-cache.ts) and forgotten on every instance as soon as a member, role or shop changes
+    // (db/changes.ts), so removing a member takes effect at once too.
     session: { expiresIn: 60 * 60 * 24 * 7, updateAge: 60 * 60 * 24, cookieCache: { enabled: false } },
     databaseHooks: {
       session: {

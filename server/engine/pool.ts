@@ -10,12 +10,13 @@ import { availableParallelism } from 'node:os';
 import { resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
-import { CaptureError, type AnalysisResult } from '@/signal';
+import { CaptureError, ENGINE_VERSION, type AnalysisResult } from '@/signal';
 import type { StoredPieces } from '@/db/capture-store';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import type { ReportPdfData } from '../pdf/report-document';
 import { HttpError } from '../http';
+import { currentRequestId, log, safeError, shortId } from '../log';
 import type { EngineAnswer, EngineTask } from './thread';
 
 export const THREADS = Math.max(1, Math.min(4, availableParallelism()));
@@ -36,21 +37,65 @@ async function build(): Promise<Piscina> {
     const { buildEngine } = (await import(/*turbopackIgnore: true*/ /* @vite-ignore */ BUILDER)) as { buildEngine: (out: string) => Promise<string> };
     file = await buildEngine(DEV_BUILT);
   }
-  return new Piscina({
+  const p = new Piscina({
     filename: pathToFileURL(file).href,
     minThreads: 1,
     maxThreads: THREADS,
     maxQueue: MAX_QUEUE,
     idleTimeout: 60_000,
   });
+  // A thread that stops on its own (its bundle replaced by a broken one) lets the pool go: the next task starts a
+  // fresh one and asks it which engine it is.
+  p.on('error', (e: unknown) => {
+    log.error({ err: safeError(e) }, 'engine thread failed');
+    if (g.__crankprintEngineThreads === p) g.__crankprintEnginePool = g.__crankprintEngineThreads = undefined;
+    void p.destroy().catch(() => {});
+  });
+  // The first thread says which engine it is: one that cannot start, or a bundle from another engine version
+  // (a `next build` without the engine step), fails here within a second instead of leaving tasks waiting.
+  let version: unknown;
+  try {
+    const answer = (await p.run({ kind: 'version' } satisfies EngineTask)) as EngineAnswer<string>;
+    version = answer.ok ? answer.value : undefined;
+  } catch (e) {
+    void p.destroy().catch(() => {});
+    throw engineDown(e);
+  }
+  if (version !== ENGINE_VERSION) {
+    void p.destroy().catch(() => {});
+    throw engineDown(new Error(`engine bundle ${String(version)} beside source ${ENGINE_VERSION}`), `The analysis engine on this server (${String(version)}) is not the one this version of Crankprint was built with (${ENGINE_VERSION}): run npm run build, then start the server again.`);
+  }
+  g.__crankprintEngineThreads = p;
+  return p;
 }
 
-const g = globalThis as unknown as { __crankprintEnginePool?: Promise<Piscina>; __crankprintEnginePoolReady?: Piscina };
+const g = globalThis as unknown as { __crankprintEnginePool?: Promise<Piscina>; __crankprintEngineThreads?: Piscina };
 const pool = (): Promise<Piscina> =>
-  (g.__crankprintEnginePool ??= build().then((p) => (g.__crankprintEnginePoolReady = p), (e) => {
+  (g.__crankprintEnginePool ??= build().catch((e) => {
     g.__crankprintEnginePool = undefined;
     throw e;
   }));
+
+/** Starts the engine's threads and checks the bundle (at server start): throws the 503 a request would get. */
+export async function checkEngine(): Promise<void> {
+  await pool();
+}
+
+/** Stops the engine's threads (tests; the server's exit stops them with the process). */
+export async function closeEnginePool(): Promise<void> {
+  const p = g.__crankprintEnginePool;
+  g.__crankprintEnginePool = g.__crankprintEngineThreads = undefined;
+  await (await p?.catch(() => undefined))?.destroy();
+}
+
+/** A thread that could not start: a 503 with a reference to quote, never a wait. */
+function engineDown(e: unknown, why = 'The analysis engine could not start on this server, so nothing was analysed or stored; try again in a minute'): HttpError {
+  const requestId = currentRequestId() ?? '-';
+  log.error({ err: safeError(e), requestId }, 'engine thread did not start');
+  const err = new HttpError(503, 'ENGINE_UNAVAILABLE', `${why.replace(/[.:]$/, '')}. If it keeps happening, tell your shop owner the reference ${shortId(requestId)}.`);
+  err.detail = { requestId };
+  return err;
+}
 
 /** Runs one task; a capture error comes back as the engine's CaptureError, a full queue as a 503. */
 async function runTask<T>(task: EngineTask, signal?: AbortSignal, transfer: ArrayBufferLike[] = []): Promise<T> {
@@ -92,10 +137,4 @@ export function storedTraceExcerpt(stored: StoredPieces, result: AnalysisResult,
 /** A report PDF from its data (@react-pdf/renderer in a thread). */
 export async function renderPdf(data: ReportPdfData, signal?: AbortSignal): Promise<Buffer> {
   return Buffer.from(await runTask<Uint8Array>({ kind: 'pdf', data }, signal));
-}
-
-/** What the pool is doing (for the health check and the benchmark). */
-export function poolLoad(): { threads: number; queued: number; running: number } {
-  const p = g.__crankprintEnginePoolReady;
-  return { threads: THREADS, queued: p?.queueSize ?? 0, running: p ? p.utilization : 0 };
 }

@@ -12,6 +12,7 @@ import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/do
 import type { AnalysisResult, CaptureError } from '@/signal';
 import { analyzeBytes, analyzeCapture, CaptureImporter, importCapture, isCaptureError, refusalFor } from '@/signal';
 import { type TraceExcerpt, traceExcerpt } from '@/domain/trace-excerpt';
+import { ENGINE_VERSION } from '@/signal';
 import type { ReportPdfData } from '../pdf/report-document';
 import { renderReportPdf } from '../pdf/render';
 
@@ -19,7 +20,9 @@ export type EngineTask =
   | { kind: 'screen-upload'; pieces: Uint8Array[]; length: number; settings: AnalysisSettingsValues; compress: boolean }
   | { kind: 'analyze'; stored: StoredPieces; settings: AnalysisSettingsValues }
   | { kind: 'trace'; stored: StoredPieces; result: AnalysisResult; settings: AnalysisSettingsValues }
-  | { kind: 'pdf'; data: ReportPdfData };
+  | { kind: 'pdf'; data: ReportPdfData }
+  /** Which engine this bundle is: asked once when the pool starts, so a stale or broken bundle is found at once. */
+  | { kind: 'version' };
 
 export interface EngineFailure {
   ok: false;
@@ -49,6 +52,8 @@ function analyzeStored(t: Extract<EngineTask, { kind: 'analyze' }>): { result: A
 
 async function run(task: EngineTask): Promise<unknown> {
   switch (task.kind) {
+    case 'version':
+      return ENGINE_VERSION;
     case 'pdf':
       return new Uint8Array(await renderReportPdf(task.data));
     case 'screen-upload':

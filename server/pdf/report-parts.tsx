@@ -6,8 +6,10 @@ import { G, Line, Polyline, Rect, StyleSheet, Svg, Text, View } from '@react-pdf
 import { type AnalysisResult, intervalText, percentText, RAW_LABELS } from '@/signal';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import { MONO_FONTS, TEXT_FONTS } from './fonts';
+import { LIGHT_HEX } from '@/tailwind.config';
 
-export const C = { ink: '#1B2430', muted: '#545C68', line: '#CDC7BC', brand: '#A64822', ok: '#166E60', low: '#B0261E', uncertain: '#606876', high: '#965C00', limit: '#6842A8', event: '#2656A0', raised: '#EEEAE2' };
+/** The light theme's colours (tailwind.config.ts), as the PDF takes them. */
+export const C = LIGHT_HEX;
 
 export const s = StyleSheet.create({
   page: { fontFamily: TEXT_FONTS, fontSize: 9.5, color: C.ink, paddingTop: 36, paddingBottom: 48, paddingHorizontal: 40 },

@@ -9,7 +9,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { unpackPieces } from '@/db/chunks';
 import { engineSettings, settingsForEngine } from '@/domain/analysis-settings';
 import { analyzeBytes, isCaptureError, refusalFor } from '@/signal';
-import { analyzeStored, MAX_QUEUE, renderPdf, screenUpload, storedTraceExcerpt, THREADS } from '@/server/engine/pool';
+import { analyzeStored, closeEnginePool, MAX_QUEUE, renderPdf, screenUpload, storedTraceExcerpt, THREADS } from '@/server/engine/pool';
 import { sampleReportData } from '../report/sample-report';
 import { HttpError } from '@/server/http';
 import { traceExcerpt } from '@/domain/trace-excerpt';
@@ -20,9 +20,7 @@ const I4 = settingsForEngine({ cylinders: 4, layout: 'inline', firingOrder: [1, 
 const pieces = (b: Buffer, size = 1 << 18) => Array.from({ length: Math.ceil(b.length / size) }, (_, k) => new Uint8Array(b.subarray(k * size, (k + 1) * size)));
 const sha = (b: Uint8Array) => createHash('sha256').update(b).digest('hex');
 
-afterAll(async () => {
-  await (globalThis as unknown as { __crankprintEnginePoolReady?: { destroy(): Promise<void> } }).__crankprintEnginePoolReady?.destroy();
-});
+afterAll(closeEnginePool);
 
 const stored = (chunks: Uint8Array[]) => ({ pieces: chunks, size: SAMPLE.length, gzip: true });
 

@@ -11,6 +11,14 @@ import { SWEEP_ENGINES as ENGINES, SWEEP_LEAKS as LEAKS, SWEEP_METHODS, type Swe
 
 /** Mean absolute error per method on this sweep, percentage points (measured; figures as they are, not capped at 100). */
 const TOLERANCE: Partial<Record<Method, number>> = { 'current+sync': 1.7, teeth: 1.5, 'hall+sync': 1.5, vr: 1.5, 'teeth, event duration': 6 };
+/**
+ * Each case's own ceiling (one engine × one method over the leak patterns, mean |error|, points): the issue's
+ * target for the electrical method (3), and on crank speed and event duration what was measured case by case,
+ * with a little room; a change may only bring these down.
+ */
+const CASE_TOLERANCE: Partial<Record<Method, number>> = { 'current+sync': 3, teeth: 2, 'hall+sync': 2, vr: 2, 'teeth, event duration': 6 };
+/** Measured exceptions: a three-cylinder engine's events are read by duration worst of all (20.7 points). */
+const CASE_EXCEPTION: Record<string, number> = { 'I3 × teeth, event duration': 21 };
 /** Teeth a speed curve is read from are timed event by event too: the two readings agree on a share of the captures at least this. */
 const TEETH_CHECK_AGREES = 0.8;
 
@@ -19,10 +27,14 @@ describe('recovery sweep on the realistic simulator', () => {
   for (const [name, engine] of Object.entries(ENGINES)) {
     for (const method of SWEEP_METHODS) {
       it(`${name} × ${method}`, () => {
+        const own = new SweepTally();
         for (const [kind, leakOf] of Object.entries(LEAKS)) {
           const { r, truth } = sweepCase(engine, leakOf(engine.cylinders), method, 11);
           tally.add(name, method, kind, r, truth, engine);
+          own.add(name, method, kind, r, truth, engine);
         }
+        expect(own.wrong, 'confident wrong flags').toEqual([]);
+        expect(own.figures(method).mae).toBeLessThanOrEqual(CASE_EXCEPTION[`${name} × ${method}`] ?? CASE_TOLERANCE[method]!);
       });
     }
   }
