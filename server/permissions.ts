@@ -52,6 +52,8 @@ export const advisor = ac.newRole({
 
 export const roles = { owner, technician, advisor };
 export type RoleName = keyof typeof roles;
+/** The roles, most powerful first. */
+export const ROLE_NAMES = ['owner', 'technician', 'advisor'] as const satisfies readonly RoleName[];
 
 type Statements = typeof statements;
 export type Permission = { [K in keyof Statements]?: Statements[K][number][] };

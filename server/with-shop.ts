@@ -1,15 +1,15 @@
 /**
  * The one wrapper every route handler goes through: session → shop membership → role permission → zod input,
- * in that order. Handlers never read the session themselves.
+ * in that order, all read from the route's contract (server/api/contract.ts). Handlers never read the session themselves.
  */
 import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { type NextRequest, NextResponse } from 'next/server';
-import { z } from 'zod';
 import { getDb, shuttingDown } from '@/db/client';
 import { StorageUnavailableError } from '@/db/object-store';
 import { members, organizations, shopSettings } from '@/db/schema';
 import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';
+import { type InputOf, inputSchema, type OutputOf, permissionOf, type RouteContract } from './api/contract';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { rememberMembership } from './membership-cache';
@@ -33,7 +33,16 @@ export interface ShopContext<I> extends SessionContext {
 }
 
 type Params = Promise<Record<string, string>>;
-type Handler<I> = (ctx: ShopContext<I> & { params: Record<string, string> }) => Promise<unknown>;
+/**
+ * A handler answers what its contract's output describes once sent as JSON (dates become strings, so the type is
+ * not checked here: the role matrix validates every real answer against the contract), or a Response of its own.
+ */
+type Answer<C extends RouteContract> = Promise<unknown> & { readonly __answers?: OutputOf<C> };
+type Handler<C extends RouteContract> = (ctx: ShopContext<InputOf<C>> & { params: Record<string, string> }) => Answer<C>;
+/** A route handler as Next.js calls it, carrying the contract it serves (the route test reads it). */
+export type RouteHandler = ((req: NextRequest, context: { params: Params }) => Promise<Response>) & { contract: RouteContract };
+
+const serving = (contract: RouteContract, handler: (req: NextRequest, context: { params: Params }) => Promise<Response>): RouteHandler => Object.assign(handler, { contract });
 
 const ACTIONS: Record<string, string> = {
   create: 'create',
@@ -132,13 +141,14 @@ async function readInput(req: NextRequest, params: Record<string, string>, rawBo
   return { ...query, ...(body as object), ...params };
 }
 
-/** Parses query, body and route params merged; a 400 naming each wrong field in a sentence. */
-async function parseInput<S extends z.ZodType>(schema: S, req: NextRequest, params: Record<string, string>, rawBody = false): Promise<z.infer<S>> {
-  const raw = await readInput(req, params, rawBody);
+/** Parses query, body and route params merged, with the contract's schema; a 400 naming each wrong field in a sentence. */
+async function parseInput<C extends RouteContract>(contract: C, req: NextRequest, params: Record<string, string>): Promise<InputOf<C>> {
+  const schema = inputSchema(contract);
+  const raw = await readInput(req, params, !!contract.upload);
   const nul = findNul(raw);
   if (nul) throw new HttpError(400, 'INVALID_INPUT', `The field "${nul}" holds a NUL character (\\u0000); remove it and send again.`, { [nul]: 'Remove the NUL character.' });
   const parsed = schema.safeParse(raw);
-  if (parsed.success) return parsed.data;
+  if (parsed.success) return parsed.data as InputOf<C>;
   const fields = fieldErrors(parsed.error);
   throw new HttpError(400, 'INVALID_INPUT', `Check ${Object.keys(fields).length === 1 ? 'this field' : 'these fields'}: ${Object.values(fields).join(' ')}`, fields);
 }
@@ -204,11 +214,13 @@ function handleError(e: unknown, seen: Seen): Response {
 }
 
 /**
- * Wraps a route handler: `permission` is checked against the member's role, `schema` parses query, body and
- * route params merged (with `rawBody`, query and params only: the handler streams the body itself).
+ * Wraps a route handler: the contract's permission is checked against the member's role, its schemas parse
+ * query, body and route params merged (for an upload, query and params only: the handler streams the body).
  */
-export function withShop<S extends z.ZodType>(permission: Permission, schema: S, handler: Handler<z.infer<S>>, options: { rawBody?: boolean } = {}) {
-  return (req: NextRequest, context: { params: Params }): Promise<Response> =>
+export function withShop<C extends RouteContract>(contract: C, handler: Handler<C>): RouteHandler {
+  const permission = permissionOf(contract);
+  if (!permission) throw new Error(`${contract.method} ${contract.path} is not a shop route`);
+  return serving(contract, (req, context) =>
     respond(
       req,
       async (seen) => {
@@ -221,32 +233,35 @@ export function withShop<S extends z.ZodType>(permission: Permission, schema: S,
           throw new HttpError(403, 'FORBIDDEN', `Your role (${role}) cannot ${describe(permission)}; ask your shop owner.`);
         }
         const params = (await context.params) ?? {};
-        const input = await parseInput(schema, req, params, options.rawBody);
+        const input = await parseInput(contract, req, params);
         return handler({ ...session, shop: { id: m.shopId, name: m.shopName, settings: m.settings }, member: { id: m.memberId, role }, input, req, params });
       },
-      options.rawBody,
-    );
+      !!contract.upload,
+    ),
+  );
 }
 
 /** For routes that need a signed-in user but no shop yet (creating a shop). */
-export function withSession<S extends z.ZodType>(schema: S, handler: (ctx: SessionContext & { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
-  return (req: NextRequest, context: { params: Params }): Promise<Response> =>
+export function withSession<C extends RouteContract>(contract: C, handler: (ctx: SessionContext & { input: InputOf<C>; req: NextRequest }) => Answer<C>): RouteHandler {
+  return serving(contract, (req, context) =>
     respond(req, async () => {
       const session = await requireSession(req);
-      const input = await parseInput(schema, req, (await context.params) ?? {});
+      const input = await parseInput(contract, req, (await context.params) ?? {});
       return handler({ ...session, input, req });
-    });
+    }),
+  );
 }
 
 /**
  * For the customer's share-link routes, which have no session: a rate limit per client, then zod input.
  * The token in the input is the only scope; handlers answer 404 for any token that does not open a report.
  */
-export function withPublic<S extends z.ZodType>(schema: S, handler: (ctx: { input: z.infer<S>; req: NextRequest }) => Promise<unknown>) {
-  return (req: NextRequest, context: { params: Params }): Promise<Response> =>
+export function withPublic<C extends RouteContract>(contract: C, handler: (ctx: { input: InputOf<C>; req: NextRequest }) => Answer<C>): RouteHandler {
+  return serving(contract, (req, context) =>
     respond(req, async () => {
       await spend('share', req.headers);
-      const input = await parseInput(schema, req, (await context.params) ?? {});
+      const input = await parseInput(contract, req, (await context.params) ?? {});
       return handler({ input, req });
-    });
+    }),
+  );
 }

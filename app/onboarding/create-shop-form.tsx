@@ -3,7 +3,8 @@ import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { ApiError, call } from '@/components/data/api';
+import { createShop } from '@/server/api/routes/shop';
 
 export function CreateShopForm() {
   const router = useRouter();
@@ -18,7 +19,7 @@ export function CreateShopForm() {
         setBusy(true);
         try {
           // The shop's dates start in this browser's time zone; the owner can change it on the shop page.
-          await api('/api/shops', { method: 'POST', json: { name, timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone } });
+          await call(createShop, { json: { name, timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone } });
           router.push('/jobs');
           router.refresh();
         } catch (err) {

@@ -8,8 +8,9 @@ import { useEffect, useState } from 'react';
 import { useMutation } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
 import { CAUTIONS } from '@/domain/cautions';
+import { readCautions } from '@/server/api/routes/jobs';
 
 export function CautionsGate({ jobId, read: readBefore, children }: { jobId: string; read: boolean; children: React.ReactNode }) {
   const [read, setRead] = useState(readBefore);
@@ -18,7 +19,7 @@ export function CautionsGate({ jobId, read: readBefore, children }: { jobId: str
   const [live, setLive] = useState(false);
   useEffect(() => setLive(true), []);
   const record = useMutation({
-    mutationFn: () => api(`/api/jobs/${jobId}/cautions`, { method: 'POST', json: {} }),
+    mutationFn: () => call(readCautions, { params: { jobId } }),
     onSuccess: () => setRead(true),
   });
   if (read) return <>{children}</>;

@@ -9,7 +9,7 @@ import { useRouter } from 'next/navigation';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/field';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
 import { SURE_MAPPING } from '@/signal/steps/screen';
@@ -31,6 +31,7 @@ import { localUpload } from './local-files';
 import { CHANNELS } from './trace-channels';
 import { useAnalysisWorker } from './use-analysis-worker';
 import { useUrlSettings } from './use-url-settings';
+import { saveAnalysis } from '@/server/api/routes/captures';
 
 interface Props {
   captureId: string;
@@ -132,7 +133,7 @@ export function Workspace({ captureId, rawUrl, initialSettings, jobSettings, sav
   const settingsKey = JSON.stringify(settings);
   const [savedWith, setSavedWith] = useState<string | null>(null);
   const save = useMutation({
-    mutationFn: (key: string) => api<{ analysis: { id: string; result: AnalysisResult } }>(`/api/captures/${captureId}/analyses`, { method: 'POST', json: { settings } }).then(() => key),
+    mutationFn: (key: string) => call(saveAnalysis, { params: { captureId }, json: { settings } }).then(() => key),
     // The saved-analyses list is rendered on the server: refresh it.
     onSuccess: (key) => {
       setSavedWith(key);

@@ -1,15 +1,15 @@
 /**
  * Route inputs that are not an entity's schema (those live in db/validators and domain/): one zod schema per
- * route, used by the route and by the published API description (server/api/description.ts).
+ * route, declared in the routes' contracts (server/api/routes/).
  */
 import { z } from 'zod';
 import { reportContentSchema } from '@/domain/report';
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
 import { engineSchema } from '@/domain/vehicle';
 import { timeZoneSchema } from '@/domain/shop-settings';
+import { ROLE_NAMES } from '@/server/permissions';
 
-export const ROLES = ['owner', 'technician', 'advisor'] as const;
-const role = z.enum(ROLES, { message: 'Choose owner, technician or advisor.' });
+const role = z.enum(ROLE_NAMES, { message: 'Choose owner, technician or advisor.' });
 
 export const saveAnalysisInput = z.object({ settings: analysisSettingsSchema });
 /** The revision and version an editor loaded (0 and 0 before the job had a report). */
@@ -43,4 +43,4 @@ export const decisionInput = z.object({
 });
 
 /** Route parameters: a record id from the path. */
-export const idParam = (name: string) => z.object({ [name]: z.string() });
+export const idParam = <N extends string>(name: N) => z.object({ [name]: z.string() } as Record<N, z.ZodString>);

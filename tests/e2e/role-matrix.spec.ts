@@ -1,11 +1,13 @@
 /**
- * The role matrix: every route handler × (anonymous, owner, technician, advisor, owner of another shop), with
- * PRODUCT.md's role table as the expectation. A route file or method without a row here fails the test.
+ * The role matrix: every route's contract (server/api/routes/) × (anonymous, owner, technician, advisor, owner of
+ * another shop), with PRODUCT.md's role table as the expectation. A contract without a row here fails the test
+ * (tests/server/api-description.test.ts holds every route file to its contract).
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+import { readFileSync } from 'node:fs';
 import { type APIRequestContext, type APIResponse, expect, test } from '@playwright/test';
 import Ajv2020Module from 'ajv/dist/2020.js';
+import type { RouteContract } from '@/server/api/contract';
+import { ROUTES } from '@/server/api/routes';
 import { DEMO, newContext, signIn, signUpVerified, unique } from './helpers';
 
 type Actor = 'anon' | 'owner' | 'technician' | 'advisor' | 'other';
@@ -93,30 +95,20 @@ const ROWS: Row[] = [
   { file: 'shops', method: 'POST', call: (c) => c.post('/api/shops', { data: { name: `Extra shop ${++seq}` } }), expect: { anon: 401, owner: 200, technician: 200, advisor: 200, other: 200 } },
 ];
 
-/** Every (route file, method) under app/api. */
-function routes(): { file: string; method: string }[] {
-  const out: { file: string; method: string }[] = [];
-  const walk = (dir: string) => {
-    for (const name of readdirSync(dir)) {
-      const p = join(dir, name);
-      if (statSync(p).isDirectory()) walk(p);
-      else if (name === 'route.ts') {
-        const src = readFileSync(p, 'utf8');
-        const file = p.replace(/^app\/api\//, '').replace(/\/route\.ts$/, '');
-        const methods = new Set<string>();
-        for (const m of src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)) methods.add(m[1]);
-        for (const m of src.matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g)) methods.add(m[1]);
-        for (const m of methods) out.push({ file, method: m });
-      }
-    }
-  };
-  walk('app/api');
-  return out;
+/** Every route's contract (server/api/routes/), by its route folder under app/api: {jobId} → [jobId], {path} → [...all]. */
+function routes(): { file: string; method: string; contract: RouteContract }[] {
+  return ROUTES.map((contract) => ({
+    file: contract.path.replace(/^\/api\//, '').replace('{path}', '[...all]').replace(/\{([^}]+)\}/g, '[$1]'),
+    method: contract.method,
+    contract,
+  }));
 }
 
-test('every route handler has a row in the role matrix', () => {
+test('every route contract has a row in the role matrix, and every row a contract', () => {
   const missing = routes().filter((r) => !ROWS.some((x) => x.file === r.file && x.method === r.method));
-  expect(missing, 'routes missing from the role matrix').toEqual([]);
+  expect(missing.map((r) => `${r.method} ${r.file}`), 'routes missing from the role matrix').toEqual([]);
+  const stale = ROWS.filter((x) => !routes().some((r) => r.file === x.file && r.method === x.method));
+  expect(stale.map((x) => `${x.method} ${x.file}`), 'rows for routes that do not exist').toEqual([]);
 });
 
 test('role matrix: session → role → shop scope on every route', async () => {
@@ -153,8 +145,9 @@ test('role matrix: session → role → shop scope on every route', async () => 
   const otherJobs = (await (await ctx.other.get('/api/jobs')).json()).jobs as { id: string }[];
   expect(otherJobs.some((j) => j.id === fixture.jobId)).toBe(false);
 
-  // Every JSON answer of 200 is checked against the response schema the API description declares for it
-  // (/api/openapi.json, JSON Schema 2020-12, validated by Ajv), so the description cannot drift from the routes.
+  // Every JSON answer of 200 is checked against the output schema its route's contract declares (zod), and
+  // against the same schema as published in /api/openapi.json (JSON Schema 2020-12, validated by Ajv), so neither
+  // the contract nor the description can drift from what the routes answer.
   const doc = await (await ctx.anon.get('/api/openapi.json')).json();
   // The package is CommonJS: its class is the default export's default.
   const Ajv2020 = (Ajv2020Module as unknown as { default: typeof Ajv2020Module }).default ?? Ajv2020Module;
@@ -177,7 +170,11 @@ test('role matrix: session → role → shop scope on every route', async () => 
         continue;
       }
       checked++;
-      if (!validate(await res.json())) drift.push(`${row.method} ${path} as ${actor}: ${ajv.errorsText(validate.errors)}`);
+      const body = await res.json();
+      if (!validate(body)) drift.push(`${row.method} ${path} as ${actor}: ${ajv.errorsText(validate.errors)}`);
+      const contract = routes().find((r) => r.file === row.file && r.method === row.method)!.contract;
+      const parsed = typeof contract.output === 'string' ? null : contract.output.safeParse(body);
+      if (parsed && !parsed.success) drift.push(`${row.method} ${path} as ${actor}, against its contract: ${parsed.error.message}`);
     }
   }
   expect(failures).toEqual([]);

@@ -1,13 +1,18 @@
 /**
- * The published API description: every route file under app/api and every method it exports has an entry, the
- * document is OpenAPI 3.1 (the specification's required fields: openapi, info.title, info.version, paths), each
- * path parameter in a template is declared, and the request schemas are the routes' own (a wrong body fails both).
+ * One contract per route (server/api/contract.ts): every route file under app/api and every method it exports
+ * serves a contract at its own path and method, and no contract is left without a route; the published document
+ * is OpenAPI 3.1 (the specification's required fields: openapi, info.title, info.version, paths), each path
+ * parameter in a template is declared, the request schemas are the routes' own, and who may call is read from the
+ * role table (PRODUCT.md's roles). The role matrix (tests/e2e/role-matrix.spec.ts) validates every real answer
+ * against the contracts' output schemas.
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { readdirSync, statSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { jobSchema } from '@/domain/job';
-import { API, apiDescription } from '@/server/api/description';
+import { whoMay } from '@/server/api/contract';
+import { apiDescription } from '@/server/api/description';
+import { contractAt, ROUTES } from '@/server/api/routes';
 
 function routeFiles(dir: string): string[] {
   return readdirSync(dir).flatMap((n) => {
@@ -22,28 +27,33 @@ function servedPath(file: string): string {
   return `/${dir.replace(/\[\.\.\.[^\]]+\]/g, '{path}').replace(/\[([^\]]+)\]/g, '{$1}')}`;
 }
 
-function exportedMethods(file: string): string[] {
-  const text = readFileSync(file, 'utf8');
-  const named = [...text.matchAll(/export (?:const|function|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]);
-  const listed = [...text.matchAll(/export \{([^}]+)\}/g)].flatMap((m) => [...m[1].matchAll(/as (GET|POST|PUT|PATCH|DELETE)\b/g)].map((x) => x[1]));
-  return [...named, ...listed].map((m) => m.toLowerCase());
-}
+const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
 
-describe('API description', () => {
+describe('route contracts and the API description', () => {
   const files = routeFiles('app/api');
-  const doc = apiDescription('http://127.0.0.1:3000') as { openapi: string; info: { title: string; version: string }; paths: Record<string, Record<string, { parameters?: { in: string; name: string }[] }>> };
+  const doc = apiDescription('http://127.0.0.1:3000') as { openapi: string; info: { title: string; version: string }; paths: Record<string, Record<string, { parameters?: { in: string; name: string }[]; description?: string }>> };
 
-  it('has an entry for every route file and method, and none for a route that does not exist', () => {
+  it('every route file’s methods serve the contract at their own path, and every contract has its route', async () => {
     expect(files.length).toBeGreaterThan(20);
-    const served = new Map(files.map((f) => [servedPath(f), exportedMethods(f)]));
-    for (const [path, methods] of served) {
+    const served = new Set<string>();
+    for (const file of files) {
+      const mod = (await import(`@/${file.replace(/\.ts$/, '')}`)) as Record<string, unknown>;
+      const path = servedPath(file);
+      const methods = METHODS.filter((m) => typeof mod[m] === 'function');
       expect(methods.length, path).toBeGreaterThan(0);
-      for (const m of methods) expect(API[path]?.[m as 'get'], `${m.toUpperCase()} ${path} has no entry`).toBeDefined();
+      for (const m of methods) {
+        const contract = contractAt(m, path);
+        expect(contract, `${m} ${path} has no contract`).toBeDefined();
+        served.add(`${m} ${path}`);
+        // better-auth's catch-all hands requests on as they are; every other handler is wrapped with its contract.
+        if (!path.startsWith('/api/auth/') && path !== '/api/health' && path !== '/api/openapi.json') {
+          expect((mod[m] as { contract?: unknown }).contract, `${m} ${path} is not wrapped with its contract`).toBe(contract);
+        }
+      }
     }
-    for (const [path, methods] of Object.entries(API)) {
-      for (const m of Object.keys(methods)) expect(served.get(path), `${path} is described but no route file serves it`).toContain(m);
-    }
-  });
+    for (const c of ROUTES) expect(served.has(`${c.method} ${c.path}`), `${c.method} ${c.path} has a contract but no route`).toBe(true);
+    expect(new Set(ROUTES.map((c) => `${c.method} ${c.path}`)).size, 'one contract per method and path').toBe(ROUTES.length);
+  }, 60_000);
 
   it('is an OpenAPI 3.1 document with every path parameter declared', () => {
     expect(doc.openapi).toBe('3.1.0');
@@ -59,8 +69,16 @@ describe('API description', () => {
   });
 
   it('describes a request body with the route’s own schema', () => {
-    expect(API['/api/jobs'].post?.body).toBe(jobSchema);
+    expect(contractAt('POST', '/api/jobs')?.body).toBe(jobSchema);
     const body = (doc.paths['/api/jobs'].post as unknown as { requestBody: { content: Record<string, { schema: unknown }> } }).requestBody.content['application/json'].schema;
     expect(JSON.stringify(body)).toContain('repairOrder');
+  });
+
+  it('says who may call from the role table (PRODUCT.md: owners remove jobs, technicians edit, advisors read and send)', () => {
+    expect(whoMay(contractAt('DELETE', '/api/jobs/{jobId}')!)).toBe('owners');
+    expect(whoMay(contractAt('PATCH', '/api/jobs/{jobId}')!)).toBe('owners and technicians');
+    expect(whoMay(contractAt('POST', '/api/reports/{reportId}/send')!)).toBe('any member of the shop');
+    expect(whoMay(contractAt('POST', '/api/public/decision')!)).toBe('anyone with the link');
+    expect(doc.paths['/api/jobs/{jobId}'].delete.description).toBe('Who: owners.');
   });
 });

@@ -14,6 +14,8 @@ import { getDb } from '@/db/client';
 import { DEMO_PASSWORD, seedDemoIfEmpty } from '@/db/seed';
 import { APP_URL, getAuth } from '@/server/auth';
 import { withShop } from '@/server/with-shop';
+import { route } from '@/server/api/contract';
+import type { Permission } from '@/server/permissions';
 
 const cookies: Record<string, string> = {};
 
@@ -35,13 +37,16 @@ const call = (handler: (req: NextRequest, ctx: { params: Promise<Record<string, 
   );
 
 const seen: { shopId?: string; input?: unknown } = {};
-const read = withShop({ job: ['read'] }, z.object({ jobId: z.string().min(3, 'A job id has at least 3 characters.') }), async ({ shop, input }) => {
+/** A test route's contract: a permission and the input's schema. */
+const testRoute = <P extends z.ZodObject>(permission: Permission, params: P) => route({ method: 'GET', path: '/api/test', summary: 'A test route.', access: { permission }, params, output: z.unknown() });
+
+const read = withShop(testRoute({ job: ['read'] }, z.object({ jobId: z.string().min(3, 'A job id has at least 3 characters.') })), async ({ shop, input }) => {
   seen.shopId = shop.id;
   seen.input = input;
   return { ok: true, shop: shop.id };
 });
-const remove = withShop({ job: ['delete'] }, z.object({ note: z.string() }), async () => ({ removed: true }));
-const broken = withShop({ job: ['read'] }, z.object({}), async () => {
+const remove = withShop(testRoute({ job: ['delete'] }, z.object({ note: z.string() })), async () => ({ removed: true }));
+const broken = withShop(testRoute({ job: ['read'] }, z.object({})), async () => {
   throw new Error('secret detail: the database password is hunter2');
 });
 
@@ -100,7 +105,7 @@ describe('withShop', () => {
   });
 
   it('reads a DELETE’s JSON body when it sends one, and takes an empty DELETE by its path whatever its Content-Type', async () => {
-    const owner = withShop({ job: ['read'] }, z.object({ jobId: z.string(), confirm: z.string().default('') }), async ({ input }) => input);
+    const owner = withShop(testRoute({ job: ['read'] }, z.object({ jobId: z.string(), confirm: z.string().default('') })), async ({ input }) => input);
     const withBody = await call(owner, { method: 'DELETE', cookie: cookies.owner, origin: true, body: { confirm: 'Ölweg — 東 "100%"' }, params: { jobId: 'j1' } });
     expect(await withBody.json()).toEqual({ jobId: 'j1', confirm: 'Ölweg — 東 "100%"' });
     const empty = await owner(

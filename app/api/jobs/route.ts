@@ -1,13 +1,13 @@
 /** The shop's jobs: list (search, status) and create (with an existing or a new vehicle). */
 import { recordAudit } from '@/db/queries/audit';
 import { createJob, DuplicateRepairOrderError, listJobs } from '@/db/queries/jobs';
-import { jobSchema, listQuerySchema } from '@/domain/job';
 import { HttpError, notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/jobs';
 
-export const GET = withShop({ job: ['read'] }, listQuerySchema, async ({ input, shop }) => ({ jobs: await listJobs(shop.id, input) }));
+export const GET = withShop(api.listJobs, async ({ input, shop }) => ({ jobs: await listJobs(shop.id, input) }));
 
-export const POST = withShop({ job: ['create'] }, jobSchema, async ({ input, shop, user }) => {
+export const POST = withShop(api.createJob, async ({ input, shop, user }) => {
   try {
     const job = await createJob(shop.id, user.id, input);
     if (!job) throw notFound('That vehicle');

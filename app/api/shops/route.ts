@@ -1,7 +1,5 @@
 /** Create a shop (the signed-in user becomes its owner; its dates start in the creator's time zone) and list the user's shops. */
-import { createShopInput } from '@/server/api/inputs';
 import { eq } from 'drizzle-orm';
-import { z } from 'zod';
 import { getDb } from '@/db/client';
 import { recordAudit } from '@/db/queries/audit';
 import { saveShopSettings } from '@/db/queries/shops';
@@ -10,10 +8,10 @@ import { members, organizations } from '@/db/schema';
 import { getAuth } from '@/server/auth';
 import { announceMembershipChange } from '@/server/membership-cache';
 import { withSession } from '@/server/with-shop';
+import * as api from '@/server/api/routes/shop';
 
 export const POST = withSession(
-  createShopInput,
-  async ({ input, req, user }) => {
+  api.createShop, async ({ input, req, user }) => {
     const auth = await getAuth();
     const slug = `${input.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'shop'}-${crypto.randomUUID().slice(0, 8)}`;
     const shop = await auth.api.createOrganization({ body: { name: input.name, slug }, headers: req.headers });
@@ -26,7 +24,7 @@ export const POST = withSession(
   },
 );
 
-export const GET = withSession(z.object({}), async ({ user }) => {
+export const GET = withSession(api.listShops, async ({ user }) => {
   const db = await getDb();
   const rows = await db
     .select({ id: organizations.id, name: organizations.name, role: members.role })

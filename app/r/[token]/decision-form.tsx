@@ -2,7 +2,8 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice } from '@/components/ui/field';
-import { api, ApiError } from '@/components/data/api';
+import { ApiError, call } from '@/components/data/api';
+import { answerDecision } from '@/server/api/routes/reports';
 
 export function DecisionForm({ token, revision }: { token: string; revision: number }) {
   const [name, setName] = useState('');
@@ -12,7 +13,7 @@ export function DecisionForm({ token, revision }: { token: string; revision: num
     setError(null);
     try {
       // This page sends no Referer elsewhere; to our own server it names itself, for the origin check.
-      await api('/api/public/decision', { method: 'POST', json: { token, decision, typedName: name }, referrerPolicy: 'same-origin' });
+      await call(answerDecision, { json: { token, decision, typedName: name }, referrerPolicy: 'same-origin' });
       setDone(decision === 'approve' ? 'Thank you: you approved the recommended next step. The shop has been told.' : 'Thank you: you declined for now. The shop has been told.');
     } catch (e) {
       setError(e instanceof ApiError ? (e.fields.typedName ?? e.message) : 'That did not go through; try again.');

@@ -1,21 +1,17 @@
 'use client';
 import { useQuery } from '@tanstack/react-query';
-import { api } from '../api';
+import type { OutputOf } from '@/server/api/contract';
+import { listVehicles } from '@/server/api/routes/catalog';
+import { call } from '../api';
 
-export interface VehicleRow {
-  id: string;
-  vin: string | null;
-  year: number | null;
-  make: string;
-  model: string;
-  engine: { cylinders: number; layout: string; firingOrder: number[]; displacementL?: number };
-}
+/** A vehicle as the vehicles route returns it (its contract's output). */
+export type VehicleRow = OutputOf<typeof listVehicles>['vehicles'][number];
 
 export const vehicleKeys = { all: ['vehicles'] as const };
 
 export function useVehicles() {
   return useQuery({
     queryKey: vehicleKeys.all,
-    queryFn: ({ signal }) => api<{ vehicles: VehicleRow[] }>('/api/vehicles', { signal }).then((r) => r.vehicles),
+    queryFn: ({ signal }) => call(listVehicles, { signal }).then((r) => r.vehicles),
   });
 }

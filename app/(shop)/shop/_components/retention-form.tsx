@@ -8,9 +8,10 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice } from '@/components/ui/field';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
 import { RETENTION_DAYS, retentionInput, retentionWords } from '@/domain/retention';
 import { withoutDigitGroups } from '@/domain/typed-number';
+import { setRetention } from '@/server/api/routes/shop';
 
 interface Draft {
   keep: 'forever' | 'days';
@@ -31,7 +32,7 @@ export function RetentionForm({ days, lastSweep }: { days: number | null; lastSw
         const parsed = retentionInput.safeParse({ retentionDays: draft.keep === 'forever' ? null : typed === '' ? Number.NaN : Number(withoutDigitGroups(typed)) });
         if (!parsed.success) return setError('days', { message: parsed.error.issues[0]?.message });
         try {
-          await api('/api/shop/retention', { method: 'PATCH', json: parsed.data });
+          await call(setRetention, { json: parsed.data });
           setNote({ tone: 'ok', text: `Saved: captures and analyses are ${retentionWords(parsed.data.retentionDays)}.` });
           router.refresh();
         } catch (e) {

@@ -7,7 +7,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice } from '@/components/ui/field';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
+import { removeShop } from '@/server/api/routes/shop';
 
 export function ShopData({ name }: { name: string }) {
   const [error, setError] = useState<string | null>(null);
@@ -26,7 +27,7 @@ export function ShopData({ name }: { name: string }) {
         onSubmit={handleSubmit(async (v) => {
           setError(null);
           try {
-            await api('/api/shop', { method: 'DELETE', json: v });
+            await call(removeShop, { json: v });
             window.location.assign('/');
           } catch (e) {
             setError(errorText(e, 'The shop was not removed; try again.'));

@@ -5,21 +5,17 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, Select } from '@/components/ui/field';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
+import { ROLE_NAMES, type RoleName } from '@/server/permissions';
+import { cancelInvitation, changeMember, getShop, invite as inviteRoute, removeMember } from '@/server/api/routes/shop';
 
-interface ShopData {
-  role: string;
-  members: { id: string; role: string; name: string; email: string }[];
-  invitations: { id: string; email: string; role: string; expiresAt: string }[];
-}
 
-const ROLES = ['owner', 'technician', 'advisor'] as const;
 
 export function ShopMembers({ isOwner, selfMemberId }: { isOwner: boolean; selfMemberId: string }) {
   const qc = useQueryClient();
-  const shop = useQuery({ queryKey: shopKeys.current, queryFn: () => api<ShopData>('/api/shop') });
+  const shop = useQuery({ queryKey: shopKeys.current, queryFn: () => call(getShop) });
   const [email, setEmail] = useState('');
-  const [role, setRole] = useState<string>('technician');
+  const [role, setRole] = useState<RoleName>('technician');
   const [message, setMessage] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const done = (text: string) => {
     setMessage({ tone: 'ok', text });
@@ -28,7 +24,7 @@ export function ShopMembers({ isOwner, selfMemberId }: { isOwner: boolean; selfM
   const fail = (e: unknown) => setMessage({ tone: 'error', text: errorText(e) });
 
   const invite = useMutation({
-    mutationFn: () => api('/api/shop/invitations', { method: 'POST', json: { email, role } }),
+    mutationFn: () => call(inviteRoute, { json: { email, role } }),
     onSuccess: () => {
       setEmail('');
       return done(`Invitation sent to ${email}.`);
@@ -36,17 +32,17 @@ export function ShopMembers({ isOwner, selfMemberId }: { isOwner: boolean; selfM
     onError: fail,
   });
   const changeRole = useMutation({
-    mutationFn: (v: { id: string; role: string }) => api(`/api/shop/members/${v.id}`, { method: 'PATCH', json: { role: v.role } }),
+    mutationFn: (v: { id: string; role: RoleName }) => call(changeMember, { params: { memberId: v.id }, json: { role: v.role } }),
     onSuccess: () => done('Role changed.'),
     onError: fail,
   });
   const remove = useMutation({
-    mutationFn: (id: string) => api(`/api/shop/members/${id}`, { method: 'DELETE' }),
+    mutationFn: (id: string) => call(removeMember, { params: { memberId: id } }),
     onSuccess: () => done('Member removed.'),
     onError: fail,
   });
   const cancel = useMutation({
-    mutationFn: (id: string) => api(`/api/shop/invitations/${id}`, { method: 'DELETE' }),
+    mutationFn: (id: string) => call(cancelInvitation, { params: { invitationId: id } }),
     onSuccess: () => done('Invitation cancelled.'),
     onError: fail,
   });
@@ -70,8 +66,8 @@ export function ShopMembers({ isOwner, selfMemberId }: { isOwner: boolean; selfM
                   <label className="sr-only" htmlFor={`role-${m.id}`}>
                     Role of {m.name}
                   </label>
-                  <Select id={`role-${m.id}`} className="w-44" value={m.role} onChange={(e) => changeRole.mutate({ id: m.id, role: e.target.value })}>
-                    {ROLES.map((r) => (
+                  <Select id={`role-${m.id}`} className="w-44" value={m.role} onChange={(e) => changeRole.mutate({ id: m.id, role: e.target.value as RoleName })}>
+                    {ROLE_NAMES.map((r) => (
                       <option key={r} value={r}>
                         {r}
                       </option>
@@ -103,8 +99,8 @@ export function ShopMembers({ isOwner, selfMemberId }: { isOwner: boolean; selfM
               <Input id="invite-email" type="email" value={email} onChange={(e) => setEmail(e.target.value)} />
             </Field>
             <Field id="invite-role" label="Role">
-              <Select id="invite-role" value={role} onChange={(e) => setRole(e.target.value)}>
-                {ROLES.map((r) => (
+              <Select id="invite-role" value={role} onChange={(e) => setRole(e.target.value as RoleName)}>
+                {ROLE_NAMES.map((r) => (
                   <option key={r} value={r}>
                     {r}
                   </option>

@@ -6,12 +6,13 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, Select, TextArea } from '@/components/ui/field';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
 import { type ShopSettings, type ShopSettingsInput, shopSettingsSchema } from '@/domain/shop-settings';
 import { DEFAULT_STARTING_LIMITS, LIMIT_SOURCES } from '@/domain/starting-limits';
 import { typedDecimal } from '@/domain/typed-number';
 import type { z } from 'zod';
 import { timeZoneNames } from '@/domain/time';
+import { updateShop } from '@/server/api/routes/shop';
 
 export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
   const router = useRouter();
@@ -24,7 +25,7 @@ export function ShopSettingsForm({ settings }: { settings: ShopSettings }) {
       onSubmit={handleSubmit(async (values) => {
         setNote(null);
         try {
-          await api('/api/shop', { method: 'PATCH', json: values });
+          await call(updateShop, { json: values });
           setNote({ tone: 'ok', text: 'Saved: dates, temperatures and distances now show this way for everyone in the shop, and customers see the phone and address.' });
           router.refresh();
         } catch (e) {

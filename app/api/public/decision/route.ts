@@ -1,5 +1,4 @@
 /** The customer approves or declines the recommended next step through the share link (no account). */
-import { decisionInput } from '@/server/api/inputs';
 import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
 import { recordAudit } from '@/db/queries/audit';
@@ -8,10 +7,10 @@ import { findShareLink, recordApproval, reportBundle, shareLinkMaker } from '@/d
 import { sendMail } from '@/server/mail';
 import { HttpError } from '@/server/http';
 import { withPublic } from '@/server/with-shop';
+import * as api from '@/server/api/routes/reports';
 
 export const POST = withPublic(
-  decisionInput,
-  async ({ input }) => {
+  api.answerDecision, async ({ input }) => {
     const link = await findShareLink(input.token);
     const b = link && (await reportBundle(link.shopId, link.reportId));
     if (!link || !b) throw new HttpError(404, 'NOT_FOUND', 'This link does not open a report; ask the shop for a new one.');

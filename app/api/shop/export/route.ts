@@ -1,13 +1,13 @@
 /** Owners download everything the shop holds as one zip (server/shop-export.ts). Audited. */
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getRetention } from '@/db/queries/retention';
 import { listMembers } from '@/db/queries/shops';
 import { dispositionFor } from '@/server/file-name';
 import { shopExportStream } from '@/server/shop-export';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/shop';
 
-export const GET = withShop({ shop: ['manage'] }, z.object({}), async ({ shop, user, req }) => {
+export const GET = withShop(api.exportShop, async ({ shop, user, req }) => {
   const members = (await listMembers(shop.id)).map(({ name, email, role, createdAt }) => ({ name, email, role, createdAt }));
   const about = { id: shop.id, name: shop.name, settings: shop.settings, retentionDays: await getRetention(shop.id), members };
   await recordAudit(shop.id, user.id, 'shop.export', { type: 'shop', id: shop.id });

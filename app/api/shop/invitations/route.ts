@@ -1,14 +1,12 @@
 /** Owners invite by e-mail with a role; better-auth stores the invitation and sends the link. */
-import { inviteInput } from '@/server/api/inputs';
 import { recordAudit } from '@/db/queries/audit';
 import { getAuth } from '@/server/auth';
 import { HttpError } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/shop';
 
 export const POST = withShop(
-  { invitation: ['create'] },
-  inviteInput,
-  async ({ input, shop, user, req }) => {
+  api.invite, async ({ input, shop, user, req }) => {
     const auth = await getAuth();
     try {
       const inv = await auth.api.createInvitation({ body: { email: input.email, role: input.role, organizationId: shop.id, resend: true }, headers: req.headers });

@@ -4,10 +4,10 @@
  */
 import { recordAudit } from '@/db/queries/audit';
 import { setRetention } from '@/db/queries/retention';
-import { retentionInput } from '@/domain/retention';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/shop';
 
-export const PATCH = withShop({ shop: ['retention'] }, retentionInput, async ({ input, shop, user }) => {
+export const PATCH = withShop(api.setRetention, async ({ input, shop, user }) => {
   await setRetention(shop.id, input.retentionDays);
   await recordAudit(shop.id, user.id, 'shop.retention', { type: 'shop', id: shop.id }, { days: input.retentionDays });
   return { retentionDays: input.retentionDays };

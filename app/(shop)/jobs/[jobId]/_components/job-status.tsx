@@ -3,17 +3,18 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
 import { jobKeys } from '@/components/data/jobs/keys';
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
+import { moveJob } from '@/server/api/routes/jobs';
 
 export function JobStatusControl({ jobId, status }: { jobId: string; status: string }) {
   const [reason, setReason] = useState('');
   const router = useRouter();
   const qc = useQueryClient();
   const move = useMutation({
-    mutationFn: (body: { status: 'open' | 'done'; reason?: string }) => api(`/api/jobs/${encodeURIComponent(jobId)}/status`, { method: 'POST', json: body }),
+    mutationFn: (body: { status: 'open' | 'done'; reason?: string }) => call(moveJob, { params: { jobId }, json: body }),
     onSuccess: async () => {
       setReason('');
       await qc.invalidateQueries({ queryKey: jobKeys.all });

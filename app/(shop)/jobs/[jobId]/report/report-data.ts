@@ -1,30 +1,10 @@
-/** The report page's data as the report route answers it, and the empty draft. */
+/** The report page's data as the report route answers it (its contract's output), and the empty draft. */
 import type { ReportContent } from '@/domain/report';
-import type { AnalysisResult } from '@/signal';
+import type { OutputOf } from '@/server/api/contract';
+import type { getReport } from '@/server/api/routes/jobs';
 
-export interface Revision {
-  id: string;
-  revision: number;
-  /** Counts the saves and the signing of this revision. */
-  version: number;
-  status: 'draft' | 'signed';
-  content: ReportContent;
-  signedAt: string | null;
-}
-export interface Candidate {
-  id: string;
-  createdAt: string;
-  verdict: string;
-  fileName: string;
-  repairOrder: string;
-  jobId: string;
-  result: AnalysisResult;
-}
-export interface ReportData {
-  revisions: Revision[];
-  candidates: Candidate[];
-  approvals: { id: string; decision: string; typedName: string; revision: number; createdAt: string }[];
-  shareLinks: { id: string; revision: number; expiresAt: string; revokedAt: string | null }[];
-}
+export type ReportData = OutputOf<typeof getReport>;
+export type Revision = ReportData['revisions'][number];
+export type Candidate = ReportData['candidates'][number];
 
 export const EMPTY: ReportContent = { analysisIds: [], conditions: {}, interpretation: '', nextSteps: [], technicianName: undefined };

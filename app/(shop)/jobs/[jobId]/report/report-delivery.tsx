@@ -5,13 +5,14 @@
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
 import { reportKeys } from '@/components/data/reports/keys';
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { formatWhen } from '@/domain/time';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, TextArea } from '@/components/ui/field';
 import { type ReportData, type Revision } from './report-data';
+import { sendReport, shareReport, withdrawShareLink } from '@/server/api/routes/reports';
 
 export function ReportDelivery({
   jobId,
@@ -38,7 +39,7 @@ export function ReportDelivery({
   const refresh = () => qc.invalidateQueries({ queryKey: reportKeys.forJob(jobId) });
   const send = useMutation({
     mutationFn: () =>
-      api<{ link?: { expiresAt: string } }>(`/api/reports/${latest!.id}/send`, { method: 'POST', json: { to, note: note || undefined, link: can.share && withLink } }),
+      call(sendReport, { params: { reportId: latest!.id }, json: { to, note: note || undefined, link: can.share && withLink } }),
     onSuccess: async (r) => {
       onMessage({ tone: 'ok', text: r.link ? `Report sent to ${to}, with a link to answer from, open until ${formatWhen(r.link.expiresAt, timeZone)}.` : `Report sent to ${to}.` });
       if (r.link) await refresh();
@@ -46,7 +47,7 @@ export function ReportDelivery({
     onError: (e) => onMessage({ tone: 'error', text: errorText(e) }),
   });
   const share = useMutation({
-    mutationFn: () => api<{ url: string }>(`/api/reports/${latest!.id}/share`, { method: 'POST', json: {} }),
+    mutationFn: () => call(shareReport, { params: { reportId: latest!.id } }),
     onSuccess: async (r) => {
       setShareUrl(r.url);
       setCopied(false);
@@ -55,7 +56,7 @@ export function ReportDelivery({
     onError: (e) => onMessage({ tone: 'error', text: errorText(e) }),
   });
   const revoke = useMutation({
-    mutationFn: (id: string) => api(`/api/share-links/${id}`, { method: 'DELETE' }),
+    mutationFn: (id: string) => call(withdrawShareLink, { params: { linkId: id } }),
     onSuccess: refresh,
   });
   return (

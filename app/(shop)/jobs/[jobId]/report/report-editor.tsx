@@ -11,19 +11,20 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, Input, Notice, TextArea } from '@/components/ui/field';
-import { api, errorText } from '@/components/data/api';
+import { call, errorText } from '@/components/data/api';
 import { interpretationFor, nextStepsFor } from '@/domain/report-wording';
 import type { ReportContent } from '@/domain/report';
 import { ConditionFields } from './condition-fields';
 import { GaugeFields } from './gauge-fields';
-import { EMPTY, type ReportData, type Revision } from './report-data';
+import { EMPTY } from './report-data';
 import { ReportDelivery } from './report-delivery';
+import { getReport, saveReport, signReport } from '@/server/api/routes/jobs';
 
 export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defaultName: string; can: { edit: boolean; sign: boolean; send: boolean; share: boolean } }) {
   const qc = useQueryClient();
   const { timeZone } = useShopSettings();
   const key = reportKeys.forJob(jobId);
-  const q = useQuery({ queryKey: key, queryFn: () => api<ReportData>(`/api/jobs/${jobId}/report`), refetchInterval: 15_000 });
+  const q = useQuery({ queryKey: key, queryFn: () => call(getReport, { params: { jobId } }), refetchInterval: 15_000 });
   const latest = q.data?.revisions[0];
   const [c, setC] = useState<ReportContent>(EMPTY);
   const [loadedFor, setLoadedFor] = useState<string | null>(null);
@@ -52,7 +53,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
 
   const refresh = () => qc.invalidateQueries({ queryKey: key });
   const save = useMutation({
-    mutationFn: () => api<{ report: Revision }>(`/api/jobs/${jobId}/report`, { method: 'PUT', json: { ...c, base: { revision: base.revision, version: base.version } } }),
+    mutationFn: () => call(saveReport, { params: { jobId }, json: { ...c, base: { revision: base.revision, version: base.version } } }),
     onSuccess: async (r) => {
       setMessage({ tone: 'ok', text: `Draft saved as revision ${r.report.revision}.` });
       setDirty(false);
@@ -64,7 +65,7 @@ export function ReportEditor({ jobId, defaultName, can }: { jobId: string; defau
     onError: (e) => setMessage({ tone: 'error', text: errorText(e) }),
   });
   const sign = useMutation({
-    mutationFn: () => api<{ report: Revision }>(`/api/jobs/${jobId}/report/sign`, { method: 'POST', json: { reportId: base.id ?? latest!.id, version: base.id ? base.version : 0 } }),
+    mutationFn: () => call(signReport, { params: { jobId }, json: { reportId: base.id ?? latest!.id, version: base.id ? base.version : 0 } }),
     onSuccess: async (r) => {
       const revision = r.report.revision;
       setBase({ id: r.report.id, revision, version: r.report.version });

@@ -3,8 +3,6 @@
  * stores settings, engine version, file SHA-256, results and the report's trace excerpt. Nothing is overwritten; each save adds one.
  * A file the engine cannot read answers 422 with the engine's error code, line and column.
  */
-import { saveAnalysisInput } from '@/server/api/inputs';
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getCapture, listAnalyses, readCapturePacked, saveAnalysis } from '@/db/queries/captures';
 import { notFound } from '@/server/http';
@@ -12,13 +10,14 @@ import { analyzeStored } from '@/server/engine/pool';
 import { withShop } from '@/server/with-shop';
 import { isCaptureError } from '@/signal';
 import { measuredNothing } from '@/signal/steps/screen';
+import * as api from '@/server/api/routes/captures';
 
-export const GET = withShop({ analysis: ['read'] }, z.object({ captureId: z.string() }), async ({ input, shop }) => {
+export const GET = withShop(api.listAnalyses, async ({ input, shop }) => {
   if (!(await getCapture(shop.id, input.captureId))) throw notFound('That capture');
   return { analyses: await listAnalyses(shop.id, input.captureId) };
 });
 
-export const POST = withShop({ analysis: ['save'] }, saveAnalysisInput.extend({ captureId: z.string() }), async ({ input, shop, user, req }) => {
+export const POST = withShop(api.saveAnalysis, async ({ input, shop, user, req }) => {
   const capture = await getCapture(shop.id, input.captureId);
   const packed = capture && (await readCapturePacked(shop.id, capture.id, req.signal));
   if (!capture || !packed) throw notFound('That capture');

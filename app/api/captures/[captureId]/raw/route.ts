@@ -1,11 +1,11 @@
 /** The capture's raw file as uploaded, streamed from where it is stored, for the browser's worker and for integrations. */
-import { z } from 'zod';
 import { getCapture, readCaptureStream } from '@/db/queries/captures';
 import { dispositionFor } from '@/server/file-name';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/captures';
 
-export const GET = withShop({ capture: ['read'] }, z.object({ captureId: z.string() }), async ({ input, shop, req }) => {
+export const GET = withShop(api.downloadCapture, async ({ input, shop, req }) => {
   const capture = await getCapture(shop.id, input.captureId);
   const stream = capture && (await readCaptureStream(shop.id, capture.id, req.signal));
   if (!capture || !stream) throw notFound('That capture');

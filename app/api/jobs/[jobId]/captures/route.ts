@@ -2,7 +2,6 @@
  * A job's captures. POST receives a text capture (up to 256 MB, see server/receive-capture.ts) and stores it
  * in one transaction; the same file twice on a job is a 409 naming the capture already there.
  */
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { createCapture, DuplicateCaptureError, listCaptures } from '@/db/queries/captures';
 import { getJob } from '@/db/queries/jobs';
@@ -11,16 +10,15 @@ import { HttpError, notFound } from '@/server/http';
 import { checkUploadHeaders, receiveCapture } from '@/server/receive-capture';
 import { withShop } from '@/server/with-shop';
 import { screeningSummary } from '@/domain/screening';
+import * as api from '@/server/api/routes/jobs';
 
-export const GET = withShop({ capture: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop }) => {
+export const GET = withShop(api.listCaptures, async ({ input, shop }) => {
   if (!(await getJob(shop.id, input.jobId))) throw notFound('That job');
   return { captures: await listCaptures(shop.id, input.jobId) };
 });
 
 export const POST = withShop(
-  { capture: ['upload'] },
-  z.object({ jobId: z.string() }),
-  async ({ input, shop, user, req }) => {
+  api.uploadCapture, async ({ input, shop, user, req }) => {
     const { length, contentType } = checkUploadHeaders(req.headers);
     const job = await getJob(shop.id, input.jobId);
     if (!job) throw notFound('That job');
@@ -44,5 +42,4 @@ export const POST = withShop(
       throw e;
     }
   },
-  { rawBody: true },
 );

@@ -2,13 +2,13 @@
  * A member says they have read the safety cautions for a job. Recorded once per member and job, in the audit
  * trail, so the cautions are not asked again on another device and the job's activity shows who read them.
  */
-import { z } from 'zod';
 import { CAUTIONS_READ, cautionsReadAt, recordAudit } from '@/db/queries/audit';
 import { getJob } from '@/db/queries/jobs';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/jobs';
 
-export const POST = withShop({ job: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop, user }) => {
+export const POST = withShop(api.readCautions, async ({ input, shop, user }) => {
   const job = await getJob(shop.id, input.jobId);
   if (!job) throw notFound('That job');
   const before = await cautionsReadAt(shop.id, user.id, job.id);

@@ -1,13 +1,12 @@
 /** The job's report: revisions, the analyses it can include, share links and the customer's decisions; save a draft. */
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getJob } from '@/db/queries/jobs';
 import { candidateAnalyses, listApprovalsForJob, listRevisions, listShareLinksForJob, ReportStateError, saveDraft } from '@/db/queries/reports';
-import { saveReportInput } from '@/server/api/inputs';
 import { conflict, notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/jobs';
 
-export const GET = withShop({ report: ['read'] }, z.object({ jobId: z.string() }), async ({ input, shop }) => {
+export const GET = withShop(api.getReport, async ({ input, shop }) => {
   if (!(await getJob(shop.id, input.jobId))) throw notFound('That job');
   const revisions = await listRevisions(shop.id, input.jobId);
   return {
@@ -19,7 +18,7 @@ export const GET = withShop({ report: ['read'] }, z.object({ jobId: z.string() }
 });
 
 /** Saves the draft; `base` (what the editor loaded) makes a save on a revision changed meanwhile a 409. */
-export const PUT = withShop({ report: ['edit'] }, saveReportInput.extend({ jobId: z.string() }), async ({ input, shop, user }) => {
+export const PUT = withShop(api.saveReport, async ({ input, shop, user }) => {
   const { jobId, base, ...content } = input;
   if (!(await getJob(shop.id, jobId))) throw notFound('That job');
   const report = await saveDraft(shop.id, jobId, content, base).catch((e) => {

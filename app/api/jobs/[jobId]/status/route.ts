@@ -2,13 +2,13 @@
  * A member closes a job (done, with a reason) or reopens it; sending, sharing and the customer's answer move it
  * on their own (waiting, approved, declined). Every move is one activity line.
  */
-import { z } from 'zod';
 import { getJob, moveJob } from '@/db/queries/jobs';
-import { JOB_STATUSES, jobStatusInput } from '@/domain/job';
+import { JOB_STATUSES } from '@/domain/job';
 import { conflict, HttpError, notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/jobs';
 
-export const POST = withShop({ job: ['status'] }, jobStatusInput.extend({ jobId: z.string() }), async ({ input, shop, user }) => {
+export const POST = withShop(api.moveJob, async ({ input, shop, user }) => {
   const job = await getJob(shop.id, input.jobId);
   if (!job) throw notFound('That job');
   if (input.status === 'done' && (input.reason ?? '').length < 3) {

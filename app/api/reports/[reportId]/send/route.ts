@@ -4,9 +4,7 @@
  * the send under a lock every instance shares (so concurrent sends cannot pass one count), and given back when the
  * send fails.
  */
-import { sendReportInput } from '@/server/api/inputs';
 import { formatWhen } from '@/domain/time';
-import { z } from 'zod';
 import { releaseAction, reserveAction } from '@/db/queries/audit';
 import { moveJob } from '@/db/queries/jobs';
 import { createShareLink, reportBundle, revokeShareLink } from '@/db/queries/reports';
@@ -19,15 +17,14 @@ import { renderPdf } from '@/server/engine/pool';
 import { pdfDataFor } from '@/server/pdf/build-report';
 import { withShop } from '@/server/with-shop';
 import { vehicleName } from '@/domain/vehicle-name';
+import * as api from '@/server/api/routes/reports';
 
 /** Sends allowed in an hour. */
 const SENDS_PER_MEMBER_HOUR = 10;
 const SENDS_PER_SHOP_HOUR = 40;
 
 export const POST = withShop(
-  { report: ['send'] },
-  sendReportInput.extend({ reportId: z.string() }),
-  async ({ input, shop, user, member, req }) => {
+  api.sendReport, async ({ input, shop, user, member, req }) => {
     if (input.link && !can(member.role, { report: ['share'] })) throw new HttpError(403, 'FORBIDDEN', 'Your role cannot make customer links; send the PDF without one, or ask the advisor.');
     const b = await reportBundle(shop.id, input.reportId);
     if (!b) throw notFound('That report');

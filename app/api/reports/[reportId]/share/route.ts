@@ -1,22 +1,19 @@
 /** Customer share links for a signed report: random 256-bit tokens, stored hashed, expiring (14 days by default). */
-import { shareInput } from '@/server/api/inputs';
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { moveJob } from '@/db/queries/jobs';
 import { createShareLink, getReport, listShareLinks } from '@/db/queries/reports';
 import { APP_URL } from '@/server/auth';
 import { conflict, notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/reports';
 
-export const GET = withShop({ report: ['share'] }, z.object({ reportId: z.string() }), async ({ input, shop }) => {
+export const GET = withShop(api.listShareLinks, async ({ input, shop }) => {
   if (!(await getReport(shop.id, input.reportId))) throw notFound('That report');
   return { links: await listShareLinks(shop.id, input.reportId) };
 });
 
 export const POST = withShop(
-  { report: ['share'] },
-  shareInput.extend({ reportId: z.string() }),
-  async ({ input, shop, user }) => {
+  api.shareReport, async ({ input, shop, user }) => {
     const r = await getReport(shop.id, input.reportId);
     if (!r) throw notFound('That report');
     if (r.status !== 'signed') throw conflict('Sign the report before sharing it with the customer.');

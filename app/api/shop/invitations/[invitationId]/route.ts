@@ -1,12 +1,12 @@
 /** Owners cancel a pending invitation. */
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getInvitation } from '@/db/queries/shops';
 import { getAuth } from '@/server/auth';
 import { notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/shop';
 
-export const DELETE = withShop({ invitation: ['cancel'] }, z.object({ invitationId: z.string() }), async ({ input, shop, user, req }) => {
+export const DELETE = withShop(api.cancelInvitation, async ({ input, shop, user, req }) => {
   const inv = await getInvitation(shop.id, input.invitationId);
   if (!inv) throw notFound('That invitation');
   const auth = await getAuth();

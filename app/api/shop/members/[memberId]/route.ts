@@ -1,16 +1,13 @@
 /** Owners change a member's role or remove them; the last owner can be neither demoted nor removed, even at once from two instances. */
-import { memberRoleInput } from '@/server/api/inputs';
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { changeMember } from '@/db/queries/shops';
 import { conflict, notFound } from '@/server/http';
 import { announceMembershipChange } from '@/server/membership-cache';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/shop';
 
 export const PATCH = withShop(
-  { member: ['update'] },
-  memberRoleInput.extend({ memberId: z.string() }),
-  async ({ input, shop, user }) => {
+  api.changeMember, async ({ input, shop, user }) => {
     const r = await changeMember(shop.id, input.memberId, { role: input.role });
     if (!r) throw notFound('That member');
     if (r.lastOwner) throw conflict('This is the shop’s last owner; make another member owner first.');
@@ -20,7 +17,7 @@ export const PATCH = withShop(
   },
 );
 
-export const DELETE = withShop({ member: ['delete'] }, z.object({ memberId: z.string() }), async ({ input, shop, user }) => {
+export const DELETE = withShop(api.removeMember, async ({ input, shop, user }) => {
   const r = await changeMember(shop.id, input.memberId, 'remove');
   if (!r) throw notFound('That member');
   if (r.lastOwner) throw conflict('This is the shop’s last owner and cannot be removed; make another member owner first.');

@@ -1,12 +1,11 @@
 /** The technician signs the open draft; a signed revision is frozen. */
-import { signReportInput } from '@/server/api/inputs';
-import { z } from 'zod';
 import { recordAudit } from '@/db/queries/audit';
 import { getReport, ReportStateError, signReport } from '@/db/queries/reports';
 import { conflict, notFound } from '@/server/http';
 import { withShop } from '@/server/with-shop';
+import * as api from '@/server/api/routes/jobs';
 
-export const POST = withShop({ report: ['sign'] }, signReportInput.extend({ jobId: z.string() }), async ({ input, shop, user }) => {
+export const POST = withShop(api.signReport, async ({ input, shop, user }) => {
   const r = await getReport(shop.id, input.reportId);
   if (!r || r.jobId !== input.jobId) throw notFound('That report');
   try {
