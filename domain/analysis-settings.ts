@@ -1,20 +1,14 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
-import { type AnalysisSettings, firingIntervalsProblem, firingOrderProblem, type ImportOptions, METHOD_CHOICES, parseWheel } from '@/signal';
-import type { EngineSpec } from './engine';
+import { type AnalysisSettings, type ImportOptions, METHOD_CHOICES, parseWheel } from '@/signal';
+import { engineSettingsSchema, type EngineSpec } from './engine';
 import { type StartingLimits, startingLimitsSchema } from './starting-limits';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'toothPeriod', 'ignore'] as const;
 
 export const analysisSettingsSchema = z
   .object({
-    engine: z.object({
-      cylinders: z.number().int().min(1, 'An engine has at least 1 cylinder.').max(16, 'Crankprint handles up to 16 cylinders.'),
-      firingOrder: z.array(z.number().int().min(1).max(16)),
-      intervalsDeg: z.array(z.number().positive()).optional(),
-      layout: z.enum(['inline', 'v', 'flat']).default('inline'),
-      numbering: z.enum(['along-crank', 'bank-by-bank']).default('along-crank'),
-    }),
+    engine: engineSettingsSchema,
     method: z.enum(METHOD_CHOICES, { error: `The method is one of ${METHOD_CHOICES.join(', ')}.` }).default('auto'),
     teeth: z
       .string()
@@ -38,12 +32,6 @@ export const analysisSettingsSchema = z
       })
       .optional(),
     sampleRateHz: z.number().positive().optional(),
-  })
-  .superRefine((s, ctx) => {
-    const order = firingOrderProblem(s.engine.firingOrder, s.engine.cylinders);
-    if (order) ctx.addIssue({ code: 'custom', path: ['engine', 'firingOrder'], message: order });
-    const intervals = s.engine.intervalsDeg && firingIntervalsProblem(s.engine.intervalsDeg, s.engine.cylinders);
-    if (intervals) ctx.addIssue({ code: 'custom', path: ['engine', 'intervalsDeg'], message: intervals });
   });
 
 export type AnalysisSettingsInput = z.input<typeof analysisSettingsSchema>;

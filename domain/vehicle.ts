@@ -1,29 +1,7 @@
-/** One zod schema per entity, shared by the form, the route handler and the seed. */
+/** One zod schema per entity, shared by the form, the route handler and the seed (the engine's: domain/engine.ts). */
 import { z } from 'zod';
-import { firingIntervalsProblem, firingOrderProblem } from '@/signal';
+import { engineSchema } from './engine';
 import { vinProblem } from './vin';
-
-const firingOrderText = z
-  .string()
-  .trim()
-  .regex(/^\d{1,2}([\s,-]+\d{1,2})*$/, 'Write the firing order as cylinder numbers, for example 1-3-4-2.')
-  .transform((s) => s.split(/[\s,-]+/).map(Number));
-
-export const engineSchema = z
-  .object({
-    cylinders: z.coerce.number().int('The cylinder count is a whole number.').min(1, 'An engine has at least 1 cylinder.').max(16, 'Crankprint handles up to 16 cylinders.'),
-    layout: z.enum(['inline', 'v', 'flat'], { message: 'Choose inline, V or flat.' }),
-    numbering: z.enum(['along-crank', 'bank-by-bank']).default('along-crank'),
-    firingOrder: z.union([firingOrderText, z.array(z.number().int())]),
-    intervalsDeg: z.array(z.number().positive()).optional(),
-    displacementL: z.coerce.number().min(0.05, 'Displacement is in litres, for example 2.0.').max(20, 'Displacement is in litres, for example 2.0.').optional(),
-  })
-  .superRefine((e, ctx) => {
-    const order = firingOrderProblem(e.firingOrder, e.cylinders);
-    if (order) ctx.addIssue({ code: 'custom', path: ['firingOrder'], message: order });
-    const intervals = e.intervalsDeg && firingIntervalsProblem(e.intervalsDeg, e.cylinders);
-    if (intervals) ctx.addIssue({ code: 'custom', path: ['intervalsDeg'], message: intervals });
-  });
 
 const currentYear = new Date().getFullYear();
 
@@ -49,3 +27,13 @@ export const vehicleSchema = z.object({
 
 export type VehicleInput = z.input<typeof vehicleSchema>;
 export type VehicleValues = z.output<typeof vehicleSchema>;
+
+/** A vehicle as people say it: year, make and model, whichever are known (on pages, in e-mail and in the PDF). */
+export function vehicleTitle(v: { year: number | null; make: string; model: string }): string {
+  return [v.year, v.make, v.model].filter(Boolean).join(' ');
+}
+
+/** An engine in one line, the same on pages and in the PDF: "4 cylinders, inline, 2 L, firing order 1-3-4-2". */
+export function engineLine(e: { cylinders: number; layout: string; firingOrder: number[]; displacementL?: number }): string {
+  return `${e.cylinders} cylinders, ${e.layout === 'v' ? 'V' : e.layout}${e.displacementL ? `, ${e.displacementL} L` : ''}, firing order ${e.firingOrder.join('-')}`;
+}

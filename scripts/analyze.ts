@@ -10,6 +10,7 @@ import {
   CaptureError,
   isCaptureError,
   MAX_CAPTURE_BYTES,
+  MAX_CAPTURE_SIZE,
   intervalText,
   percentText,
 } from '../signal';
@@ -135,7 +136,7 @@ function main() {
   try {
     const st = statSync(file);
     if (!st.isFile()) fail(`${file} is not a file.`);
-    if (st.size > MAX_CAPTURE_BYTES) fail(`${file} is ${(st.size / 1048576).toFixed(0)} MB; captures up to 256 MB are accepted.`, 'TOO_LARGE');
+    if (st.size > MAX_CAPTURE_BYTES) fail(`${file} is ${(st.size / 1048576).toFixed(0)} MB; captures up to ${MAX_CAPTURE_SIZE} are accepted.`, 'TOO_LARGE');
     bytes = readFileSync(file);
   } catch (e) {
     if ((e as NodeJS.ErrnoException).code === 'ENOENT') fail(`No file at ${file}.`);

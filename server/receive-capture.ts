@@ -10,7 +10,7 @@ import { pastCutOff } from '@/db/client';
 import { captureStoreTarget } from '@/db/object-store';
 import type { EngineSpec } from '@/domain/engine';
 import { settingsForEngine } from '@/domain/analysis-settings';
-import { type AnalysisResult, type CaptureError, isCaptureError, MAX_CAPTURE_BYTES } from '@/signal';
+import { type AnalysisResult, type CaptureError, isCaptureError, MAX_CAPTURE_BYTES, MAX_CAPTURE_SIZE } from '@/signal';
 import { screenUpload } from './engine/pool';
 import { HttpError } from './http';
 
@@ -34,7 +34,7 @@ export class UnreadableCaptureError extends HttpError {
   }
 }
 
-const tooLarge = () => new HttpError(413, 'TOO_LARGE', 'The file is larger than 256 MB; export a shorter window around the cranking.');
+const tooLarge = () => new HttpError(413, 'TOO_LARGE', `The file is larger than ${MAX_CAPTURE_SIZE}; export a shorter window around the cranking.`);
 const notText = (what: string) => new HttpError(415, 'NOT_TEXT', what);
 
 /** What the first bytes say the file is, when that is not text. */

@@ -4,7 +4,7 @@ import { type ImportOptions, importCapture, type ImportedCapture } from './impor
 import type { AnalysisResult, AnalysisSettings } from './types';
 
 export { analyzeCapture } from './analyze';
-export { CaptureImporter, importCapture, MAX_CAPTURE_BYTES } from './import/import-capture';
+export { CaptureImporter, importCapture, MAX_CAPTURE_BYTES, MAX_CAPTURE_SIZE } from './import/import-capture';
 export type { ChannelInfo, ImportedCapture, ImportOptions } from './import/import-capture';
 export type { ChannelRole } from './import/map-channels';
 export { decimateMinMax, indexAtTime } from './dsp/decimate';
@@ -14,6 +14,7 @@ export { ENGINE_VERSION } from './version';
 export { ENGINE_PROFILES } from './engine/profiles';
 export { parseFiringOrder, checkFiringOrder, areNeighbours, firingIntervalsProblem, firingOrderProblem } from './engine/firing';
 export type { EngineSetup, BankLayout, Numbering } from './engine/firing';
+export { BANK_LAYOUTS, MAX_CYLINDERS, NUMBERINGS } from './engine/firing';
 export { describeWheel, parseWheel, wheelNotation } from './teeth/wheel';
 export type { ToothWheel } from './teeth/wheel';
 export type * from './types';

@@ -5,7 +5,7 @@ import { getDb } from '../client';
 import { analyses, auditEvents, captures, jobs, reports, vehicles } from '../schema';
 import type { JobStatus, JobValues } from '@/domain/job';
 import { flushObjectDeletes, queueObjectDeletes } from './object-deletes';
-import { engineSpec } from './vehicles';
+import { engineSpec } from '@/domain/engine';
 
 export class DuplicateRepairOrderError extends Error {}
 

@@ -2,20 +2,9 @@
 import 'server-only';
 import { and, desc, eq } from 'drizzle-orm';
 import { getDb } from '../client';
-import type { EngineSpec } from '@/domain/engine';
+import { engineSpec } from '@/domain/engine';
 import { jobs, vehicles } from '../schema';
 import type { VehicleValues } from '@/domain/vehicle';
-
-export function engineSpec(v: VehicleValues['engine']): EngineSpec {
-  return {
-    cylinders: v.cylinders,
-    layout: v.layout,
-    numbering: v.numbering,
-    firingOrder: v.firingOrder,
-    intervalsDeg: v.intervalsDeg,
-    displacementL: v.displacementL,
-  };
-}
 
 export async function listVehicles(shopId: string) {
   const db = await getDb();

@@ -9,6 +9,7 @@ import { createDocument, type ZodOpenApiOperationObject, type ZodOpenApiPathsObj
 import { type RouteContract, whoMay } from './contract';
 import { ROUTES } from './routes';
 import { errorBody } from './shapes';
+import { MAX_CAPTURE_SIZE } from '@/signal';
 
 const ERRORS: Record<number, string> = {
   400: 'The input is wrong; `fields` names each field.',
@@ -16,7 +17,7 @@ const ERRORS: Record<number, string> = {
   403: 'Your role may not do this, or the request came from another site.',
   404: 'Not found in your shop (another shop’s records are always 404).',
   409: 'Conflicts with the current state (already exists, already signed, already answered).',
-  413: 'The body is too large (JSON: 64 KB; captures: 256 MB).',
+  413: `The body is too large (JSON: 64 KB; captures: ${MAX_CAPTURE_SIZE}).`,
   415: 'Not the expected content type (JSON, or CSV/TSV text for captures).',
   422: 'The capture cannot be read or holds nothing to analyse; the engine’s code, line and column are given.',
   429: 'Too many attempts; Retry-After says when to try again.',

@@ -5,7 +5,7 @@
 import { z } from 'zod';
 import { reportContentSchema } from '@/domain/report';
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
-import { engineSchema } from '@/domain/vehicle';
+import { engineSchema } from '@/domain/engine';
 import { timeZoneSchema } from '@/domain/shop-settings';
 import { ROLE_NAMES } from '@/server/permissions';
 

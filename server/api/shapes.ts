@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
+import { engineRecordSchema } from '@/domain/engine';
 import { reportContentSchema } from '@/domain/report';
 import type { AnalysisResult } from '@/signal';
 import { JOB_STATUSES } from '@/domain/job';
@@ -25,7 +26,7 @@ export const errorBody = z
   })
   .meta({ id: 'Error' });
 
-export const engine = z.looseObject({ cylinders: z.number().int(), layout: z.string(), firingOrder: z.array(z.number().int()), displacementL: z.number().optional() }).meta({ id: 'Engine' });
+export const engine = engineRecordSchema.meta({ id: 'Engine' });
 export const vehicle = z.looseObject({ id, vin: z.string().nullable(), year: z.number().int().nullable(), make: z.string(), model: z.string(), engine }).meta({ id: 'Vehicle' });
 export const job = z
   .looseObject({ id, repairOrder: z.string(), odometer: z.number().nullable(), odometerUnit: z.enum(DISTANCE_UNITS), concern: z.string(), status: z.enum(JOB_STATUSES), createdAt: when, updatedAt: when })

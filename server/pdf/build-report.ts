@@ -9,7 +9,7 @@ import { storedTraceExcerpt } from '../engine/pool';
 import type { ReportBundle } from '@/db/queries/reports';
 import { conditionRows, NR } from './format';
 import type { PdfTrace, ReportPdfData } from './report-document';
-import { vehicleName } from '@/domain/vehicle-name';
+import { engineLine, vehicleTitle } from '@/domain/vehicle';
 import { ESTIMATE_CAUTION, type GaugeReading, gaugePressures, gaugeSummary } from '@/domain/gauge-pressures';
 import { type PressureUnit, shopSettingsFrom } from '@/domain/shop-settings';
 import { pressureIn, pressureText } from '@/domain/units';
@@ -43,9 +43,9 @@ export async function pdfDataFor(b: ReportBundle): Promise<ReportPdfData> {
     preparedBy: b.content.technicianName ?? null,
     generatedAt: formatWhen(new Date(), timeZone),
     vehicle: {
-      description: vehicleName(v),
+      description: vehicleTitle(v),
       vin: v.vin ?? NR,
-      engine: `${e.cylinders} cylinders, ${e.layout === 'v' ? 'V' : e.layout}${e.displacementL ? `, ${e.displacementL} L` : ''}, firing order ${e.firingOrder.join('-')}`,
+      engine: engineLine(e),
       odometer: b.job.odometer !== null ? `${b.job.odometer.toLocaleString('en-US')} ${b.job.odometerUnit}` : NR,
     },
     concern: b.job.concern,

@@ -1,9 +1,13 @@
 /** Firing order, firing intervals and bank layout: which cylinder fires when, and which cylinders are neighbours. */
 import { CaptureError } from '../errors';
 
-export type BankLayout = 'inline' | 'v' | 'flat';
+export const BANK_LAYOUTS = ['inline', 'v', 'flat'] as const;
+export type BankLayout = (typeof BANK_LAYOUTS)[number];
 /** along-crank: odd numbers on one bank, even on the other; bank-by-bank: 1…N/2 then N/2+1…N. */
-export type Numbering = 'along-crank' | 'bank-by-bank';
+export const NUMBERINGS = ['along-crank', 'bank-by-bank'] as const;
+export type Numbering = (typeof NUMBERINGS)[number];
+/** The most cylinders the engine reads. */
+export const MAX_CYLINDERS = 16;
 
 export interface EngineSetup {
   cylinders: number;
@@ -27,7 +31,7 @@ export function parseFiringOrder(text: string, cylinders: number): number[] {
 
 /** What is wrong with a firing order for an engine of `cylinders`, in a sentence, or null when it lists each of 1…N once. */
 export function firingOrderProblem(order: readonly number[], cylinders: number): string | null {
-  if (!Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) return `The cylinder count must be a whole number from 1 to 16, not ${cylinders}.`;
+  if (!Number.isInteger(cylinders) || cylinders < 1 || cylinders > MAX_CYLINDERS) return `The cylinder count must be a whole number from 1 to ${MAX_CYLINDERS}, not ${cylinders}.`;
   const seen = new Set<number>();
   for (const c of order) {
     if (!Number.isInteger(c) || c < 1 || c > cylinders || seen.has(c)) return `The firing order must list each cylinder 1 to ${cylinders} exactly once; "${order.join('-')}" does not.`;

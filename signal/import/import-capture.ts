@@ -14,6 +14,8 @@ import { NumberParser } from './parse-numbers';
 import { SNIFF_BYTES, type SniffResult, sniffCapture } from './sniff';
 
 export const MAX_CAPTURE_BYTES = 256 * 1024 * 1024;
+/** The same limit as people read it: "256 MB". */
+export const MAX_CAPTURE_SIZE = `${MAX_CAPTURE_BYTES / 1048576} MB`;
 
 export interface ImportOptions {
   /** Roles per column, overriding the automatic mapping. */
@@ -55,7 +57,7 @@ export class CaptureImporter {
   /** `head` is the file's first bytes (at least 64 KB or the whole file); `size` its length in bytes. */
   constructor(head: Uint8Array, size: number, options: ImportOptions = {}) {
     if (size > MAX_CAPTURE_BYTES) {
-      throw new CaptureError('TOO_LARGE', `The file is ${(size / 1048576).toFixed(0)} MB; captures up to 256 MB are accepted. Export a shorter window around the cranking.`);
+      throw new CaptureError('TOO_LARGE', `The file is ${(size / 1048576).toFixed(0)} MB; captures up to ${MAX_CAPTURE_SIZE} are accepted. Export a shorter window around the cranking.`);
     }
     this.options = options;
     // Line ends of a lone CR (old spreadsheet exports) are read as LF, byte for byte, so offsets stay the same.

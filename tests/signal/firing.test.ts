@@ -1,7 +1,7 @@
 // Firing orders, intervals and neighbours against the published tables.
 import { describe, expect, it } from 'vitest';
 import { analysisSettingsSchema } from '@/domain/analysis-settings';
-import { engineSchema } from '@/domain/vehicle';
+import { engineSchema } from '@/domain/engine';
 import { areNeighbours, firingIntervals, firingIntervalsProblem, firingOrderProblem, parseFiringOrder, tdcPhasesDeg } from '@/signal/engine/firing';
 import { ENGINE_PROFILES } from '@/signal/engine/profiles';
 import { CaptureError } from '@/signal/errors';

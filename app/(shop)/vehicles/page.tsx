@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { listVehicles } from '@/db/queries/vehicles';
 import { pageMember } from '@/server/page-context';
-import { vehicleName } from '@/domain/vehicle-name';
+import { engineLine, vehicleTitle } from '@/domain/vehicle';
 
 export const metadata: Metadata = { title: 'Vehicles' };
 
@@ -29,13 +29,11 @@ export default async function VehiclesPage() {
                 <tr key={v.id} className="border-t border-line">
                   <td className="px-3 py-3">
                     <Link className="font-bold text-brand underline" href={`/vehicles/${v.id}`}>
-                      {vehicleName(v)}
+                      {vehicleTitle(v)}
                     </Link>
                   </td>
                   <td className="figures px-3 py-3">{v.vin ?? '—'}</td>
-                  <td className="px-3 py-3">
-                    {v.engine.cylinders} cyl {v.engine.layout === 'v' ? 'V' : v.engine.layout} · <span className="figures">{v.engine.firingOrder.join('-')}</span>
-                  </td>
+                  <td className="px-3 py-3">{engineLine(v.engine)}</td>
                 </tr>
               ))}
             </tbody>

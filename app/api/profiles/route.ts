@@ -1,7 +1,7 @@
 /** Engine profiles: the built-in library (TRADE.md firing orders) and the shop's own; owners add their own. */
 import { recordAudit } from '@/db/queries/audit';
 import { createProfile, listProfiles } from '@/db/queries/profiles';
-import { engineSpec } from '@/db/queries/vehicles';
+import { engineSpec } from '@/domain/engine';
 import { withShop } from '@/server/with-shop';
 import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
 import * as api from '@/server/api/routes/catalog';

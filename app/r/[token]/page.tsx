@@ -11,7 +11,7 @@ import { getShopSettings } from '@/db/queries/shops';
 import { formatWhen } from '@/domain/time';
 import { withinBudget } from '@/server/rate-limit';
 import { DecisionForm } from './decision-form';
-import { vehicleName } from '@/domain/vehicle-name';
+import { vehicleTitle } from '@/domain/vehicle';
 
 export const dynamic = 'force-dynamic';
 export const metadata: Metadata = { title: 'Your vehicle’s test result', robots: { index: false, follow: false }, referrer: 'no-referrer' };
@@ -30,7 +30,7 @@ export default async function CustomerReport({ params }: { params: Promise<{ tok
   if (!link || !b) notFound();
   const r = b.analyses[0]?.analysis.result;
   const pressures = r && b.content.gauge ? gaugePressures(r, b.content.gauge) : null;
-  const vehicle = vehicleName(b.vehicle);
+  const vehicle = vehicleTitle(b.vehicle);
   const low = r?.cylinders.filter((c) => c.status === 'low') ?? [];
   const { timeZone, phone, address } = await getShopSettings(link.shopId);
   const answer = await approvalThroughLink(link, b.report.revision);

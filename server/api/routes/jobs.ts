@@ -5,6 +5,7 @@ import { screeningSchema } from '@/domain/screening';
 import { route } from '../contract';
 import { idParam, saveReportInput, signReportInput } from '../inputs';
 import { approval, candidate, capture, job, jobRow, report, shareLink, vehicle, when } from '../shapes';
+import { MAX_CAPTURE_SIZE } from '@/signal';
 
 const jobId = idParam('jobId');
 
@@ -89,7 +90,7 @@ export const listCaptures = route({
 export const uploadCapture = route({
   method: 'POST',
   path: '/api/jobs/{jobId}/captures',
-  summary: 'Uploads a capture: the body is the CSV/TSV text itself (up to 256 MB), its name in X-File-Name (percent-encoded UTF-8). Screened by the engine before anything is stored.',
+  summary: `Uploads a capture: the body is the CSV/TSV text itself (up to ${MAX_CAPTURE_SIZE}), its name in X-File-Name (percent-encoded UTF-8). Screened by the engine before anything is stored.`,
   access: { permission: { capture: ['upload'] } },
   params: jobId,
   upload: z.string().meta({ description: 'The capture file (Content-Type text/csv or text/tab-separated-values).' }),

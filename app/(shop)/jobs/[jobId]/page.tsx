@@ -15,7 +15,7 @@ import { MiniBars } from './_components/mini-bars';
 import { JobStatusControl } from './_components/job-status';
 import { RemoveJob } from './_components/remove-job';
 import { pageMember } from '@/server/page-context';
-import { vehicleName } from '@/domain/vehicle-name';
+import { engineLine, vehicleTitle } from '@/domain/vehicle';
 
 export const metadata: Metadata = { title: 'Job' };
 
@@ -44,7 +44,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
       <header className="rounded-2xl border border-line bg-surface p-5">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h1 className="text-2xl font-bold">
-            <span className="figures">{job.repairOrder}</span> · {vehicleName(v)}
+            <span className="figures">{job.repairOrder}</span> · {vehicleTitle(v)}
           </h1>
           <span className="rounded-md bg-raised px-2 py-1 font-bold">{JOB_STATUS_LABEL[job.status as JobStatus] ?? job.status}</span>
         </div>
@@ -59,10 +59,7 @@ export default async function JobPage({ params }: { params: Promise<{ jobId: str
           </div>
           <div>
             <dt className="text-sm text-muted">Engine</dt>
-            <dd className="font-bold">
-              {e.cylinders} cyl {e.layout === 'v' ? 'V' : e.layout}, firing <span className="figures">{e.firingOrder.join('-')}</span>
-              {e.displacementL ? <span className="figures"> · {e.displacementL} L</span> : null}
-            </dd>
+            <dd className="font-bold">{engineLine(e)}</dd>
           </div>
           <div>
             <dt className="text-sm text-muted">Vehicle history</dt>

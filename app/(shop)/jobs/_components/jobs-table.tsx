@@ -16,7 +16,7 @@ import { JOB_STATUSES, type JobStatus } from '@/domain/job';
 import { jobNeeds } from '@/domain/job-queue';
 import type { JobRow } from '@/components/data/jobs/types';
 import { useJobs } from '@/components/data/jobs/use-jobs';
-import { vehicleName } from '@/domain/vehicle-name';
+import { vehicleTitle } from '@/domain/vehicle';
 
 const FILTERS = [{ value: 'all', label: 'All' }, ...JOB_STATUSES.map((value) => ({ value, label: JOB_STATUS_LABEL[value] }))];
 
@@ -35,10 +35,10 @@ const columns: ColumnDef<JobRow>[] = [
   {
     id: 'vehicle',
     header: 'Vehicle',
-    accessorFn: (r) => vehicleName(r.vehicle),
+    accessorFn: (r) => vehicleTitle(r.vehicle),
     cell: (c) => (
       <div>
-        <div className="font-bold">{vehicleName(c.row.original.vehicle)}</div>
+        <div className="font-bold">{vehicleTitle(c.row.original.vehicle)}</div>
         <div className="figures text-sm text-muted">{c.row.original.vehicle.vin ?? 'no VIN'}</div>
       </div>
     ),
@@ -72,7 +72,7 @@ function NeedsYou({ rows, role }: { rows: JobRow[]; role: string }) {
             <span id={`needs-${r.id}`} className="figures font-bold">
               {r.repairOrder}
             </span>
-            <span>{vehicleName(r.vehicle)}</span>
+            <span>{vehicleTitle(r.vehicle)}</span>
             <Link className="font-bold text-brand underline" href={`/jobs/${r.id}`} aria-describedby={`needs-${r.id}`}>
               {need}
             </Link>
@@ -95,7 +95,7 @@ function JobCards({ rows }: { rows: JobRow[] }) {
             </Link>
             <StatusBadge status={r.status} />
           </div>
-          <div className="font-bold">{vehicleName(r.vehicle)}</div>
+          <div className="font-bold">{vehicleTitle(r.vehicle)}</div>
           <p className="line-clamp-2">{r.concern}</p>
           <UpdatedAt at={r.updatedAt} />
         </li>

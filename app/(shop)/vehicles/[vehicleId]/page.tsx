@@ -7,7 +7,7 @@ import { candidateAnalysesForVehicle } from '@/db/queries/reports';
 import { getVehicle, vehicleJobs } from '@/db/queries/vehicles';
 import { pageMember } from '@/server/page-context';
 import { compareResults } from '@/signal';
-import { vehicleName } from '@/domain/vehicle-name';
+import { vehicleTitle } from '@/domain/vehicle';
 
 export const metadata: Metadata = { title: 'Vehicle' };
 
@@ -24,7 +24,7 @@ export default async function VehiclePage({ params, searchParams }: { params: Pr
   const before = (pick.a && byId.get(pick.a)) || tests.find((t) => t.id !== after?.id);
   return (
     <div className="flex flex-col gap-4">
-      <h1 className="text-2xl font-bold">{vehicleName(v)}</h1>
+      <h1 className="text-2xl font-bold">{vehicleTitle(v)}</h1>
       <p className="figures">{v.vin ?? 'No VIN recorded'}</p>
       {before && after && (
         <section aria-labelledby="compare" className="rounded-2xl border border-line bg-surface p-4" data-testid="before-after">

@@ -17,6 +17,7 @@ import type { EngineSpec } from '@/domain/engine';
 import { settingsForEngine } from '@/domain/analysis-settings';
 import { type Screening } from '@/domain/screening';
 import { type UploadOutcome, UploadReading } from './upload-reading';
+import { MAX_CAPTURE_BYTES, MAX_CAPTURE_SIZE } from '@/signal';
 
 interface Chosen {
   uppyId: string;
@@ -37,7 +38,7 @@ export function CaptureUpload({ jobId, engine, cautionsRead }: { jobId: string; 
     new Uppy({
       id: `captures-${jobId}`,
       autoProceed: true,
-      restrictions: { maxFileSize: 256 * 1024 * 1024, allowedFileTypes: ['.csv', '.tsv', '.txt', 'text/*'], maxNumberOfFiles: 10 },
+      restrictions: { maxFileSize: MAX_CAPTURE_BYTES, allowedFileTypes: ['.csv', '.tsv', '.txt', 'text/*'], maxNumberOfFiles: 10 },
     }).use(XHRUpload, {
       endpoint: `/api/jobs/${jobId}/captures`,
       method: 'POST',
@@ -86,7 +87,7 @@ export function CaptureUpload({ jobId, engine, cautionsRead }: { jobId: string; 
   }, [uppy, router]);
 
   // Made once: the worker's progress re-renders this component many times a second while a file is read.
-  const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note="Text captures (CSV or TSV) up to 256 MB" theme="light" hideRetryButton disableInformer />, [uppy]);
+  const dashboard = useMemo(() => <Dashboard uppy={uppy} height={260} width="100%" proudlyDisplayPoweredByUppy={false} note={`Text captures (CSV or TSV) up to ${MAX_CAPTURE_SIZE}`} theme="light" hideRetryButton disableInformer />, [uppy]);
 
   return (
     <CautionsGate read={cautionsRead} jobId={jobId}>

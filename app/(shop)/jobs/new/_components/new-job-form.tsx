@@ -12,7 +12,7 @@ import { useCreateJob } from '@/components/data/jobs/create-job-mutation';
 import { useVehicles } from '@/components/data/vehicles/use-vehicles';
 import { useShopSettings } from '@/components/shop/shop-settings-context';
 import { type JobInput, type JobValues, jobSchema } from '@/domain/job';
-import { vehicleName } from '@/domain/vehicle-name';
+import { vehicleTitle } from '@/domain/vehicle';
 
 interface Profile {
   key: string;
@@ -118,7 +118,7 @@ export function NewJobForm({ profiles }: { profiles: Profile[] }) {
               <option value="">Choose…</option>
               {(vehicles.data ?? []).map((v) => (
                 <option key={v.id} value={v.id}>
-                  {vehicleName(v)} {v.vin ? `· ${v.vin}` : ''}
+                  {vehicleTitle(v)} {v.vin ? `· ${v.vin}` : ''}
                 </option>
               ))}
             </Select>

@@ -1,5 +1,5 @@
 /**
- * A job's captures. POST receives a text capture (up to 256 MB, see server/receive-capture.ts) and stores it
+ * A job's captures. POST receives a text capture (up to MAX_CAPTURE_BYTES, see server/receive-capture.ts) and stores it
  * in one transaction; the same file twice on a job is a 409 naming the capture already there.
  */
 import { recordAudit } from '@/db/queries/audit';

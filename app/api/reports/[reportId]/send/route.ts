@@ -16,7 +16,7 @@ import { sendMail } from '@/server/mail';
 import { renderPdf } from '@/server/engine/pool';
 import { pdfDataFor } from '@/server/pdf/build-report';
 import { withShop } from '@/server/with-shop';
-import { vehicleName } from '@/domain/vehicle-name';
+import { vehicleTitle } from '@/domain/vehicle';
 import * as api from '@/server/api/routes/reports';
 
 /** Sends allowed in an hour. */
@@ -54,7 +54,7 @@ export const POST = withShop(
       const name = `${b.job.repairOrder}-rev${b.report.revision}.pdf`;
       const zone = shop.settings.timeZone;
       if (input.link) link = await createShareLink(shop.id, b.report.id, user.id);
-      const vehicle = vehicleName(b.vehicle);
+      const vehicle = vehicleTitle(b.vehicle);
       const lines = [
         ...(input.note ? [input.note, ''] : []),
         `The relative compression report for ${vehicle} (${b.job.repairOrder}) is attached (revision ${b.report.revision}, signed ${formatWhen(b.report.signedAt!, zone)}).`,

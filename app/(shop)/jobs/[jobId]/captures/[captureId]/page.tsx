@@ -14,7 +14,7 @@ import { listProfiles } from '@/db/queries/profiles';
 import { type AnalysisSettingsValues, analysisSettingsSchema, settingsForEngine } from '@/domain/analysis-settings';
 import { pageMember } from '@/server/page-context';
 import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
-import { vehicleName } from '@/domain/vehicle-name';
+import { vehicleTitle } from '@/domain/vehicle';
 
 export const metadata: Metadata = { title: 'Analysis' };
 
@@ -47,7 +47,7 @@ export default async function CapturePage({ params, searchParams }: { params: Pr
         <span className="figures">{capture.fileName}</span>
       </JobBreadcrumb>
       <h1 className="text-2xl font-bold">
-        {vehicleName(job.vehicle)} — <span className="figures">{capture.fileName}</span>
+        {vehicleTitle(job.vehicle)} — <span className="figures">{capture.fileName}</span>
       </h1>
       <Suspense>
         <Workspace

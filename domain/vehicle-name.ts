@@ -1,4 +1,0 @@
-/** A vehicle as people say it: year, make and model, whichever are known (on pages, in e-mail and in the PDF). */
-export function vehicleName(v: { year: number | null; make: string; model: string }): string {
-  return [v.year, v.make, v.model].filter(Boolean).join(' ');
-}
