@@ -1,10 +1,13 @@
 /** Analysis settings as the workspace sends them and the server re-runs them. */
 import { z } from 'zod';
-import { type AnalysisSettings, type ImportOptions, METHOD_CHOICES, parseWheel } from '@/signal';
+import { type AnalysisSettings, type ImportOptions, LIMITS, type LimitKey, limitSentence, METHOD_CHOICES, parseWheel } from '@/signal';
 import { engineSettingsSchema, type EngineSpec } from './engine';
 import { type StartingLimits, startingLimitsSchema } from './starting-limits';
 
 export const CHANNEL_ROLES = ['time', 'current', 'crank', 'sync', 'rpm', 'battery', 'level', 'toothTimes', 'toothPeriod', 'ignore'] as const;
+
+/** A limit with its range, default and sentences (signal/limits.ts). */
+const limit = (key: LimitKey) => z.number().gt(LIMITS[key].above, limitSentence(key, 'above')).lt(LIMITS[key].below, limitSentence(key, 'below')).default(LIMITS[key].default);
 
 export const analysisSettingsSchema = z
   .object({
@@ -15,9 +18,9 @@ export const analysisSettingsSchema = z
       .max(200, 'A wheel is written in at most 200 characters.')
       .refine((t) => parseWheel(t) !== null, 'Write the wheel like 60-2, or as runs and gaps such as 36:15/2,14/1,3/1.')
       .optional(),
-    lowLimitPercent: z.number().gt(0, 'The low limit is a percentage above 0.').lt(100, 'The low limit is a percentage below 100.').default(90),
-    spreadLimitPercent: z.number().gt(0, 'The spread limit is a number of points above 0.').lt(100, 'The spread limit is a number of points below 100.').default(10),
-    highLimitPercent: z.number().gt(100, 'The upper limit is a percentage above 100.').lt(300, 'The upper limit is a percentage below 300.').default(110),
+    lowLimitPercent: limit('lowLimitPercent'),
+    spreadLimitPercent: limit('spreadLimitPercent'),
+    highLimitPercent: limit('highLimitPercent'),
     window: z.object({ startS: z.number(), endS: z.number() }).refine((w) => w.endS > w.startS, 'The cranking window must end after it starts.').optional(),
     rotation: z.number().int('The rotation is a whole number of steps.').min(-16, 'The rotation is at most 16 steps either way.').max(16, 'The rotation is at most 16 steps either way.').default(0),
     sensor: z.enum(['auto', 'hall', 'vr']).default('auto'),

@@ -12,20 +12,22 @@ import {
   MAX_CAPTURE_BYTES,
   MAX_CAPTURE_SIZE,
   intervalText,
+  LIMITS,
+  METHOD_CHOICES,
   percentText,
 } from '../signal';
 
 const HELP = `Usage: npm run --silent analyze -- FILE --cylinders N --firing-order 1-3-4-2 [options]
 
-  --method auto|current|crank-speed|event-duration|battery   method (auto: crank speed when there are teeth)
+  --method ${METHOD_CHOICES.join('|')}   method (auto: crank speed when there are teeth)
   --teeth WHEEL          crank wheel, learned from the capture when left out: 60-2, or runs of
                          teeth and gaps from position 0 such as 36:15/2,14/1,3/1, or 12:12+1
                          for 12 teeth and one extra tooth
   --mark-offset DEG      crank degrees from a cam/injector/coil mark to cylinder 1's TDC
                          (default 0 for a cam, 360 for an injector output)
-  --low-limit 90         low limit, % of the healthy cylinders
-  --high-limit 110       upper limit: a cylinder wholly above it reads high
-  --spread-limit 10      spread limit, percentage points
+  --low-limit ${LIMITS.lowLimitPercent.default}         low limit, % of the healthy cylinders
+  --high-limit ${LIMITS.highLimitPercent.default}       upper limit: a cylinder wholly above it reads high
+  --spread-limit ${LIMITS.spreadLimitPercent.default}      spread limit, percentage points
   --intervals 90-150-…   firing intervals for uneven fire, degrees
   --sample-rate HZ       samples per second, for a sample-index column
   --rotation N           step the assumed cylinder assignment
@@ -42,9 +44,7 @@ const FLAG_OF: Record<string, string> = {
   'engine.intervalsDeg': '--intervals',
   method: '--method',
   teeth: '--teeth',
-  lowLimitPercent: '--low-limit',
-  highLimitPercent: '--high-limit',
-  spreadLimitPercent: '--spread-limit',
+  ...Object.fromEntries(Object.entries(LIMITS).map(([key, rule]) => [key, rule.flag])),
   rotation: '--rotation',
   'starting.displacementL': '--displacement',
   'starting.temperatureC': '--temperature',
@@ -72,9 +72,9 @@ function main() {
         'firing-order': { type: 'string' },
         method: { type: 'string', default: 'auto' },
         teeth: { type: 'string' },
-        'low-limit': { type: 'string', default: '90' },
-        'high-limit': { type: 'string', default: '110' },
-        'spread-limit': { type: 'string', default: '10' },
+        'low-limit': { type: 'string' },
+        'high-limit': { type: 'string' },
+        'spread-limit': { type: 'string' },
         intervals: { type: 'string' },
         'sample-rate': { type: 'string' },
         rotation: { type: 'string', default: '0' },
@@ -100,7 +100,9 @@ function main() {
   const cylinders = Number(values.cylinders);
   if (!values.cylinders || !Number.isInteger(cylinders) || cylinders < 1 || cylinders > 16) fail('Give --cylinders as a whole number from 1 to 16.');
   if (!values['firing-order']) fail('Give --firing-order, for example 1-3-4-2.');
+  // A flag left out is left to the schema's default (signal/limits.ts for the limits).
   const num = (flag: 'low-limit' | 'high-limit' | 'spread-limit' | 'rotation' | 'displacement' | 'temperature') => {
+    if (values[flag] === undefined) return undefined;
     const v = Number(values[flag]);
     return Number.isFinite(v) ? v : fail(`--${flag} must be a number, not "${values[flag]}".`);
   };
@@ -118,8 +120,8 @@ function main() {
     spreadLimitPercent: num('spread-limit'),
     rotation: num('rotation'),
     starting: {
-      displacementL: values.displacement === undefined ? undefined : num('displacement'),
-      temperatureC: values.temperature === undefined ? undefined : num('temperature'),
+      displacementL: num('displacement'),
+      temperatureC: num('temperature'),
       diesel: values.diesel || undefined,
     },
   });

@@ -23,6 +23,8 @@ import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/batte
 import { teethOf, wheelNotation } from './teeth/wheel';
 import { measureStarting, type StartingFigures } from './starting/measure';
 import { checkStartingSystem, type StartingSystem } from './starting/check';
+import { LIMITS, limitProblem } from './limits';
+import { methodAdjective } from './format';
 
 const MIN_RPM = 100;
 const MAX_RPM = 400;
@@ -36,13 +38,12 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
   const setup = settings.engine;
   checkFiringOrder(setup.firingOrder, setup.cylinders);
   firingIntervals(setup);
-  const lowLimit = settings.lowLimitPercent ?? 90;
-  const spreadLimit = settings.spreadLimitPercent ?? 10;
-  const highLimit = settings.highLimitPercent ?? 110;
-  if (!(highLimit > 100 && highLimit < 300)) throw new CaptureError('BAD_SETTINGS', 'The upper limit must be a percentage above 100.');
+  const lowLimit = settings.lowLimitPercent ?? LIMITS.lowLimitPercent.default;
+  const spreadLimit = settings.spreadLimitPercent ?? LIMITS.spreadLimitPercent.default;
+  const highLimit = settings.highLimitPercent ?? LIMITS.highLimitPercent.default;
+  const problem = limitProblem('highLimitPercent', highLimit) ?? limitProblem('lowLimitPercent', lowLimit) ?? limitProblem('spreadLimitPercent', spreadLimit);
+  if (problem) throw new CaptureError('BAD_SETTINGS', problem);
   const limits: Limits = { lowLimitPercent: lowLimit, highLimitPercent: highLimit, minEvents: MIN_CYCLES };
-  if (!(lowLimit > 0 && lowLimit < 100)) throw new CaptureError('BAD_SETTINGS', 'The low limit must be a percentage between 0 and 100.');
-  if (!(spreadLimit > 0 && spreadLimit < 100)) throw new CaptureError('BAD_SETTINGS', 'The spread limit must be a percentage between 0 and 100.');
   const rotation = Math.trunc(settings.rotation ?? 0);
   const choice = settings.method ?? 'auto';
   const hasCurrent = !!(columns.current && columns.time);
@@ -142,7 +143,7 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
       settle(result.cylinders, result.method, result.warnings, result.wheel, setup, limits);
       if (!checked.agree) {
         const check = otherMethod === teethCheck ? 'the wheel, the cylinder count and the firing order' : 'both probes and the firing order';
-        result.warnings.push(warning('METHODS_DISAGREE', `The ${METHOD_WORDS[primary]} and ${METHOD_WORDS[otherMethod]} methods differ by up to ${checked.maxDifference} points; check ${check} before trusting either.`));
+        result.warnings.push(warning('METHODS_DISAGREE', `The ${methodAdjective(primary)} and ${methodAdjective(otherMethod)} methods differ by up to ${checked.maxDifference} points; check ${check} before trusting either.`));
       }
     }
   }
@@ -344,7 +345,6 @@ function toMethodResult(
 }
 
 const RAW_UNIT = { current: 'A', 'crank-speed': 'rpm', 'event-duration': 'ms', battery: 'V' } as const;
-const METHOD_WORDS: Record<Method, string> = { current: 'starter-current', 'crank-speed': 'crank-speed', 'event-duration': 'event-duration', battery: 'battery-voltage' };
 
 /** A result that ranks cylinders: figures for every cylinder and no warning that leaves nothing to rank. */
 function usable(r: MethodResult): boolean {

@@ -11,6 +11,25 @@ export const METHOD_CHOICES = ['auto', 'current', 'crank-speed', 'event-duration
 /** The method in words. */
 export const METHOD_NAMES = { current: 'starter current', 'crank-speed': 'crank speed', 'event-duration': 'event duration', battery: 'battery voltage' } as const;
 
+/** The method's name before a noun: "the starter-current method". */
+export function methodAdjective(method: keyof typeof METHOD_NAMES): string {
+  return METHOD_NAMES[method].replace(/ /g, '-');
+}
+
+/** The method as a choice in a list: "Starter current"; event duration says it reads any wheel. */
+export function methodLabel(method: keyof typeof METHOD_NAMES): string {
+  const name = METHOD_NAMES[method];
+  return `${name[0].toUpperCase()}${name.slice(1)}${method === 'event-duration' ? ' (any wheel)' : ''}`;
+}
+
+/** The verdict in a sentence (without its full stop), the same on the screen, in the PDF and on the command line. */
+export const VERDICT_WORDS = {
+  ok: 'No cylinder below the low limit',
+  low: 'At least one cylinder is below the low limit',
+  high: 'At least one cylinder reads above the upper limit',
+  uncertain: 'Not enough good evidence to rank the cylinders',
+} as const;
+
 /** What the raw figure of each unit measures, as a column heading. */
 export const RAW_LABELS = { A: 'Current rise', V: 'Voltage swing', rpm: 'Speed dip', ms: 'Event time' } as const;
 

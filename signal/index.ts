@@ -33,7 +33,8 @@ export function analyzeBytes(
   const capture = importCapture(bytes, options);
   return { capture, result: analyzeCapture(capture.columns, settings, capture.warnings) };
 }
-export { identityWords, intervalText, METHOD_CHOICES, METHOD_NAMES, percentText, RAW_LABELS } from './format';
+export { identityWords, intervalText, METHOD_CHOICES, METHOD_NAMES, methodAdjective, methodLabel, percentText, RAW_LABELS, VERDICT_WORDS } from './format';
 export { compareResults } from './steps/compare';
 export { toothPeriods } from './teeth/periods';
 export type { CylinderChange } from './steps/compare';
+export { LIMITS, limitProblem, limitSentence, type LimitKey } from './limits';

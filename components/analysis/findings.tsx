@@ -1,13 +1,6 @@
 /** Where the eye lands after the chart: the verdict, the pattern hint with next tests, and the warnings. */
-import { type AnalysisResult, METHOD_NAMES } from '@/signal';
+import { type AnalysisResult, METHOD_NAMES, VERDICT_WORDS } from '@/signal';
 import { STATUS_TEXT } from './status-style';
-
-const VERDICT: Record<string, string> = {
-  ok: 'No cylinder below the low limit.',
-  low: 'At least one cylinder is below the low limit.',
-  high: 'At least one cylinder reads above the upper limit.',
-  uncertain: 'Not enough good evidence to rank the cylinders.',
-};
 
 /** `onTryCylinders` re-reads the capture as an engine of that many cylinders (offered when the capture contradicts the setup). */
 export function Findings({ result, onTryCylinders }: { result: AnalysisResult; onTryCylinders?: (cylinders: number) => void }) {
@@ -15,7 +8,7 @@ export function Findings({ result, onTryCylinders }: { result: AnalysisResult; o
     <div className="flex flex-col gap-3">
       <p className={`text-lg font-bold ${STATUS_TEXT[result.verdict]}`} data-testid="verdict">
         {{ low: '▼ ', high: '▲ ', uncertain: '? ', ok: '✓ ' }[result.verdict]}
-        {VERDICT[result.verdict]}
+        {VERDICT_WORDS[result.verdict]}.
       </p>
       {result.quality && (
         <p data-testid="quality">

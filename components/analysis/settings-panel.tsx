@@ -6,7 +6,7 @@ import { useState } from 'react';
 import type { AnalysisSettingsValues } from '@/domain/analysis-settings';
 import { DraftNumberField } from './draft-number-field';
 import { StartingConditions } from './starting-conditions';
-import { firingOrderProblem } from '@/signal';
+import { firingOrderProblem, METHOD_CHOICES, methodLabel } from '@/signal';
 import type { Method } from '@/signal';
 
 export interface ProfileOption {
@@ -15,12 +15,7 @@ export interface ProfileOption {
   engine: AnalysisSettingsValues['engine'];
 }
 
-const METHOD_OPTIONS: [Method, string][] = [
-  ['current', 'Starter current'],
-  ['crank-speed', 'Crank speed'],
-  ['event-duration', 'Event duration (any wheel)'],
-  ['battery', 'Battery voltage'],
-];
+const METHOD_OPTIONS: [Method, string][] = METHOD_CHOICES.filter((m) => m !== 'auto').map((m) => [m, methodLabel(m)]);
 
 export function SettingsPanel({
   settings,

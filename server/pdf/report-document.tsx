@@ -4,7 +4,7 @@
  * engine version and SHA-256, page numbers. Built from plain data so it renders without a database.
  */
 import { Document, Page, Text, View } from '@react-pdf/renderer';
-import { type AnalysisResult, compareResults, identityWords, METHOD_NAMES, percentText, readingText } from '@/signal';
+import { type AnalysisResult, compareResults, identityWords, METHOD_NAMES, percentText, readingText, VERDICT_WORDS } from '@/signal';
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import { gaugeToConfirm } from '@/domain/report-wording';
 import { C, ChartSvg, Figures, s, STATUS_COLOR, TraceSvg } from './report-parts';
@@ -44,7 +44,6 @@ export interface ReportPdfData {
   limits: string;
 }
 
-const VERDICT = { ok: 'No cylinder below the low limit', low: 'At least one cylinder below the low limit', high: 'At least one cylinder above the upper limit', uncertain: 'Not enough evidence to rank the cylinders' };
 
 export function ReportDocument({ d }: { d: ReportPdfData }) {
   const main = d.analyses[0];
@@ -98,7 +97,7 @@ export function ReportDocument({ d }: { d: ReportPdfData }) {
             <View style={[s.row, { gap: 14 }]}>
               <ChartSvg r={r} />
               <View style={{ flex: 1, gap: 3 }}>
-                <Text style={[s.verdict, { color: STATUS_COLOR[r.verdict] }]}>{`Verdict: ${VERDICT[r.verdict]}`}</Text>
+                <Text style={[s.verdict, { color: STATUS_COLOR[r.verdict] }]}>{`Verdict: ${VERDICT_WORDS[r.verdict]}`}</Text>
                 <Text>{`Method: ${METHOD_NAMES[r.method]}; mean cranking ${r.crankingRpm} rpm; spread ${r.spreadPercent} points.`}</Text>
                 {r.quality && <Text>{`Capture quality: ${r.quality.grade}${r.quality.limitedBy !== 'none' ? `, limited by ${r.quality.limitedBy}` : ''}. ${r.quality.note}`}</Text>}
                 <Text>{'Whiskers show each figure\'s 90 % interval; a cylinder is low or high only when its whole interval is past the limit.'}</Text>

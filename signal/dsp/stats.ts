@@ -59,3 +59,17 @@ export function quantilesProbe(values: ArrayLike<number>, qs: number[], maxSampl
     return a[lo] + (a[hi] - a[lo]) * (pos - lo);
   });
 }
+
+/** The smallest value, by a loop: a long array spread into Math.min overflows the call stack. */
+export function minOf(values: ArrayLike<number>): number {
+  let m = Infinity;
+  for (let i = 0; i < values.length; i++) if (values[i] < m) m = values[i];
+  return m;
+}
+
+/** The largest value, by a loop (see minOf). */
+export function maxOf(values: ArrayLike<number>): number {
+  let m = -Infinity;
+  for (let i = 0; i < values.length; i++) if (values[i] > m) m = values[i];
+  return m;
+}

@@ -4,7 +4,7 @@
  * steady cranking draw and voltage, and the battery's resistance from the inrush, the slope of voltage against
  * current (Ohm's law: R = −ΔV/ΔI, the two-point method of battery standards taken over every inrush sample).
  */
-import { mean, median, quantileProbe } from '../dsp/stats';
+import { maxOf, mean, median, minOf, quantileProbe } from '../dsp/stats';
 import { movingAverage } from '../dsp/smooth';
 import { indexAtTime } from '../dsp/decimate';
 import { clampReversed } from '../methods/current';
@@ -80,16 +80,16 @@ export function measureStarting(input: StartingInput): StartingFigures | null {
   const to = w ? indexAtTime(time, w.endS) : lastBeyond(level, half, sign);
   const crankA = span(slowA, from, to);
   const crankV = span(slowV, from, to);
-  const reference = restingV ?? (crankV ? Math.max(...crankV) : null);
+  const reference = restingV ?? (crankV ? maxOf(crankV) : null);
   const systemV = reference !== null && reference > 18 ? 24 : 12;
   return {
     systemV,
     engagedAtS,
     restingV: round(restingV, 2),
-    inrushMinV: round(inrushV && hasRest ? Math.min(...inrushV) : null, 2),
-    crankingMinV: round(crankV ? Math.min(...crankV) : null, 2),
+    inrushMinV: round(inrushV && hasRest ? minOf(inrushV) : null, 2),
+    crankingMinV: round(crankV ? minOf(crankV) : null, 2),
     crankingMeanV: round(crankV ? mean(crankV) : null, 2),
-    inrushPeakA: round(inrushA && hasRest ? Math.max(...inrushA) - restA : null, 0),
+    inrushPeakA: round(inrushA && hasRest ? maxOf(inrushA) - restA : null, 0),
     crankingMeanA: round(crankA ? mean(crankA) - restA : null, 0),
     internalMilliOhm: round(current && input.battery && hasRest ? inrushResistance(fastA!, fastV!, Math.max(0, restEnd - Math.round(0.05 * rate)), inrushEnd) : null, 1),
   };

@@ -35,6 +35,15 @@ function stepCapture(restV: number, loadA: number, loadedV: number, rate = 5000)
 }
 
 describe('starting-system figures against worked examples', () => {
+  it('reads a long capture at a scope’s rate (2 s at 500 kHz, a million samples) as it reads a short one', () => {
+    // The same worked example, sampled 20 times as often: the figures must not depend on the length.
+    const c = stepCapture(12.6, 300, 10.5, 500_000);
+    const f = measureStarting({ ...c, window: { startS: 0.8, endS: 1.9 } })!;
+    expect(f.internalMilliOhm).toBeCloseTo(7.0, 1);
+    expect(f.crankingMinV).toBeCloseTo(10.5, 2);
+    expect(f.inrushMinV).toBeCloseTo(10.5, 2);
+  });
+
   it('two-point internal resistance: 12.6 V at rest, 10.5 V at 300 A → 7 mΩ (IEC 60896-11 method, from memory)', () => {
     const c = stepCapture(12.6, 300, 10.5);
     const f = measureStarting({ ...c, window: { startS: 0.8, endS: 1.9 } })!;
