@@ -16,11 +16,30 @@ export default tseslint.config(
     },
   },
   {
-    // Layers: the app, the server, the database and the engine never reach up into scripts/ (the tools around them).
+    // Layers: the app, the server, the database and the engine never reach up into scripts/ (the tools around them),
+    // and reach the engine only through its public surface (signal/index.ts; the simulator through signal/sim).
     files: ['app/**', 'server/**', 'db/**', 'domain/**', 'components/**', 'workers/**'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: ['@/scripts/*', '**/scripts/*'] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: ['@/scripts/*', '**/scripts/*'], message: 'scripts/ holds the tools around the app; nothing in the app imports it.' },
+            { group: ['@/signal/*', '**/signal/*', '!@/signal/sim', '!**/signal/sim', '@/signal/sim/*', '**/signal/sim/*'], message: 'Import the engine from @/signal (its public surface, signal/index.ts), the simulator from @/signal/sim.' },
+          ],
+        },
+      ],
     },
+  },
+  {
+    // Lower layers never import higher ones: the engine nothing of the app, domain/ nothing of db/ or server/,
+    // db/ nothing of server/, the app or the components.
+    files: ['domain/**'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [{ group: ['@/db/*', '@/server/*', '@/app/*', '@/components/*', '@/scripts/*', '@/signal/*', '!@/signal/sim', '@/signal/sim/*'], message: 'domain/ sits above the engine and below everything else.' }] }] },
+  },
+  {
+    files: ['db/**'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [{ group: ['@/server/*', '@/app/*', '@/components/*', '@/scripts/*', '**/scripts/*', '@/signal/*', '**/signal/*', '!@/signal/sim', '!**/signal/sim', '@/signal/sim/*', '**/signal/sim/*'], message: 'db/ sits below the server and the app.' }] }] },
   },
   {
     files: ['signal/**/*.ts'],

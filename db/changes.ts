@@ -5,13 +5,14 @@
  * in-process only.
  */
 import pg from 'pg';
+import { processShared } from './process-state.mjs';
 
 export const CHANGES_CHANNEL = 'crankprint_changes';
 export type ChangeTopic = 'membership';
 
 type Listener = (topic: ChangeTopic) => void;
-const g = globalThis as unknown as { __crankprintChangeListeners?: Set<Listener> };
-const listeners = (g.__crankprintChangeListeners ??= new Set());
+const g = processShared<{ changeListeners?: Set<Listener> }>('changes', () => ({}));
+const listeners = (g.changeListeners ??= new Set());
 
 /** Calls `fn` for every change heard, from this instance or another. */
 export function onChange(fn: Listener): () => void {

@@ -1,6 +1,6 @@
 /**
  * The one database client per process. Embedded PGlite in the data directory by default — opened lazily on
- * first use, kept on globalThis so every route bundle shares it, migrated once behind one promise, guarded by a
+ * first use, kept once per process (db/process-state.mjs) so every route bundle shares it, migrated once behind one promise, guarded by a
  * PID lock (on a server, migrated under an advisory lock, so a fleet may start at once) and closed by the server on SIGINT/SIGTERM once the requests under way have finished. With DATABASE_URL it is a
  * PostgreSQL server through node-postgres, with the same migrations.
  */
@@ -15,6 +15,7 @@ import pg from 'pg';
 import * as schema from './schema';
 import { acquireLock } from './lock';
 import { CHANGES_CHANNEL, type ChangeTopic, heard, listenForChanges } from './changes';
+import { processShared } from './process-state.mjs';
 
 export type { Db } from './db-type';
 import type { Db } from './db-type';
@@ -126,26 +127,9 @@ export function dataDir(): string {
 }
 
 type Holder = { ready?: Promise<Database> };
-const g = globalThis as unknown as { __crankprintDb?: Holder; __crankprintLife?: Life };
-const holder: Holder = (g.__crankprintDb ??= {});
-
-/** What the server (scripts/serve.mjs) shares with the app in its process: whether it is stopping. */
-interface Life {
-  stopping: boolean;
-  cutOff: boolean;
-  closeDatabase?: () => Promise<void>;
-}
-const life: Life = (g.__crankprintLife ??= { stopping: false, cutOff: false });
-
-/** True once SIGTERM or SIGINT has arrived: handlers answer 503 rather than start work. */
-export function shuttingDown(): boolean {
-  return life.stopping;
-}
-
-/** True when the server is about to close the database: work still running (a long upload) gives up with a 503. */
-export function pastCutOff(): boolean {
-  return life.cutOff;
-}
+// One per process, whichever route bundle asks (db/process-state.mjs); the server closes it when it stops
+// (server/lifecycle.mjs).
+const holder: Holder = processShared('database', () => ({}));
 
 /** The process's database, opened and migrated on first use. Every handler awaits this before a query. */
 export function getDatabase(): Promise<Database> {
@@ -153,8 +137,6 @@ export function getDatabase(): Promise<Database> {
     // Demo mode seeds an invented shop into an empty database (under the start lock, so once in a fleet).
     const afterMigrate = process.env.CRANKPRINT_DEMO === '1' ? async (db: Db) => (await import('./seed')).seedDemoIfEmpty(db) : undefined;
     const d = await openDatabase(process.env.DATABASE_URL ? { url: process.env.DATABASE_URL, afterMigrate } : { dataDir: dataDir(), afterMigrate });
-    // The server closes it once the requests under way have finished (scripts/serve.mjs).
-    life.closeDatabase = () => d.close();
     return d;
   })().catch((e) => {
     holder.ready = undefined;

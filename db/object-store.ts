@@ -8,6 +8,7 @@
 import { Readable } from 'node:stream';
 import { DeleteObjectsCommand, GetObjectCommand, HeadObjectCommand, ListObjectsV2Command, NotFound, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 import { Upload } from '@aws-sdk/lib-storage';
+import { processShared } from './process-state.mjs';
 
 export interface ObjectLocation {
   bucket: string;
@@ -35,7 +36,7 @@ export function parseObjectUrl(url: string): ObjectLocation {
   return { bucket: m[1], key: m[2] };
 }
 
-const g = globalThis as unknown as { __crankprintS3?: S3Client; __crankprintS3DownUntil?: number };
+const g = processShared<{ s3?: S3Client; s3DownUntil?: number }>('objectStore', () => ({}));
 
 /** How long object storage may take to accept a connection, and stay silent during a request, before it fails. */
 export const STORAGE_TIMEOUTS = { connectMs: 5_000, idleMs: 15_000 };
@@ -52,7 +53,7 @@ export class StorageUnavailableError extends Error {
 /** The process's one S3 client. A custom endpoint (a local stand-in, MinIO, another provider) is addressed path-style. */
 export function s3(): S3Client {
   const endpoint = process.env.AWS_ENDPOINT_URL_S3 || process.env.AWS_ENDPOINT_URL;
-  return (g.__crankprintS3 ??= new S3Client({
+  return (g.s3 ??= new S3Client({
     region: process.env.AWS_REGION || process.env.AWS_DEFAULT_REGION || 'us-east-1',
     ...(endpoint ? { endpoint, forcePathStyle: true } : {}),
     // A stalled endpoint fails the request after 5 s (connect) or 15 s of silence (per attempt, two attempts), never minutes.
@@ -69,14 +70,14 @@ export function s3(): S3Client {
  * the caller's own abort becomes StorageUnavailableError (and marks storage down for a few seconds).
  */
 async function guarded<T>(op: () => Promise<T>, signal?: AbortSignal): Promise<T> {
-  if ((g.__crankprintS3DownUntil ?? 0) > Date.now()) throw new StorageUnavailableError();
+  if ((g.s3DownUntil ?? 0) > Date.now()) throw new StorageUnavailableError();
   const started = Date.now();
   try {
     return await op();
   } catch (e) {
     if (signal?.aborted || e instanceof StorageUnavailableError) throw e;
     // A refused connection fails at once anyway; a silent endpoint would hold every request for the timeouts.
-    if (Date.now() - started >= STORAGE_TIMEOUTS.connectMs) g.__crankprintS3DownUntil = Date.now() + DOWN_FOR_MS;
+    if (Date.now() - started >= STORAGE_TIMEOUTS.connectMs) g.s3DownUntil = Date.now() + DOWN_FOR_MS;
     throw new StorageUnavailableError(e);
   }
 }

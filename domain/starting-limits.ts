@@ -3,8 +3,8 @@
  * and their sources are the engine's (signal/starting/limits.ts).
  */
 import { z } from 'zod';
-import type { StartingLimits } from '@/signal/starting/limits';
-export { DEFAULT_STARTING_LIMITS, LIMIT_SOURCES } from '@/signal/starting/limits';
+import type { StartingLimits } from '@/signal';
+export { DEFAULT_STARTING_LIMITS, LIMIT_SOURCES } from '@/signal';
 export type { StartingLimits };
 
 export const startingLimitsSchema = z.object({

@@ -1,5 +1,5 @@
 /**
- * Crankprint's server (`npm start`: scripts/serve.mjs) as a child process for the fault tests and the load
+ * Crankprint's server (`npm start`: server/serve.mjs) as a child process for the fault tests and the load
  * benchmark: its own port and database, the demo shop seeded, mail to a closed port.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
@@ -14,7 +14,7 @@ export interface AppServer {
 
 export function startApp(port: number, env: Record<string, string>, options: { detached?: boolean; logs?: boolean } = {}): AppServer {
   const base = `http://127.0.0.1:${port}`;
-  const child = spawn(process.execPath, ['scripts/serve.mjs'], {
+  const child = spawn(process.execPath, ['server/serve.mjs'], {
     detached: options.detached,
     stdio: ['ignore', options.logs ? 'pipe' : 'ignore', 'pipe'],
     env: {

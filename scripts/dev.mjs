@@ -42,7 +42,7 @@ const env = {
 // Each child leads its own process group, so stopping it stops everything it started.
 const children = [
   spawn(process.execPath, ['scripts/mail-sink.mjs'], { stdio: 'inherit', env, detached: true }),
-  spawn(process.execPath, ['scripts/serve.mjs', '--dev'], { stdio: 'inherit', env, detached: true }),
+  spawn(process.execPath, ['server/serve.mjs', '--dev'], { stdio: 'inherit', env, detached: true }),
 ];
 console.log(`Crankprint: ${url} (sign in as tech@demo.crankprint.test / crank-demo-2026; mail: ${url}/dev/mail)`);
 

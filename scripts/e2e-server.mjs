@@ -27,7 +27,7 @@ const env = {
 if (process.env.CRANKPRINT_TEST_PG_URL) env.DATABASE_URL = await createDatabase(process.env.CRANKPRINT_TEST_PG_URL, 'e2e');
 const children = [
   spawn(process.execPath, ['scripts/mail-sink.mjs'], { stdio: 'inherit', env }),
-  spawn(process.execPath, ['scripts/serve.mjs'], { stdio: 'inherit', env }),
+  spawn(process.execPath, ['server/serve.mjs'], { stdio: 'inherit', env }),
 ];
 const stop = () => children.forEach((c) => c.kill('SIGTERM'));
 process.on('SIGINT', stop);

@@ -51,7 +51,7 @@ function newestSource() {
     }
   };
   for (const d of ['app', 'components', 'db', 'domain', 'server', 'signal', 'workers']) walk(d);
-  for (const f of ['next.config.mjs', 'proxy.ts', 'instrumentation.ts', 'scripts/build-engine.mjs', 'package-lock.json']) if (existsSync(f)) newest = Math.max(newest, statSync(f).mtimeMs);
+  for (const f of ['next.config.mjs', 'proxy.ts', 'instrumentation.ts', 'server/engine/build.mjs', 'package-lock.json']) if (existsSync(f)) newest = Math.max(newest, statSync(f).mtimeMs);
   return newest;
 }
 

@@ -14,6 +14,7 @@ import { authLogLine, log, safeError } from './log';
 import { sendMail } from './mail';
 import { CLIENT_HEADER } from '@/server/client-address.mjs';
 import { ac, roles } from './permissions';
+import { processShared } from '@/db/process-state.mjs';
 
 export const APP_URL = process.env.BETTER_AUTH_URL || 'http://127.0.0.1:3000';
 
@@ -55,7 +56,7 @@ function build(db: Awaited<ReturnType<typeof getDb>>) {
       disableCSRFCheck: false,
       useSecureCookies: SECURE_COOKIES,
       cookiePrefix: 'crankprint',
-      // The address the server took from the socket or its trusted proxies (scripts/serve.mjs).
+      // The address the server took from the socket or its trusted proxies (server/serve.mjs).
       ipAddress: { ipAddressHeaders: [CLIENT_HEADER] },
     },
     emailAndPassword: {
@@ -128,10 +129,10 @@ function sendMailLogged(message: Parameters<typeof sendMail>[0]): Promise<void> 
 
 export type Auth = ReturnType<typeof build>;
 
-const g = globalThis as unknown as { __crankprintAuth?: Promise<Auth> };
+const g = processShared<{ auth?: Promise<Auth> }>('auth', () => ({}));
 
 /** The process's better-auth instance, built once the database is open. */
 export function getAuth(): Promise<Auth> {
-  g.__crankprintAuth ??= getDb().then(build);
-  return g.__crankprintAuth;
+  g.auth ??= getDb().then(build);
+  return g.auth;
 }

@@ -1,6 +1,6 @@
 // Who sent a request: the socket's address, or — when the socket is a trusted proxy — the forwarded chain
 // walked from the right, skipping trusted hops (proxy-addr's rules, as Express applies them). The server
-// (scripts/serve.mjs) writes the answer into a header only it sets; nothing else reads X-Forwarded-For.
+// (server/serve.mjs) writes the answer into a header only it sets; nothing else reads X-Forwarded-For.
 import proxyaddr from 'proxy-addr';
 
 /** The header the server writes the client's address into, after removing any copy a client sent. */

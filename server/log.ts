@@ -8,8 +8,9 @@ import 'server-only';
 import { AsyncLocalStorage } from 'node:async_hooks';
 import pino, { type Logger } from 'pino';
 import pretty from 'pino-pretty';
+import { processShared } from '@/db/process-state.mjs';
 
-const g = globalThis as unknown as { __crankprintLog?: Logger };
+const g = processShared<{ log?: Logger }>('log', () => ({}));
 
 function build(): Logger {
   const options = {
@@ -21,9 +22,9 @@ function build(): Logger {
   return pino(options, pretty({ colorize: !!process.stdout.isTTY, sync: true, ignore: 'pid,hostname,service' }));
 }
 
-export const log: Logger = (g.__crankprintLog ??= build());
+export const log: Logger = (g.log ??= build());
 
-/** The id the server gave this request (scripts/serve.mjs), or '-' when none. */
+/** The id the server gave this request (server/serve.mjs), or '-' when none. */
 export function requestIdOf(headers: Headers): string {
   return headers.get('x-request-id') ?? '-';
 }
@@ -59,7 +60,7 @@ export function safeError(e: unknown, depth = 0): Record<string, unknown> | unde
   };
 }
 
-const requests = ((globalThis as unknown as { __crankprintRequests?: AsyncLocalStorage<{ requestId: string }> }).__crankprintRequests ??= new AsyncLocalStorage());
+const requests = processShared('requests', () => new AsyncLocalStorage<{ requestId: string }>());
 
 /** Runs `fn` as the work of one request: lines logged inside it (better-auth's included) carry its id. */
 export function inRequest<T>(requestId: string, fn: () => T): T {

@@ -1,12 +1,13 @@
 /** Outgoing e-mail through nodemailer to SMTP_URL (in development, the local sink that `npm run dev` starts). */
 import 'server-only';
 import nodemailer, { type Transporter } from 'nodemailer';
+import { processShared } from '@/db/process-state.mjs';
 
-const g = globalThis as unknown as { __crankprintMail?: Transporter };
+const g = processShared<{ mail?: Transporter }>('mail', () => ({}));
 
 function transport(): Transporter {
-  g.__crankprintMail ??= nodemailer.createTransport(process.env.SMTP_URL || 'smtp://127.0.0.1:2525');
-  return g.__crankprintMail;
+  g.mail ??= nodemailer.createTransport(process.env.SMTP_URL || 'smtp://127.0.0.1:2525');
+  return g.mail;
 }
 
 export const MAIL_FROM = process.env.MAIL_FROM || 'Crankprint <no-reply@crankprint.invalid>';

@@ -7,6 +7,7 @@
 import 'server-only';
 import { getDatabase } from '@/db/client';
 import { onChange } from '@/db/changes';
+import { processShared } from '@/db/process-state.mjs';
 
 export const TTL_MS = 5_000;
 const MAX_ENTRIES = 10_000;
@@ -21,9 +22,9 @@ interface Cache {
   generation: number;
   listening: boolean;
 }
-// On globalThis: every route bundle shares one cache and registers one listener.
-const g = globalThis as unknown as { __crankprintMemberships?: Cache };
-const cache: Cache = (g.__crankprintMemberships ??= { entries: new Map(), generation: 0, listening: false });
+// Once per process (db/process-state.mjs): every route bundle shares one cache and registers one listener.
+const g = processShared<{ memberships?: Cache }>('memberships', () => ({}));
+const cache: Cache = (g.memberships ??= { entries: new Map(), generation: 0, listening: false });
 
 /** The remembered value for `key`, or what `load` finds (remembered for TTL_MS; a failure is not). */
 export async function rememberMembership<T>(key: string, load: () => Promise<T>): Promise<T> {

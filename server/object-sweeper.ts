@@ -4,9 +4,10 @@
  */
 import { flushObjectDeletes, pendingObjectDeleteCount } from '@/db/queries/object-deletes';
 import { log, safeError } from './log';
+import { processShared } from '@/db/process-state.mjs';
 
 const EVERY_MS = 5 * 60_000;
-const g = globalThis as unknown as { __crankprintSweeper?: NodeJS.Timeout };
+const g = processShared<{ sweeper?: NodeJS.Timeout }>('objectSweeper', () => ({}));
 
 /** Sweeps until the queue is empty or storage fails; returns how many objects were removed. */
 export async function sweepObjectDeletes(): Promise<number> {
@@ -22,8 +23,8 @@ export async function sweepObjectDeletes(): Promise<number> {
 }
 
 export function startObjectSweeper(): void {
-  if (g.__crankprintSweeper) return;
+  if (g.sweeper) return;
   const run = () => void sweepObjectDeletes().catch((e: unknown) => log.warn({ err: safeError(e) }, 'object storage sweep failed'));
   setTimeout(run, 5_000).unref();
-  g.__crankprintSweeper = setInterval(run, EVERY_MS).unref();
+  g.sweeper = setInterval(run, EVERY_MS).unref();
 }

@@ -1,7 +1,7 @@
 /**
  * One budget per client and purpose, counted by rate-limiter-flexible: in PostgreSQL when DATABASE_URL is set
  * (every instance on that server shares the counts), in memory on the embedded database (one process holds it).
- * The client is the address the server took from the socket or its trusted proxies (scripts/serve.mjs).
+ * The client is the address the server took from the socket or its trusted proxies (server/serve.mjs).
  */
 import 'server-only';
 import { RateLimiterDrizzle, type RateLimiterAbstract, RateLimiterMemory, RateLimiterRes } from 'rate-limiter-flexible';
@@ -11,6 +11,7 @@ import { CLIENT_HEADER } from '@/server/client-address.mjs';
 import { clientKey } from './client-key';
 import { HttpError } from './http';
 import { log } from './log';
+import { processShared } from '@/db/process-state.mjs';
 
 /** CRANKPRINT_RATE_LIMIT_SCALE multiplies every budget (the browser tests share one loopback address). */
 const scale = Math.max(1, Number(process.env.CRANKPRINT_RATE_LIMIT_SCALE) || 1);
@@ -27,7 +28,7 @@ export type Purpose = keyof typeof BUDGETS;
 
 const WINDOW_S = 60;
 
-const g = globalThis as unknown as { __crankprintLimiters?: Promise<Record<Purpose, RateLimiterAbstract>> };
+const g = processShared<{ limiters?: Promise<Record<Purpose, RateLimiterAbstract>> }>('rateLimits', () => ({}));
 
 async function build(): Promise<Record<Purpose, RateLimiterAbstract>> {
   const db = process.env.DATABASE_URL ? await getDb() : null;
@@ -54,8 +55,8 @@ export function clientOf(headers: Headers): string {
 
 /** Counts one attempt; a 429 with a sentence (and Retry-After) once the client's budget for `purpose` is spent. */
 export async function spend(purpose: Purpose, headers: Headers): Promise<void> {
-  g.__crankprintLimiters ??= build();
-  const limiters = await g.__crankprintLimiters;
+  g.limiters ??= build();
+  const limiters = await g.limiters;
   try {
     await limiters[purpose].consume(clientOf(headers));
   } catch (e) {

@@ -6,7 +6,7 @@
  */
 import 'server-only';
 import { CHUNK_BYTES } from '@/db/chunks';
-import { pastCutOff } from '@/db/client';
+import { pastCutOff } from './lifecycle.mjs';
 import { captureStoreTarget } from '@/db/object-store';
 import type { EngineSpec } from '@/domain/engine';
 import { settingsForEngine } from '@/domain/analysis-settings';

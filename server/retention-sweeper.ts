@@ -4,17 +4,18 @@
  */
 import { sweepRetention } from '@/db/queries/retention';
 import { log, safeError } from './log';
+import { processShared } from '@/db/process-state.mjs';
 
 const ASK_EVERY_MS = 60 * 60_000;
-const g = globalThis as unknown as { __crankprintRetention?: NodeJS.Timeout };
+const g = processShared<{ retention?: NodeJS.Timeout }>('retentionSweeper', () => ({}));
 
 export function startRetentionSweeper(): void {
-  if (g.__crankprintRetention) return;
+  if (g.retention) return;
   const run = () =>
     void sweepRetention().then(
       (r) => r.ran && log.info({ shops: r.shops, objectsLeft: r.objectsLeft }, 'retention sweep'),
       (e: unknown) => log.warn({ err: safeError(e) }, 'retention sweep failed'),
     );
   setTimeout(run, 60_000).unref();
-  g.__crankprintRetention = setInterval(run, ASK_EVERY_MS).unref();
+  g.retention = setInterval(run, ASK_EVERY_MS).unref();
 }

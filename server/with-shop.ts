@@ -5,7 +5,8 @@
 import 'server-only';
 import { and, asc, eq } from 'drizzle-orm';
 import { type NextRequest, NextResponse } from 'next/server';
-import { getDb, shuttingDown } from '@/db/client';
+import { getDb } from '@/db/client';
+import { shuttingDown } from './lifecycle.mjs';
 import { StorageUnavailableError } from '@/db/object-store';
 import { members, organizations, shopSettings } from '@/db/schema';
 import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';

@@ -11,7 +11,7 @@ export { decimateMinMax, indexAtTime } from './dsp/decimate';
 export { median, quantile } from './dsp/stats';
 export { CaptureError, isCaptureError } from './errors';
 export { ENGINE_VERSION } from './version';
-export { ENGINE_PROFILES } from './engine/profiles';
+export { ENGINE_PROFILES, profileEngine } from './engine/profiles';
 export { parseFiringOrder, checkFiringOrder, areNeighbours, firingIntervalsProblem, firingOrderProblem } from './engine/firing';
 export type { EngineSetup, BankLayout, Numbering } from './engine/firing';
 export { BANK_LAYOUTS, MAX_CYLINDERS, NUMBERINGS } from './engine/firing';
@@ -20,8 +20,9 @@ export type { ToothWheel } from './teeth/wheel';
 export type * from './types';
 export type { StartingCheck, StartingStatus, StartingSystem } from './starting/check';
 export { readingText } from './starting/check';
+export { DEFAULT_STARTING_LIMITS, LIMIT_SOURCES, type StartingLimits } from './starting/limits';
 export type { QualityWarning, WarningCode } from './steps/warnings';
-export { refusalFor, SURE_MAPPING } from './steps/screen';
+export { measuredNothing, refusalFor, SURE_MAPPING } from './steps/screen';
 export { NUMBERING_ASSUMED } from './steps/pattern';
 
 /** Imports and analyses a file held in memory: what the server does when it saves an analysis. */

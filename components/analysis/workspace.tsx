@@ -12,7 +12,7 @@ import { Notice } from '@/components/ui/field';
 import { call, errorText } from '@/components/data/api';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
-import { SURE_MAPPING } from '@/signal/steps/screen';
+import { SURE_MAPPING } from '@/signal';
 import type { WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';

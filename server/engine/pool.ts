@@ -1,7 +1,7 @@
 /**
  * A bounded pool of worker threads (piscina) for the engine's work, sized to the machine's cores; the request
  * thread only streams, hashes and stores. A full queue answers 503 at once with a sentence; a task whose
- * request is aborted is cancelled. The thread is one bundled ES module (scripts/build-engine.mjs): in production
+ * request is aborted is cancelled. The thread is one bundled ES module (server/engine/build.mjs): in production
  * the one `npm run build` made (.engine/thread.mjs); in development and tests the pool bundles it itself first.
  */
 import 'server-only';
@@ -18,6 +18,7 @@ import type { ReportPdfData } from '../pdf/report-document';
 import { HttpError } from '../http';
 import { currentRequestId, log, safeError, shortId } from '../log';
 import type { EngineAnswer, EngineTask } from './thread';
+import { processShared } from '@/db/process-state.mjs';
 
 export const THREADS = Math.max(1, Math.min(4, availableParallelism()));
 /** Tasks that may wait for a thread before new ones are turned away. */
@@ -25,7 +26,7 @@ export const MAX_QUEUE = THREADS * 4;
 
 const BUILT = resolve(/*turbopackIgnore: true*/ process.cwd(), '.engine/thread.mjs');
 const DEV_BUILT = resolve(/*turbopackIgnore: true*/ process.cwd(), '.engine/thread.dev.mjs');
-const BUILDER = pathToFileURL(resolve(/*turbopackIgnore: true*/ process.cwd(), 'scripts/build-engine.mjs')).href;
+const BUILDER = pathToFileURL(resolve(/*turbopackIgnore: true*/ process.cwd(), 'server/engine/build.mjs')).href;
 
 async function build(): Promise<Piscina> {
   let file = BUILT;
@@ -48,7 +49,7 @@ async function build(): Promise<Piscina> {
   // fresh one and asks it which engine it is.
   p.on('error', (e: unknown) => {
     log.error({ err: safeError(e) }, 'engine thread failed');
-    if (g.__crankprintEngineThreads === p) g.__crankprintEnginePool = g.__crankprintEngineThreads = undefined;
+    if (g.engineThreads === p) g.enginePool = g.engineThreads = undefined;
     void p.destroy().catch(() => {});
   });
   // The first thread says which engine it is: one that cannot start, or a bundle from another engine version
@@ -65,14 +66,14 @@ async function build(): Promise<Piscina> {
     void p.destroy().catch(() => {});
     throw engineDown(new Error(`engine bundle ${String(version)} beside source ${ENGINE_VERSION}`), `The analysis engine on this server (${String(version)}) is not the one this version of Crankprint was built with (${ENGINE_VERSION}): run npm run build, then start the server again.`);
   }
-  g.__crankprintEngineThreads = p;
+  g.engineThreads = p;
   return p;
 }
 
-const g = globalThis as unknown as { __crankprintEnginePool?: Promise<Piscina>; __crankprintEngineThreads?: Piscina };
+const g = processShared<{ enginePool?: Promise<Piscina>; engineThreads?: Piscina }>('engine', () => ({}));
 const pool = (): Promise<Piscina> =>
-  (g.__crankprintEnginePool ??= build().catch((e) => {
-    g.__crankprintEnginePool = undefined;
+  (g.enginePool ??= build().catch((e) => {
+    g.enginePool = undefined;
     throw e;
   }));
 
@@ -83,8 +84,8 @@ export async function checkEngine(): Promise<void> {
 
 /** Stops the engine's threads (tests; the server's exit stops them with the process). */
 export async function closeEnginePool(): Promise<void> {
-  const p = g.__crankprintEnginePool;
-  g.__crankprintEnginePool = g.__crankprintEngineThreads = undefined;
+  const p = g.enginePool;
+  g.enginePool = g.engineThreads = undefined;
   await (await p?.catch(() => undefined))?.destroy();
 }
 

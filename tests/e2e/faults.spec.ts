@@ -227,7 +227,7 @@ test('a second server on the same data directory refuses to start, naming the pr
   const server = startServer();
   await waitReady(server);
   const { spawn } = await import('node:child_process');
-  const second = spawn(process.execPath, ['scripts/serve.mjs'], {
+  const second = spawn(process.execPath, ['server/serve.mjs'], {
     stdio: ['ignore', 'ignore', 'pipe'],
     env: { ...process.env, PORT: '0', CRANKPRINT_DATA_DIR: DATA, NEXT_TELEMETRY_DISABLED: '1', BETTER_AUTH_SECRET: 'child-server-secret-0123456789abcdef0123456789' },
   });

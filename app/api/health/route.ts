@@ -5,7 +5,8 @@
  * then, so the answer stays 200. No session, nothing about any shop.
  */
 import { sql } from 'drizzle-orm';
-import { getDatabase, shuttingDown } from '@/db/client';
+import { getDatabase } from '@/db/client';
+import { shuttingDown } from '@/server/lifecycle.mjs';
 import { captureStoreTarget, storageAnswers } from '@/db/object-store';
 
 export const dynamic = 'force-dynamic';

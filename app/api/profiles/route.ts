@@ -3,7 +3,7 @@ import { recordAudit } from '@/db/queries/audit';
 import { createProfile, listProfiles } from '@/db/queries/profiles';
 import { engineSpec } from '@/domain/engine';
 import { withShop } from '@/server/with-shop';
-import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
+import { ENGINE_PROFILES, profileEngine } from '@/signal';
 import * as api from '@/server/api/routes/catalog';
 
 export const GET = withShop(api.listProfiles, async ({ shop }) => ({

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { Notice } from '@/components/ui/field';
 import { pageMember } from '@/server/page-context';
-import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
+import { ENGINE_PROFILES, profileEngine } from '@/signal';
 import { NewJobForm } from './_components/new-job-form';
 
 export const metadata: Metadata = { title: 'New job' };

@@ -9,7 +9,7 @@ import { notFound } from '@/server/http';
 import { analyzeStored } from '@/server/engine/pool';
 import { withShop } from '@/server/with-shop';
 import { isCaptureError } from '@/signal';
-import { measuredNothing } from '@/signal/steps/screen';
+import { measuredNothing } from '@/signal';
 import * as api from '@/server/api/routes/captures';
 
 export const GET = withShop(api.listAnalyses, async ({ input, shop }) => {

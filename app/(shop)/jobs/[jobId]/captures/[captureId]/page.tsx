@@ -13,7 +13,7 @@ import { cautionsReadAt } from '@/db/queries/audit';
 import { listProfiles } from '@/db/queries/profiles';
 import { type AnalysisSettingsValues, analysisSettingsSchema, settingsForEngine } from '@/domain/analysis-settings';
 import { pageMember } from '@/server/page-context';
-import { ENGINE_PROFILES, profileEngine } from '@/signal/engine/profiles';
+import { ENGINE_PROFILES, profileEngine } from '@/signal';
 import { vehicleTitle } from '@/domain/vehicle';
 
 export const metadata: Metadata = { title: 'Analysis' };

@@ -8,7 +8,8 @@
 // PORT (default 3000) and HOST (default 127.0.0.1) say where it listens.
 import { randomUUID } from 'node:crypto';
 import { createServer } from 'node:http';
-import { CLIENT_HEADER, clientAddress, trustFrom } from '../server/client-address.mjs';
+import { CLIENT_HEADER, clientAddress, trustFrom } from './client-address.mjs';
+import { beginStopping, closeDatabase, cutOffWork, shuttingDown } from './lifecycle.mjs';
 
 export const STOP_AFTER_MS = 10_000;
 const CUTOFF_MS = 2_000;
@@ -17,9 +18,6 @@ const port = Number(process.env.PORT || 3000);
 const hostname = process.env.HOST || '127.0.0.1';
 const trust = trustFrom(process.env.CRANKPRINT_TRUSTED_PROXIES);
 
-// Shared with the app's modules in this process (db/client.ts reads it): stopping, and the cut-off for
-// requests still running.
-const life = (globalThis.__crankprintLife ??= { stopping: false, cutOff: false });
 process.env.CRANKPRINT_SERVED = '1';
 
 process.env.NODE_ENV ??= dev ? 'development' : 'production';
@@ -40,7 +38,7 @@ let allDone = null;
 const server = createServer((req, res) => {
   const id = randomUUID();
   res.setHeader('X-Request-Id', id);
-  if (life.stopping) {
+  if (shuttingDown()) {
     restarting(res, 'The server is restarting; try again in a few seconds.', { 'retry-after': '5' });
     return;
   }
@@ -72,8 +70,8 @@ const CLOSE_MS = 1_500;
 const sleep = (ms) => new Promise((r) => setTimeout(r, Math.max(0, ms)));
 
 async function stop(signal) {
-  if (life.stopping) return;
-  life.stopping = true;
+  if (shuttingDown()) return;
+  beginStopping();
   const code = signal === 'SIGINT' ? 130 : 143;
   // Whatever happens below, the process is gone within STOP_AFTER_MS.
   const deadline = Date.now() + STOP_AFTER_MS - 250;
@@ -82,7 +80,7 @@ async function stop(signal) {
   server.closeIdleConnections();
   await settled(STOP_AFTER_MS - CUTOFF_MS - CLOSE_MS);
   // Still running: uploads stop reading and answer 503.
-  life.cutOff = true;
+  cutOffWork();
   await settled(CUTOFF_MS / 2);
   // Still running after that (a store, an analysis, a call to object storage that hangs): the client hears a 503
   // before the database closes, never a reset.
@@ -93,7 +91,7 @@ async function stop(signal) {
   // Let the 503s leave before the connections are cut.
   await sleep(100);
   server.closeAllConnections();
-  await Promise.race([life.closeDatabase?.().catch(() => {}), sleep(deadline - Date.now() - 400)]);
+  await Promise.race([closeDatabase().catch(() => {}), sleep(deadline - Date.now() - 400)]);
   await Promise.race([app.close().catch(() => {}), sleep(Math.min(300, deadline - Date.now()))]);
   process.exit(code);
 }

@@ -1,0 +1,1 @@
+export function processShared<T>(key: string, create: () => T): T;
