@@ -42,9 +42,10 @@ export default tseslint.config(
     rules: { 'no-restricted-imports': ['error', { patterns: [{ group: ['@/server/*', '@/app/*', '@/components/*', '@/scripts/*', '**/scripts/*', '@/signal/*', '**/signal/*', '!@/signal/sim', '!**/signal/sim', '@/signal/sim/*', '**/signal/sim/*'], message: 'db/ sits below the server and the app.' }] }] },
   },
   {
+    // The engine is the lowest layer: pure TypeScript on typed arrays, nothing of Node, React, or any layer above.
     files: ['signal/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: ['node:*', 'fs', 'path', 'react', 'next/*'] }],
+      'no-restricted-imports': ['error', { patterns: ['node:*', 'fs', 'path', 'react', 'next/*', '@/*', '**/domain/*', '**/db/*', '**/server/*', '**/app/*', '**/components/*', '**/scripts/*'] }],
     },
   },
 );

@@ -73,7 +73,13 @@ export async function receiveCapture(body: ReadableStream<Uint8Array>, length: n
   let pendingBytes = 0;
   const flush = () => {
     if (pendingBytes === 0) return;
-    const piece = Buffer.concat(pending, pendingBytes);
+    // A piece that owns its memory (never a slice of Node's shared pool), so it can move to the engine's thread.
+    const piece = new Uint8Array(pendingBytes);
+    let at = 0;
+    for (const part of pending) {
+      piece.set(part, at);
+      at += part.length;
+    }
     if (pieces.length === 0) {
       const kind = binaryKind(piece);
       if (kind) throw notText(kind);

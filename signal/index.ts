@@ -21,9 +21,9 @@ export type * from './types';
 export type { StartingCheck, StartingStatus, StartingSystem } from './starting/check';
 export { readingText } from './starting/check';
 export { DEFAULT_STARTING_LIMITS, LIMIT_SOURCES, type StartingLimits } from './starting/limits';
-export type { QualityWarning, WarningCode } from './steps/warnings';
-export { measuredNothing, refusalFor, SURE_MAPPING } from './steps/screen';
-export { NUMBERING_ASSUMED } from './steps/pattern';
+export type { QualityWarning, WarningCode } from './warnings';
+export { THIN_EVIDENCE } from './warnings';
+export { NUMBERING_ASSUMED } from './grade/pattern';
 
 /** Imports and analyses a file held in memory: what the server does when it saves an analysis. */
 export function analyzeBytes(

@@ -1,6 +1,6 @@
 /** The engine's inputs and outputs. */
 import type { EngineSetup } from './engine/firing';
-import type { QualityWarning } from './steps/warnings';
+import type { QualityWarning } from './warnings';
 import type { CylinderMarks } from './import/edge-log';
 import type { ToothWheel } from './teeth/wheel';
 import type { METHOD_CHOICES } from './format';

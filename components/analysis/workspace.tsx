@@ -12,7 +12,6 @@ import { Notice } from '@/components/ui/field';
 import { call, errorText } from '@/components/data/api';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import { type AnalysisResult, identityWords, METHOD_NAMES } from '@/signal';
-import { SURE_MAPPING } from '@/signal';
 import type { WorkerError } from '@/workers/analysis-api';
 import { CautionsGate } from './cautions-dialog';
 import { CylinderBars } from './cylinder-bars';
@@ -32,6 +31,7 @@ import { CHANNELS } from './trace-channels';
 import { useAnalysisWorker } from './use-analysis-worker';
 import { useUrlSettings } from './use-url-settings';
 import { saveAnalysis } from '@/server/api/routes/captures';
+import { SURE_MAPPING } from '@/domain/capture-policy';
 
 interface Props {
   captureId: string;

@@ -119,10 +119,13 @@ const busy = () => new HttpError(503, 'BUSY', 'The server is busy analysing othe
 /**
  * Imports and analyses an upload's pieces, refusing what holds nothing to analyse; returns the result with the
  * job's engine and the gzip pieces for chunk rows (none when `compress` is false: the file goes to object storage
- * as it is).
+ * as it is). With `compress`, the pieces are handed over to the thread: the caller must not read them again.
  */
 export function screenUpload(pieces: Uint8Array[], length: number, settings: AnalysisSettingsValues, compress: boolean, signal?: AbortSignal): Promise<{ chunks: Uint8Array[]; result: AnalysisResult; sha256: string }> {
-  return runTask({ kind: 'screen-upload', pieces, length, settings, compress }, signal);
+  // Stored as chunk rows, the file is needed only in its compressed form: its pieces move to the thread rather
+  // than being copied (each must own its memory). Bound for object storage, they stay here to be sent as they are.
+  const owned = compress && pieces.every((p) => p.byteOffset === 0 && p.byteLength === p.buffer.byteLength);
+  return runTask({ kind: 'screen-upload', pieces, length, settings, compress }, signal, owned ? pieces.map((p) => p.buffer) : []);
 }
 
 /** The engine on a stored capture with the given settings, and the report's trace excerpt from the same reading. */

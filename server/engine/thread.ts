@@ -10,11 +10,12 @@ import type { StoredPieces } from '@/db/capture-store';
 import { compressPiece, unpackPieces } from '@/db/chunks';
 import { type AnalysisSettingsValues, engineSettings, importOptions } from '@/domain/analysis-settings';
 import type { AnalysisResult, CaptureError } from '@/signal';
-import { analyzeBytes, analyzeCapture, CaptureImporter, importCapture, isCaptureError, refusalFor } from '@/signal';
+import { analyzeBytes, analyzeCapture, CaptureImporter, importCapture, isCaptureError } from '@/signal';
 import { type TraceExcerpt, traceExcerpt } from '@/domain/trace-excerpt';
 import { ENGINE_VERSION } from '@/signal';
 import type { ReportPdfData } from '../pdf/report-document';
 import { renderReportPdf } from '../pdf/render';
+import { refusalFor } from '@/domain/capture-policy';
 
 export type EngineTask =
   | { kind: 'screen-upload'; pieces: Uint8Array[]; length: number; settings: AnalysisSettingsValues; compress: boolean }

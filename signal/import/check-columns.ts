@@ -1,5 +1,5 @@
 /** Checks decoded columns: time going backwards, gaps, missing values and clipped (flat-topped) signals. */
-import { type QualityWarning, warning } from '../steps/warnings';
+import { type QualityWarning, warning } from '../warnings';
 
 /** Warnings about the time column (backwards, missing, gaps) from one pass; `firstLine` maps row 0 to its line. */
 export function checkTime(t: Float64Array, firstLine: number): QualityWarning[] {

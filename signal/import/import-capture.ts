@@ -3,7 +3,7 @@
  * the columns, and hand back decoded channels with the warnings found on the way.
  */
 import { CaptureError } from '../errors';
-import { dropWarnings, type QualityWarning, warning } from '../steps/warnings';
+import { dropWarnings, type QualityWarning, warning } from '../warnings';
 import type { CaptureColumns } from '../types';
 import { checkTime, checkValues, fillMissing } from './check-columns';
 import { parseNumberField, timeScale, timeUnitInName } from './header';

@@ -10,7 +10,7 @@ import type { EngineSetup } from '../engine/firing';
 import { firingIntervals } from '../engine/firing';
 import type { CrankingWindow } from '../steps/cranking-window';
 import { healthyReference, round1, type Summary, timeAtAngle } from '../steps/summarize';
-import { eventKey } from '../steps/torque-fit';
+import { eventKey } from '../fit/torque-fit';
 import type { CaptureColumns, CylinderResult, EventMark } from '../types';
 import { type MethodOutcome, runCurrentMethod } from './current';
 

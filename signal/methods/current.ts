@@ -10,15 +10,15 @@ import { blockMean, movingAverage } from '../dsp/smooth';
 import { median, quantile, quantileProbe } from '../dsp/stats';
 import { windowFromCurrent, type CrankingWindow } from '../steps/cranking-window';
 import { type CrankMotion, motionFromCurrent } from '../steps/crank-motion';
-import { findPeaks } from '../steps/find-peaks';
+import { findPeaks } from '../dsp/find-peaks';
 import { symmetryStep } from '../steps/identity';
-import { runFit } from '../steps/run-fit';
+import { runFit } from '../fit/run-fit';
 import { eventCountWarning } from '../steps/event-count';
 import { findSyncPulses, SYNC_PULSE_MISSING } from '../steps/sync-pulses';
-import type { TorqueFit } from '../steps/torque-fit';
+import type { TorqueFit } from '../fit/torque-fit';
 import type { Summary } from '../steps/summarize';
 import type { IdentitySource, WheelInfo } from '../types';
-import { type QualityWarning, warning } from '../steps/warnings';
+import { type QualityWarning, warning } from '../warnings';
 
 export interface MethodRun {
   motion: CrankMotion;

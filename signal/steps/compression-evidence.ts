@@ -4,9 +4,9 @@
  * compression and 1.01–1.03 with the plugs out (the recordings in captures-real/). An event whose speed after TDC runs far above the others' is combustion.
  */
 import { median } from '../dsp/stats';
-import { type QualityWarning, warning } from './warnings';
+import { type QualityWarning, warning } from '../warnings';
 import type { CrankMotion } from './crank-motion';
-import { eventKey, type TorqueFit } from './torque-fit';
+import { eventKey, type TorqueFit } from '../fit/torque-fit';
 
 /**
  * Below this median max/min speed within an event, no compression signature is seen. Measured on the six

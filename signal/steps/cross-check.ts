@@ -5,7 +5,7 @@
  * leading method's interval reaches halfway to the other figure.
  */
 import type { AnalysisResult, CylinderResult, EventMark, MethodResult } from '../types';
-import { widenToward } from './interval';
+import { widenToward } from '../grade/interval';
 
 /** Figures this close agree whatever their intervals (points). */
 const MAX_DIFFERENCE = 8;

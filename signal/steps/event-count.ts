@@ -11,7 +11,7 @@
  * of the strongest other count's (288 captures); a wrong count's was below 0.5 in 1206 of 1344.
  */
 import { orderAmplitude } from '../dsp/event-rate';
-import { type QualityWarning, warning } from './warnings';
+import { type QualityWarning, warning } from '../warnings';
 
 const GRID_DEG = 4;
 /** Cylinder counts the signal is compared with. */

@@ -2,7 +2,7 @@
  * Cylinder identity without sync: which rotations of the firing order the crank cannot tell apart, and the
  * relabelling that makes the first complete event cylinder 1 (then stepped by the user's rotation).
  */
-import type { FitEvent } from './torque-fit';
+import type { FitEvent } from '../fit/torque-fit';
 
 /**
  * Smallest number of firing positions k > 0 whose shift maps the TDC pattern onto itself (1 for even fire,

@@ -5,7 +5,7 @@
 import { median, stdDev } from '../dsp/stats';
 import type { CylinderResult, CylinderStatus, EventMark } from '../types';
 import type { CrankMotion } from './crank-motion';
-import { eventKey, type FitEvent, type TorqueFit } from './torque-fit';
+import { eventKey, type FitEvent, type TorqueFit } from '../fit/torque-fit';
 
 export interface Summary {
   cylinders: CylinderResult[];

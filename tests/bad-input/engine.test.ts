@@ -7,9 +7,10 @@ import { spawnSync } from 'node:child_process';
 import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyzeBytes, refusalFor, SURE_MAPPING } from '@/signal';
+import { analyzeBytes } from '@/signal';
 import { CaptureError } from '@/signal/errors';
 import { badCorpus } from './corpus';
+import { SURE_MAPPING, refusalFor } from '@/domain/capture-policy';
 
 const engine = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
 const corpus = badCorpus();

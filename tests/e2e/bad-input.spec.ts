@@ -9,9 +9,10 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { type APIRequestContext, expect, test } from '@playwright/test';
-import { analyzeBytes, isCaptureError, refusalFor } from '../../signal';
+import { analyzeBytes, isCaptureError } from '../../signal';
 import { badCorpus } from '../bad-input/corpus';
 import { BASE_URL, DEMO, pastCautions, signIn, uploadOnJobPage } from './helpers';
+import { refusalFor } from '@/domain/capture-policy';
 
 const engine = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
 const corpus = badCorpus();

@@ -8,12 +8,12 @@ import { readFileSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { unpackPieces } from '@/db/chunks';
 import { engineSettings, settingsForEngine } from '@/domain/analysis-settings';
-import { analyzeBytes, isCaptureError, refusalFor } from '@/signal';
+import { analyzeBytes, isCaptureError } from '@/signal';
 import { analyzeStored, closeEnginePool, MAX_QUEUE, renderPdf, screenUpload, storedTraceExcerpt, THREADS } from '@/server/engine/pool';
 import { sampleReportData } from '../report/sample-report';
 import { HttpError } from '@/server/http';
 import { traceExcerpt } from '@/domain/trace-excerpt';
-import { measuredNothing } from '@/signal/steps/screen';
+import { measuredNothing, refusalFor } from '@/domain/capture-policy';
 
 const SAMPLE = readFileSync('samples/i4-burnt-valve-current-sync.csv');
 const I4 = settingsForEngine({ cylinders: 4, layout: 'inline', firingOrder: [1, 3, 4, 2] });
@@ -44,8 +44,17 @@ describe('engine thread pool', () => {
     expect(await analyzeStored({ pieces: pieces(SAMPLE), size: SAMPLE.length, gzip: false }, I4)).toEqual(there);
   });
 
-  it('hands back no gzip pieces when the file goes to object storage as it is', async () => {
-    expect((await screenUpload(pieces(SAMPLE), SAMPLE.length, I4, false)).chunks).toEqual([]);
+  it('hands back no gzip pieces when the file goes to object storage as it is, and leaves the pieces to send', async () => {
+    const kept = pieces(SAMPLE);
+    expect((await screenUpload(kept, SAMPLE.length, I4, false)).chunks).toEqual([]);
+    expect(sha(unpackPieces(kept, SAMPLE.length, false))).toBe(sha(SAMPLE));
+  });
+
+  it('moves the pieces to the thread when they are stored compressed: no copy of the file stays behind', async () => {
+    const moved = pieces(SAMPLE);
+    const { chunks } = await screenUpload(moved, SAMPLE.length, I4, true);
+    expect(moved.every((p) => p.byteLength === 0)).toBe(true);
+    expect(sha(unpackPieces(chunks, SAMPLE.length))).toBe(sha(SAMPLE));
   });
 
   it('refuses a file with nothing to analyse with the engine’s own error, as it would on this thread', async () => {

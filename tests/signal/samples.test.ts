@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyzeBytes } from '@/signal';
 import { CaptureError } from '@/signal/errors';
-import { NUMBERING_ASSUMED } from '@/signal/steps/pattern';
+import { NUMBERING_ASSUMED } from '@/signal/grade/pattern';
 import { parseWheel } from '@/signal/teeth/wheel';
 import type { EngineSetup } from '@/signal/engine/firing';
 

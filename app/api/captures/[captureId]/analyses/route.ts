@@ -9,8 +9,8 @@ import { notFound } from '@/server/http';
 import { analyzeStored } from '@/server/engine/pool';
 import { withShop } from '@/server/with-shop';
 import { isCaptureError } from '@/signal';
-import { measuredNothing } from '@/signal';
 import * as api from '@/server/api/routes/captures';
+import { measuredNothing } from '@/domain/capture-policy';
 
 export const GET = withShop(api.listAnalyses, async ({ input, shop }) => {
   if (!(await getCapture(shop.id, input.captureId))) throw notFound('That capture');

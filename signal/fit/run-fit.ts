@@ -4,8 +4,8 @@
  * user's rotation steps the assignment along the firing order.
  */
 import { type EngineSetup, firingIntervals, tdcPhasesDeg } from '../engine/firing';
-import type { CrankMotion } from './crank-motion';
-import { assumedRelabel, degreesOfPositions, symmetryStep } from './identity';
+import type { CrankMotion } from '../steps/crank-motion';
+import { assumedRelabel, degreesOfPositions, symmetryStep } from '../steps/identity';
 import { type FitEvent, fitTorque, type TorqueFit } from './torque-fit';
 
 export function runFit(

@@ -5,7 +5,7 @@
  */
 import type { EngineSetup } from '../engine/firing';
 import type { CylinderResult, CylinderStatus, Method, QualityGrade, WheelInfo } from '../types';
-import { dropWarnings, type QualityWarning, THIN_EVIDENCE, warning } from './warnings';
+import { dropWarnings, type QualityWarning, THIN_EVIDENCE, warning } from '../warnings';
 
 export interface Limits {
   lowLimitPercent: number;

@@ -6,7 +6,7 @@
  */
 import { GENERIC_GAS, LATE_LEAK_FAMILY_PER_S, LEAK_FAMILY_PER_S, ORIFICE_LEAK_FAMILY_PER_S, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
 import { NormalEquations } from '../dsp/solve';
-import { type CrankMotion, meanRpm } from './crank-motion';
+import { type CrankMotion, meanRpm } from '../steps/crank-motion';
 
 export interface FitEvent {
   /** Cylinder number, 1-based. */
@@ -174,7 +174,7 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   if (o.refineLeaks === false) {
     // The quick fit (comparing angle scales): the coarse phase on every row, nothing finer.
     const quick = solveAt(m, o, centre, false, shapes());
-    return quick ? summarise(m, o, family, choice, centre, quick, null) : null;
+    return quick ? fitResult(m, o, family, choice, centre, quick, null) : null;
   }
   // 1° steps on every second row, then quarter degrees on all rows.
   bestRss = solveAt(m, o, centre, false, shapes(), 2)?.rss ?? Infinity;
@@ -210,11 +210,11 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   const global = solveAt(m, o, bestPhase, false, final);
   const single = solveAt(m, o, bestPhase, true, final);
   if (!global || !single) return null;
-  return summarise(m, o, family, choice, bestPhase, global, single);
+  return fitResult(m, o, family, choice, bestPhase, global, single);
 }
 
 /** The fit's figures from the global solve (per cylinder) and, when given, the per-event solve. */
-function summarise(m: CrankMotion, o: FitOptions, family: LeakyShape[], choice: Int32Array, bestPhase: number, global: Solved, single: Solved | null): TorqueFit {
+function fitResult(m: CrankMotion, o: FitOptions, family: LeakyShape[], choice: Int32Array, bestPhase: number, global: Solved, single: Solved | null): TorqueFit {
   const n = o.firingOrder.length;
   const perCylinder = new Float64Array(n).fill(NaN);
   const pressure = new Float64Array(n).fill(NaN);

@@ -1,13 +1,11 @@
 /**
- * The check before a capture is stored: when the analysis, run with the vehicle's engine, finds no compression
+ * The capture's storage policy (the server's upload and Save, the workspace's column question): the check before a
+ * capture is stored: when the analysis, run with the vehicle's engine, finds no compression
  * event at all and the importer was sure which column is which, there is nothing a technician can do with the
  * file but record again, so it is refused with the analysis's own sentence. An unsure mapping is let through:
  * the columns can then be named by hand in the workspace.
  */
-import { CaptureError } from '../errors';
-import type { ImportedCapture } from '../import/import-capture';
-import type { AnalysisResult } from '../types';
-import { THIN_EVIDENCE } from './warnings';
+import { type AnalysisResult, CaptureError, type ImportedCapture, THIN_EVIDENCE } from '@/signal';
 
 /** Below this mapping confidence the workspace asks which column is which. */
 export const SURE_MAPPING = 0.7;
