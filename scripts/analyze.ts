@@ -14,6 +14,8 @@ import {
   intervalText,
   LIMITS,
   METHOD_CHOICES,
+  STATUS_WORDS,
+  VERDICT_WORDS,
   percentText,
 } from '../signal';
 
@@ -156,9 +158,10 @@ function main() {
     }
     const lines = [
       `Method ${result.method}, cranking ${result.crankingRpm} rpm, cylinder identity ${result.identity}, verdict ${result.verdict}`,
+      `${VERDICT_WORDS[result.verdict]}.`,
       ...(result.wheel ? [`Wheel: ${result.wheel.description} (${result.wheel.notation}, ${result.wheel.learned ? 'learned from the capture' : 'as set'})`] : []),
       ...(result.identityNote ? [result.identityNote] : []),
-      ...result.cylinders.map((c) => `  cylinder ${String(c.cylinder).padStart(2)}  ${percentText(c.relativePercent).padStart(5)} %  (90 %: ${intervalText(c.interval)})  ${c.status.padEnd(9)} ${c.events} events`),
+      ...result.cylinders.map((c) => `  cylinder ${String(c.cylinder).padStart(2)}  ${percentText(c.relativePercent).padStart(5)} %  (90 %: ${intervalText(c.interval)})  ${STATUS_WORDS[c.status].padEnd(9)} ${c.events} events`),
       `Capture quality ${result.quality.grade}${result.quality.limitedBy !== 'none' ? `, limited by ${result.quality.limitedBy}` : ''}: ${result.quality.note}`,
       ...(result.crossCheck ? [`Cross-check (${result.crossCheck.method}): ${result.crossCheck.cylinders.map((c) => c.relativePercent ?? '—').join(' ')} — ${result.crossCheck.agree ? 'agrees' : 'disagrees'}`] : []),
       `Spread ${result.spreadPercent} points. ${result.pattern.hint}`,

@@ -30,6 +30,9 @@ export const VERDICT_WORDS = {
   uncertain: 'Not enough good evidence to rank the cylinders',
 } as const;
 
+/** A cylinder's status as printed beside its figure: the two a reader must not miss in capitals. */
+export const STATUS_WORDS = { ok: 'ok', low: 'LOW', high: 'HIGH', uncertain: 'uncertain' } as const;
+
 /** What the raw figure of each unit measures, as a column heading. */
 export const RAW_LABELS = { A: 'Current rise', V: 'Voltage swing', rpm: 'Speed dip', ms: 'Event time' } as const;
 

@@ -34,7 +34,7 @@ export function analyzeBytes(
   const capture = importCapture(bytes, options);
   return { capture, result: analyzeCapture(capture.columns, settings, capture.warnings) };
 }
-export { identityWords, intervalText, METHOD_CHOICES, METHOD_NAMES, methodAdjective, methodLabel, percentText, RAW_LABELS, VERDICT_WORDS } from './format';
+export { identityWords, intervalText, METHOD_CHOICES, METHOD_NAMES, methodAdjective, methodLabel, percentText, RAW_LABELS, STATUS_WORDS, VERDICT_WORDS } from './format';
 export { compareResults } from './steps/compare';
 export { toothPeriods } from './teeth/periods';
 export type { CylinderChange } from './steps/compare';

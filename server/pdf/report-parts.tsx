@@ -7,6 +7,7 @@ import { type AnalysisResult, intervalText, percentText, RAW_LABELS } from '@/si
 import type { TraceExcerpt } from '@/domain/trace-excerpt';
 import { MONO_FONTS, TEXT_FONTS } from './fonts';
 import { LIGHT_HEX } from '@/tailwind.config';
+import { STATUS_WORDS } from '@/signal';
 
 /** The light theme's colours (tailwind.config.ts), as the PDF takes them. */
 export const C = LIGHT_HEX;
@@ -33,7 +34,6 @@ export const s = StyleSheet.create({
 });
 
 export const STATUS_COLOR = { ok: C.ok, low: C.low, high: C.high, uncertain: C.uncertain } as const;
-const STATUS_WORD = { ok: 'ok', low: 'LOW', high: 'HIGH', uncertain: 'uncertain' } as const;
 
 /** Bars in percent with the low-limit line; low is hatched, uncertain dotted, ok solid; a word under each. */
 export function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; width?: number; height?: number }) {
@@ -90,7 +90,7 @@ export function ChartSvg({ r, width = 250, height = 150 }: { r: AnalysisResult; 
               {`Cyl ${c.cylinder}`}
             </Text>
             <Text x={x + bw / 2} y={height - padB + 21} style={{ fontSize: 7, fontWeight: 700 }} fill={color} textAnchor="middle">
-              {STATUS_WORD[c.status]}
+              {STATUS_WORDS[c.status]}
             </Text>
           </G>
         );
