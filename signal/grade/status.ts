@@ -93,6 +93,9 @@ export function holdHigh(cylinders: CylinderResult[], warnings: QualityWarning[]
   dropWarnings(warnings, (w) => w.code === 'HIGH_HELD');
   const held = cylinders.filter((c) => c.status === 'high');
   for (const c of held) c.status = 'uncertain';
+  // For the same reason a slow event's figure above 100 % may be a healthy cylinder's: its interval reaches down to
+  // 100 % (measured on the ensemble: healthy cylinders beside a leaking pair read 111–134 % with intervals above 100).
+  for (const c of cylinders) if (c.interval && c.interval[0] > 100) c.interval = [100, c.interval[1]];
   if (held.length) {
     const list = held.map((c) => c.cylinder).join(', ');
     warnings.push(warning('HIGH_HELD', `Cylinder${held.length > 1 ? 's' : ''} ${list} took longer than the others; timing events alone cannot tell high compression from a slow entry after a weak cylinder. Confirm with a gauge test.`));

@@ -29,8 +29,8 @@ const CEILING_MAE: Partial<Record<SweepMethod, number>> = {
   vr: 1.8,
   'teeth, event duration': 7,
 };
-/** Measured floors of coverage where 88 % is not met yet. */
-const FLOOR_COVERAGE: Partial<Record<SweepMethod, number>> = { 'teeth, event duration': 0.84 };
+/** Measured floors of coverage where 88 % is not met yet (none: every method is held to the target). */
+const FLOOR_COVERAGE: Partial<Record<SweepMethod, number>> = {};
 
 function report(label: string, tally: SweepTally): void {
   const targets = ENSEMBLE_METHODS.map((m) => {
