@@ -38,6 +38,14 @@ export default tseslint.config(
     rules: { 'no-restricted-imports': ['error', { patterns: [{ group: ['@/db/*', '@/server/*', '@/app/*', '@/components/*', '@/scripts/*', '@/signal/*', '!@/signal/sim', '@/signal/sim/*'], message: 'domain/ sits above the engine and below everything else.' }] }] },
   },
   {
+    files: ['server/**'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [{ group: ['@/app/*', '@/components/*', '@/scripts/*', '**/scripts/*', '@/signal/*', '**/signal/*', '!@/signal/sim', '!**/signal/sim', '@/signal/sim/*', '**/signal/sim/*'], message: 'server/ sits below the app and its components, and reaches the engine through @/signal.' }] }] },
+  },
+  {
+    files: ['components/**', 'workers/**'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [{ group: ['@/app/*', '@/scripts/*', '**/scripts/*', '@/signal/*', '**/signal/*', '!@/signal/sim', '!**/signal/sim', '@/signal/sim/*', '**/signal/sim/*'], message: 'Shared components and workers sit below the app, and reach the engine through @/signal.' }] }] },
+  },
+  {
     files: ['db/**'],
     rules: { 'no-restricted-imports': ['error', { patterns: [{ group: ['@/server/*', '@/app/*', '@/components/*', '@/scripts/*', '**/scripts/*', '@/signal/*', '**/signal/*', '!@/signal/sim', '!**/signal/sim', '@/signal/sim/*', '**/signal/sim/*'], message: 'db/ sits below the server and the app.' }] }] },
   },
