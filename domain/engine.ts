@@ -21,8 +21,10 @@ function checkOrder(e: { cylinders: number; firingOrder: number[]; intervalsDeg?
   if (intervals) ctx.addIssue({ code: 'custom', path: ['intervalsDeg'], message: intervals });
 }
 
-/** The engine as stored with a vehicle or profile, and as the routes answer it. */
-export const engineRecordSchema = z.object({ cylinders, layout, numbering, firingOrder: z.array(z.number().int()), intervalsDeg, displacementL }).superRefine(checkOrder);
+/** The engine as stored with a vehicle or profile, and as the routes answer it: a record stored without a numbering is along the crank. */
+export const engineRecordSchema = z
+  .object({ cylinders, layout, numbering: z.enum(NUMBERINGS).optional(), firingOrder: z.array(z.number().int()), intervalsDeg, displacementL })
+  .superRefine(checkOrder);
 
 export type EngineSpec = z.input<typeof engineRecordSchema>;
 
