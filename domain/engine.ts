@@ -11,7 +11,8 @@ const cylinders = z.number().int('The cylinder count is a whole number.').min(1,
 const layout = z.enum(BANK_LAYOUTS, { message: 'Choose inline, V or flat.' });
 const numbering = z.enum(NUMBERINGS).default('along-crank');
 const intervalsDeg = z.array(z.number().positive()).optional();
-const displacementL = z.number().min(0.05, 'Displacement is in litres, for example 2.0.').max(20, 'Displacement is in litres, for example 2.0.').optional();
+const litres = z.number().min(0.05, 'Displacement is in litres, for example 2.0.').max(20, 'Displacement is in litres, for example 2.0.');
+const displacementL = litres.optional();
 
 /** The firing order and intervals against the cylinder count: one sentence each, on their own fields. */
 function checkOrder(e: { cylinders: number; firingOrder: number[]; intervalsDeg?: number[] }, ctx: z.RefinementCtx): void {
@@ -43,7 +44,7 @@ export const engineSchema = z
       z.array(z.number().int()),
     ]),
     intervalsDeg,
-    displacementL: z.coerce.number().pipe(z.number().min(0.05, 'Displacement is in litres, for example 2.0.').max(20, 'Displacement is in litres, for example 2.0.')).optional(),
+    displacementL: z.coerce.number().pipe(litres).optional(),
   })
   .superRefine(checkOrder);
 

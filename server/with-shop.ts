@@ -10,7 +10,7 @@ import { shuttingDown } from './lifecycle.mjs';
 import { StorageUnavailableError } from '@/db/object-store';
 import { members, organizations, shopSettings } from '@/db/schema';
 import { type ShopSettings, shopSettingsFrom } from '@/domain/shop-settings';
-import { type InputOf, inputSchema, type OutputOf, permissionOf, type RouteContract } from './api/contract';
+import { type InputOf, inputSchema, permissionOf, type RouteContract } from './api/contract';
 import { getAuth } from './auth';
 import { errorResponse, fieldErrors, HttpError } from './http';
 import { rememberMembership } from './membership-cache';
@@ -38,8 +38,8 @@ type Params = Promise<Record<string, string>>;
  * A handler answers what its contract's output describes once sent as JSON (dates become strings, so the type is
  * not checked here: the role matrix validates every real answer against the contract), or a Response of its own.
  */
-type Answer<C extends RouteContract> = Promise<unknown> & { readonly __answers?: OutputOf<C> };
-type Handler<C extends RouteContract> = (ctx: ShopContext<InputOf<C>> & { params: Record<string, string> }) => Answer<C>;
+type Answer = Promise<unknown>;
+type Handler<C extends RouteContract> = (ctx: ShopContext<InputOf<C>> & { params: Record<string, string> }) => Answer;
 /** A route handler as Next.js calls it, carrying the contract it serves (the route test reads it). */
 export type RouteHandler = ((req: NextRequest, context: { params: Params }) => Promise<Response>) & { contract: RouteContract };
 
@@ -243,7 +243,7 @@ export function withShop<C extends RouteContract>(contract: C, handler: Handler<
 }
 
 /** For routes that need a signed-in user but no shop yet (creating a shop). */
-export function withSession<C extends RouteContract>(contract: C, handler: (ctx: SessionContext & { input: InputOf<C>; req: NextRequest }) => Answer<C>): RouteHandler {
+export function withSession<C extends RouteContract>(contract: C, handler: (ctx: SessionContext & { input: InputOf<C>; req: NextRequest }) => Answer): RouteHandler {
   return serving(contract, (req, context) =>
     respond(req, async () => {
       const session = await requireSession(req);
@@ -257,7 +257,7 @@ export function withSession<C extends RouteContract>(contract: C, handler: (ctx:
  * For the customer's share-link routes, which have no session: a rate limit per client, then zod input.
  * The token in the input is the only scope; handlers answer 404 for any token that does not open a report.
  */
-export function withPublic<C extends RouteContract>(contract: C, handler: (ctx: { input: InputOf<C>; req: NextRequest }) => Answer<C>): RouteHandler {
+export function withPublic<C extends RouteContract>(contract: C, handler: (ctx: { input: InputOf<C>; req: NextRequest }) => Answer): RouteHandler {
   return serving(contract, (req, context) =>
     respond(req, async () => {
       await spend('share', req.headers);

@@ -1,14 +1,13 @@
 /** Where the eye lands after the chart: the verdict, the pattern hint with next tests, and the warnings. */
 import { type AnalysisResult, METHOD_NAMES, VERDICT_WORDS } from '@/signal';
-import { STATUS_TEXT } from './status-style';
+import { STATUS_SIGN, STATUS_TEXT } from './status-style';
 
 /** `onTryCylinders` re-reads the capture as an engine of that many cylinders (offered when the capture contradicts the setup). */
 export function Findings({ result, onTryCylinders }: { result: AnalysisResult; onTryCylinders?: (cylinders: number) => void }) {
   return (
     <div className="flex flex-col gap-3">
       <p className={`text-lg font-bold ${STATUS_TEXT[result.verdict]}`} data-testid="verdict">
-        {{ low: '▼ ', high: '▲ ', uncertain: '? ', ok: '✓ ' }[result.verdict]}
-        {VERDICT_WORDS[result.verdict]}.
+        {STATUS_SIGN[result.verdict]} {VERDICT_WORDS[result.verdict]}.
       </p>
       {result.quality && (
         <p data-testid="quality">
