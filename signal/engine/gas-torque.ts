@@ -62,8 +62,12 @@ export interface LeakyShape {
  * returns less than the compression took. A leak `near TDC` flows only from 40° before it (a path that opens
  * under pressure), so the compression stroke looks sealed and only the peak and the expansion show it. Also
  * gives the peak pressure relative to a sealed cylinder.
+ *
+ * A leak loses charge per second, not per degree. With `degPerS` (the crank's measured speed at each of the
+ * table's steps, deg/s) the time spent at each angle is the measured one: a crank that slows into TDC to a
+ * third of its mean speed loses three times as much there as a steady one would.
  */
-export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number, depth: LeakDepth = 'whole stroke'): LeakyShape {
+export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number, depth: LeakDepth = 'whole stroke', degPerS?: Float64Array): LeakyShape {
   const from = depth === 'near TDC' ? LATE_LEAK_FROM_DEG : -Infinity;
   const size = 720 * TORQUE_TABLE_STEPS_PER_DEG;
   const table = new Float64Array(size);
@@ -84,7 +88,8 @@ export function leakyTorqueShape(model: GasModel, leakPerS: number, rpm: number,
     if (gauge > peak) peak = gauge;
     if (sealed > sealedPeak) sealedPeak = sealed;
     table[i] = gauge * volumeRatioSlope(model.compressionRatio, model.rodRatio, psi * rad);
-    if (gauge > 0 && psi >= from) mass *= Math.exp(-leakPerS * (depth === 'early' ? Math.sqrt(gauge) : gauge) * dtPerStep);
+    const dt = degPerS && degPerS[i] > 0 ? 1 / TORQUE_TABLE_STEPS_PER_DEG / degPerS[i] : dtPerStep;
+    if (gauge > 0 && psi >= from) mass *= Math.exp(-leakPerS * (depth === 'early' ? Math.sqrt(gauge) : gauge) * dt);
   }
   return { leakPerS, table, peakRatio: sealedPeak > 0 ? peak / sealedPeak : 1 };
 }

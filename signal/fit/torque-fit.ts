@@ -4,7 +4,7 @@
  * the offset with the smallest residual wins. Modelling every cylinder at once keeps the neighbour's gas-spring
  * return out of each figure.
  */
-import { GENERIC_GAS, LATE_LEAK_FAMILY_PER_S, LEAK_FAMILY_PER_S, ORIFICE_LEAK_FAMILY_PER_S, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
+import { GENERIC_GAS, TORQUE_TABLE_STEPS_PER_DEG, LATE_LEAK_FAMILY_PER_S, LEAK_FAMILY_PER_S, ORIFICE_LEAK_FAMILY_PER_S, leakyTorqueShape, type GasModel, type LeakyShape, torqueAt } from '../engine/gas-torque';
 import { NormalEquations } from '../dsp/solve';
 import { type CrankMotion, meanRpm } from '../steps/crank-motion';
 
@@ -58,14 +58,64 @@ function familyFor(gas: GasModel, rpm: number): LeakyShape[] {
   const key = `${JSON.stringify(gas)}@${r}`;
   let f = families.get(key);
   if (!f) {
-    f = [
-      ...LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r)),
-      ...LATE_LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r, 'near TDC')),
-      ...ORIFICE_LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, r, 'early')),
-    ];
+    f = familyOver(gas, r);
     families.set(key, f);
   }
   return f;
+}
+
+/** Every shape of the family: sealed and leaking through the stroke, late leaks and orifices (over a measured speed when given). */
+function familyOver(gas: GasModel, rpm: number, degPerS?: Float64Array): LeakyShape[] {
+  return [
+    ...LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, rpm, 'whole stroke', degPerS)),
+    ...LATE_LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, rpm, 'near TDC', degPerS)),
+    ...ORIFICE_LEAK_FAMILY_PER_S.map((l) => leakyTorqueShape(gas, l, rpm, 'early', degPerS)),
+  ];
+}
+
+/**
+ * Each cylinder's mean crank speed through its closed-valve window, deg/s at each table step: measured where a
+ * row falls, interpolated between, held at the ends. The crank slows into every TDC, and more so after a weak
+ * cylinder, so each cylinder's leak shapes are integrated over its own speed.
+ */
+export function speedProfiles(m: CrankMotion, o: FitOptions, phaseDeg: number): Float64Array[] {
+  const gas = o.gas ?? GENERIC_GAS;
+  const n = o.firingOrder.length;
+  const size = 720 * TORQUE_TABLE_STEPS_PER_DEG;
+  const sum = Array.from({ length: n }, () => new Float64Array(size));
+  const count = Array.from({ length: n }, () => new Uint32Array(size));
+  const rows = m.t.length;
+  const events = eventsFor(o, phaseDeg, m.thetaDeg[0], m.thetaDeg[rows - 1], gas);
+  const ivc = -180 + gas.ivcAbdcDeg;
+  const evo = 180 - gas.evoBbdcDeg;
+  let first = 0;
+  for (let r = 1; r + 1 < rows; r++) {
+    const th = m.thetaDeg[r];
+    const dt = m.t[r + 1] - m.t[r - 1];
+    if (!(dt > 0)) continue;
+    const degPerS = (m.thetaDeg[r + 1] - m.thetaDeg[r - 1]) / dt;
+    while (first < events.length && events[first].tdcDeg + evo < th) first++;
+    for (let e = first; e < events.length && events[e].tdcDeg + ivc <= th; e++) {
+      const psi = th - events[e].tdcDeg;
+      if (psi > evo) continue;
+      const i = Math.round((psi + 360) * TORQUE_TABLE_STEPS_PER_DEG);
+      sum[events[e].cylinder - 1][i] += degPerS;
+      count[events[e].cylinder - 1][i]++;
+    }
+  }
+  return sum.map((total, c) => {
+    const out = new Float64Array(size);
+    let prev = -1;
+    for (let i = 0; i < size; i++) {
+      if (count[c][i] === 0) continue;
+      out[i] = total[i] / count[c][i];
+      if (prev < 0) out.fill(out[i], 0, i);
+      else for (let j = prev + 1; j < i; j++) out[j] = out[prev] + ((out[i] - out[prev]) * (j - prev)) / (i - prev);
+      prev = i;
+    }
+    if (prev >= 0) out.fill(out[prev], prev + 1);
+    return out;
+  });
 }
 
 export function eventKey(e: FitEvent): string {
@@ -150,9 +200,12 @@ function solveAt(m: CrankMotion, o: FitOptions, phaseDeg: number, perEvent: bool
 export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   if (m.t.length < 50) return null;
   const n = o.firingOrder.length;
-  const family = familyFor(o.gas ?? GENERIC_GAS, meanRpm(m));
+  const rpm = meanRpm(m);
+  const steady = familyFor(o.gas ?? GENERIC_GAS, rpm);
+  /** Each cylinder's shapes: at a steady speed until the phase is known, then over the cylinder's own speed. */
+  let family: LeakyShape[][] = Array.from({ length: n }, () => steady);
   const choice = new Int32Array(n);
-  const shapes = () => Array.from(choice, (f) => family[f].table);
+  const shapes = () => Array.from(choice, (f, c) => family[c][f].table);
   const step = o.coarseStepDeg ?? 6;
   let bestPhase = NaN;
   let bestRss = Infinity;
@@ -183,6 +236,8 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   bestRss = solveAt(m, o, centre2, false, shapes())?.rss ?? Infinity;
   for (let p = centre2 - 0.75; p <= centre2 + 0.75; p += 0.25) if (p !== centre2) tryPhase(p);
 
+  family = speedProfiles(m, o, bestPhase).map((p) => familyOver(o.gas ?? GENERIC_GAS, rpm, p));
+  bestRss = solveAt(m, o, bestPhase, false, shapes())?.rss ?? Infinity;
   // Cylinders reading below 97 % of the median take, in turn, the leak shape with the smallest residual; two
   // passes settle neighbours. Sealed cylinders keep the sealed shape.
   const first = solveAt(m, o, bestPhase, false, shapes());
@@ -193,7 +248,7 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   for (let pass = 0; pass < (suspects.length > 1 ? 2 : 1); pass++) {
     for (const c of suspects) {
       let bestF = choice[c];
-      for (let f = 0; f < family.length; f++) {
+      for (let f = 0; f < family[c].length; f++) {
         if (f === bestF) continue;
         choice[c] = f;
         const s = solveAt(m, o, bestPhase, false, shapes());
@@ -214,7 +269,7 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
 }
 
 /** The fit's figures from the global solve (per cylinder) and, when given, the per-event solve. */
-function fitResult(m: CrankMotion, o: FitOptions, family: LeakyShape[], choice: Int32Array, bestPhase: number, global: Solved, single: Solved | null): TorqueFit {
+function fitResult(m: CrankMotion, o: FitOptions, family: LeakyShape[][], choice: Int32Array, bestPhase: number, global: Solved, single: Solved | null): TorqueFit {
   const n = o.firingOrder.length;
   const perCylinder = new Float64Array(n).fill(NaN);
   const pressure = new Float64Array(n).fill(NaN);
@@ -225,17 +280,17 @@ function fitResult(m: CrankMotion, o: FitOptions, family: LeakyShape[], choice: 
     if (global.columnOf[e] < 2 + n) seen[ev.cylinder - 1] = 1;
   }
   for (let c = 0; c < n; c++) {
-    leakPerS[c] = family[choice[c]].leakPerS;
+    leakPerS[c] = family[c][choice[c]].leakPerS;
     if (!seen[c]) continue;
     perCylinder[c] = global.coef[2 + c];
-    pressure[c] = perCylinder[c] * family[choice[c]].peakRatio;
+    pressure[c] = perCylinder[c] * family[c][choice[c]].peakRatio;
   }
   const events = (single ?? global).events;
   const perEvent = new Float64Array(events.length).fill(NaN);
   if (single) {
     for (let e = 0; e < single.events.length; e++) {
       const ev = single.events[e];
-      if (ev.complete) perEvent[e] = single.coef[single.columnOf[e]] * family[choice[ev.cylinder - 1]].peakRatio;
+      if (ev.complete) perEvent[e] = single.coef[single.columnOf[e]] * family[ev.cylinder - 1][choice[ev.cylinder - 1]].peakRatio;
     }
   }
 

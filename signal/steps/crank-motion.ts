@@ -23,7 +23,12 @@ export function meanRpm(m: Pick<CrankMotion, 't' | 'thetaDeg'>): number {
   return dt > 0 ? (m.thetaDeg[last] - m.thetaDeg[0]) / 6 / dt : 0;
 }
 
-/** Rows from tooth edges: speed over each tooth interval, acceleration by central difference. */
+/**
+ * Rows from tooth edges: speed over each tooth interval, and the acceleration from the work–energy theorem on the
+ * teeth's equal angles, dω/dt = d(ω²/2)/dθ, by central difference over the angle. Where the crank nearly stops
+ * at a TDC its speed changes by half within one tooth; a difference over time then smears the torque across the
+ * slow tooth, while one over angle keeps it where the torque model puts it (it is a function of angle).
+ */
 export function motionFromTeeth(times: Float64Array, angleDeg: Float64Array, fromS: number, toS: number): CrankMotion {
   const m = times.length - 1;
   const tm = new Float64Array(m);
@@ -43,7 +48,7 @@ export function motionFromTeeth(times: Float64Array, angleDeg: Float64Array, fro
     out.t[r] = tm[k];
     out.thetaDeg[r] = am[k];
     out.s[r] = w[k];
-    out.y[r] = (w[k + 1] - w[k - 1]) / (tm[k + 1] - tm[k - 1]);
+    out.y[r] = (w[k + 1] * w[k + 1] - w[k - 1] * w[k - 1]) / (((am[k + 1] - am[k - 1]) * TWO_PI) / 180);
   }
   return out;
 }

@@ -24,9 +24,7 @@ const TARGET_MAE: Partial<Record<SweepMethod, number>> = { teeth: 1.5, 'hall+syn
  * came in, the worst of the two families, with a little room): a change may only bring these down.
  */
 const CEILING_MAE: Partial<Record<SweepMethod, number>> = {
-  teeth: 1.8,
-  'hall+sync': 1.85,
-  vr: 1.8,
+  'hall+sync': 1.6,
   'teeth, event duration': 7,
 };
 /** Measured floors of coverage where 88 % is not met yet (none: every method is held to the target). */
