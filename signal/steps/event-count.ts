@@ -12,6 +12,7 @@
  */
 import { orderAmplitude } from '../dsp/event-rate';
 import { type QualityWarning, warning } from '../warnings';
+import { degreesOfPositions, symmetryStep } from './identity';
 
 const GRID_DEG = 4;
 /** Cylinder counts the signal is compared with. */
@@ -23,6 +24,8 @@ const COUNTS = [3, 4, 5, 6, 8];
  * cylinder count at all.
  */
 export const MIN_SPEED_ORDER_SHARE = 0.015;
+/** Below this share of the setup's own order, another order is absent (a trace that repeats purely at one rate). */
+const PURE_SHARE = 0.1;
 /** The right count's component is at least this fraction of the strongest other count's. */
 const MIN_RATIO = 0.5;
 
@@ -44,15 +47,33 @@ export function resampleByAngle(thetaDeg: Float64Array, signal: Float64Array): {
   return { x, samplesPerCycle: 720 / GRID_DEG };
 }
 
-/** A FIRING_ORDER_MISMATCH warning when another cylinder count explains `x` far better than `cylinders`. */
-export function eventCountWarning(x: Float64Array, samplesPerCycle: number, cylinders: number, where: string, minShare = 0): QualityWarning | null {
+/**
+ * How many times a cycle the firing intervals themselves repeat: the cylinder count on an even-firing engine, 3 on
+ * an odd-firing V6 (90°, 150°, 90°, … repeats every 240°).
+ */
+export function intervalRepeats(intervalsDeg: number[]): number {
+  return Math.round(720 / degreesOfPositions(intervalsDeg, symmetryStep(intervalsDeg)));
+}
+
+/**
+ * A FIRING_ORDER_MISMATCH warning when another cylinder count explains `x` far better than `cylinders`. An
+ * engine whose intervals repeat fewer times a cycle than it has cylinders (`intervalsDeg`: an odd-firing V6's
+ * 90°, 150°, … repeat three times) makes those lower orders itself, the more so with a weak cylinder, which also
+ * puts power at every other order. Such an order contradicts the setup only in a trace that repeats purely at it
+ * (every other order below a tenth of the setup's own): then the capture holds fewer cylinders, or half of them
+ * show no compression at all, and the two cannot be told apart.
+ */
+export function eventCountWarning(x: Float64Array, samplesPerCycle: number, cylinders: number, where: string, minShare = 0, intervalsDeg?: number[]): QualityWarning | null {
   if (x.length < 3 * samplesPerCycle || samplesPerCycle < 2 * 2 * Math.max(...COUNTS)) return null;
   const own = orderAmplitude(x, samplesPerCycle, cylinders);
+  const repeats = intervalsDeg ? intervalRepeats(intervalsDeg) : cylinders;
+  const natural = (c: number) => repeats < cylinders && c % repeats === 0;
+  const others = COUNTS.filter((c) => c !== cylinders).map((c) => ({ c, a: orderAmplitude(x, samplesPerCycle, c) }));
+  const pure = others.every(({ c, a }) => natural(c) || a < PURE_SHARE * own);
   let best = 0;
   let bestCount = cylinders;
-  for (const c of COUNTS) {
-    if (c === cylinders) continue;
-    const a = orderAmplitude(x, samplesPerCycle, c);
+  for (const { c, a } of others) {
+    if (natural(c) && !pure) continue;
     if (a > best) {
       best = a;
       bestCount = c;

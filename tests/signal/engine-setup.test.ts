@@ -10,6 +10,7 @@ import { analyzeCapture } from '@/signal/analyze';
 import type { EngineSetup } from '@/signal/engine/firing';
 import { simulateCranking, type SimChannel } from '@/signal/sim/simulate';
 import type { CaptureColumns } from '@/signal/types';
+import { drawEngine } from '@/signal/sim/ensemble';
 
 const I3: EngineSetup = { cylinders: 3, firingOrder: [1, 2, 3] };
 const I4: EngineSetup = { cylinders: 4, firingOrder: [1, 3, 4, 2] };
@@ -47,6 +48,9 @@ describe('a wrong cylinder count gives uncertain, never a confident finding', ()
     [V8, I6],
     [I5, I4],
     [I4, I3],
+    // A 3-cylinder engine set up as an odd-firing V6 (whose own intervals repeat three times a cycle): its trace
+    // repeats purely at three, which is a wrong count, not three dead cylinders.
+    [I3, V6odd],
   ];
   for (const [recorded, setUp] of wrong) {
     it(`recorded on ${recorded.cylinders} cylinders, set up as ${setUp.cylinders}`, () => {
@@ -55,6 +59,29 @@ describe('a wrong cylinder count gives uncertain, never a confident finding', ()
         expect(r.verdict, m).toBe('uncertain');
         expect(r.warnings.map((w) => w.code), m).toContain('FIRING_ORDER_MISMATCH');
         expect(countWarning(r)?.message, m).toMatch(new RegExp(`like ${recorded.cylinders} compression events per engine cycle, not ${setUp.cylinders}`));
+      }
+    });
+  }
+});
+
+/**
+ * An odd-firing V6 makes the third order itself (its 90°, 150° intervals repeat three times a cycle), and a nearly
+ * dead cylinder adds power at every order: the right count is not taken for a 3-cylinder engine, and the dead
+ * cylinder is read. The engine's physics are the ensemble's draws with a nearly dead cylinder (signal/sim/ensemble.ts).
+ */
+describe('an odd-firing V6 with a nearly dead cylinder is read, not taken for three cylinders', () => {
+  for (const seed of [15]) {
+    it(`ensemble draw ${seed}`, () => {
+      const draw = drawEngine(V6odd, seed, 'ensemble');
+      const dead = draw.leakPerS.findIndex((l) => l >= 20);
+      expect(dead, draw.label).toBeGreaterThanOrEqual(0);
+      for (const m of ['current+sync', 'hall+sync'] as const) {
+        const channels: SimChannel[] = m === 'current+sync' ? ['current', 'sync'] : ['hall', 'sync'];
+        const sim = simulateCranking({ ...draw.physics, engine: V6odd, leakPerS: draw.leakPerS, channels, seed, sampleRateHz: m === 'hall+sync' ? 50_000 : 10_000 });
+        const r = analyzeCapture({ time: sim.time, current: sim.current, sync: sim.sync, crank: sim.hall }, { engine: V6odd });
+        expect(countWarning(r), m).toBeUndefined();
+        expect(r.cylinders[dead].status, m).toBe('low');
+        expect(r.cylinders.every((c) => c.relativePercent !== null), m).toBe(true);
       }
     });
   }
