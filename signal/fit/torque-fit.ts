@@ -78,7 +78,7 @@ function familyOver(gas: GasModel, rpm: number, degPerS?: Float64Array): LeakySh
  * row falls, interpolated between, held at the ends. The crank slows into every TDC, and more so after a weak
  * cylinder, so each cylinder's leak shapes are integrated over its own speed.
  */
-export function speedProfiles(m: CrankMotion, o: FitOptions, phaseDeg: number): Float64Array[] {
+function speedProfiles(m: CrankMotion, o: FitOptions, phaseDeg: number): Float64Array[] {
   const gas = o.gas ?? GENERIC_GAS;
   const n = o.firingOrder.length;
   const size = 720 * TORQUE_TABLE_STEPS_PER_DEG;
@@ -201,7 +201,8 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   if (m.t.length < 50) return null;
   const n = o.firingOrder.length;
   const rpm = meanRpm(m);
-  const steady = familyFor(o.gas ?? GENERIC_GAS, rpm);
+  const gas = o.gas ?? GENERIC_GAS;
+  const steady = familyFor(gas, rpm);
   /** Each cylinder's shapes: at a steady speed until the phase is known, then over the cylinder's own speed. */
   let family: LeakyShape[][] = Array.from({ length: n }, () => steady);
   const choice = new Int32Array(n);
@@ -236,11 +237,11 @@ export function fitTorque(m: CrankMotion, o: FitOptions): TorqueFit | null {
   bestRss = solveAt(m, o, centre2, false, shapes())?.rss ?? Infinity;
   for (let p = centre2 - 0.75; p <= centre2 + 0.75; p += 0.25) if (p !== centre2) tryPhase(p);
 
-  family = speedProfiles(m, o, bestPhase).map((p) => familyOver(o.gas ?? GENERIC_GAS, rpm, p));
-  bestRss = solveAt(m, o, bestPhase, false, shapes())?.rss ?? Infinity;
+  family = speedProfiles(m, o, bestPhase).map((p) => familyOver(gas, rpm, p));
   // Cylinders reading below 97 % of the median take, in turn, the leak shape with the smallest residual; two
   // passes settle neighbours. Sealed cylinders keep the sealed shape.
   const first = solveAt(m, o, bestPhase, false, shapes());
+  bestRss = first?.rss ?? Infinity;
   const coef = first ? Array.from({ length: n }, (_, c) => first.coef[2 + c]) : [];
   const ref = [...coef].sort((a, b) => a - b)[n >> 1];
   const suspects = coef.map((k, c) => (k < 0.97 * ref ? c : -1)).filter((c) => c >= 0);

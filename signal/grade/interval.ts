@@ -11,7 +11,7 @@
  */
 import { seededRandom } from '../dsp/random';
 import { quantile } from '../dsp/stats';
-import { healthyReference } from '../steps/summarize';
+import { healthyReference, round1 } from '../steps/summarize';
 
 /** 95th percentile of Student's t by degrees of freedom 1…30 (two-sided 90 %); the normal's is 1.645. */
 const T95 = [6.314, 2.92, 2.353, 2.132, 2.015, 1.943, 1.895, 1.86, 1.833, 1.812, 1.796, 1.782, 1.771, 1.761, 1.753, 1.746, 1.74, 1.734, 1.729, 1.725, 1.721, 1.717, 1.714, 1.711, 1.708, 1.706, 1.703, 1.701, 1.699, 1.697];
@@ -88,8 +88,4 @@ export function widenToward(interval: [number, number], other: number): [number,
 /** Widens an interval by `points` on each side, never below 0 %. */
 export function widenBy(interval: [number, number], points: number): [number, number] {
   return [round1(Math.max(0, interval[0] - points)), round1(interval[1] + points)];
-}
-
-function round1(v: number): number {
-  return Math.round(v * 10) / 10;
 }

@@ -49,9 +49,10 @@ export function settleStatuses(cylinders: CylinderResult[], thin: boolean, l: Li
  * where the starter gives nothing and its clutch lets go, while the fit's drive torque is a straight line in
  * speed. On the simulator's ensemble a bend in that line (at the speed 80 % of the rows stay below) brought the
  * crank-speed mean error from about 1.5 to 1.1–1.3 points, but placed from the data alone it followed a real
- * recording's fastest rows and pulled its healthy cylinders to 73–88 % (captures-real/), so it is not used. Such a cylinder is `uncertain` with a
- * sentence, unless it reads far below the limit, and its interval reaches past 100 %: the bootstrap cannot see
- * this, so the interval must say it, not only the status.
+ * recording's fastest rows and pulled its healthy cylinders to 73–88 % (captures-real/), so it is not used.
+ *
+ * Such a cylinder is `uncertain` with a sentence, unless it reads far below the limit, and its interval reaches
+ * past 100 %: the bootstrap cannot see this, so the interval must say it, not only the status.
  */
 export function holdAfterLow(cylinders: CylinderResult[], setup: EngineSetup, lowLimit: number, warnings: QualityWarning[], method: Method): void {
   dropWarnings(warnings, (w) => w.code === 'AFTER_LOW');

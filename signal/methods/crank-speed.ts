@@ -322,7 +322,7 @@ export function runSpeedChannelMethod(
 /** Crank angle is known from the teeth or the speed, so the speed's repeat rate checks the cylinder count. */
 export function countCheck(motion: CrankMotion, setup: EngineSetup, where: string) {
   const grid = resampleByAngle(motion.thetaDeg, motion.s);
-  return grid && eventCountWarning(grid.x, grid.samplesPerCycle, setup.cylinders, where, MIN_SPEED_ORDER_SHARE, firingIntervals(setup));
+  return grid && eventCountWarning(grid.x, grid.samplesPerCycle, setup, where, MIN_SPEED_ORDER_SHARE);
 }
 
 function sampleSpeeds(s: Float64Array): Float64Array {

@@ -106,7 +106,7 @@ export function runCurrentMethod(
       identity = 'sync';
       rpm = (120 * (pulses.length - 1)) / (pulses[pulses.length - 1] - pulses[0]);
       // Sync gives the cycle without the cylinder count, so the current's repeat rate checks the engine set up.
-      const mismatch = eventCountWarning(slice, (rate * 120) / rpm, n, 'starter current between cylinder 1 sync pulses', 0, iv);
+      const mismatch = eventCountWarning(slice, (rate * 120) / rpm, setup, 'starter current between cylinder 1 sync pulses');
       if (mismatch) warnings.push(mismatch);
     } else {
       warnings.push(warning('SYNC_NOT_FOUND', SYNC_PULSE_MISSING));

@@ -12,7 +12,8 @@
  */
 import { orderAmplitude } from '../dsp/event-rate';
 import { type QualityWarning, warning } from '../warnings';
-import { degreesOfPositions, symmetryStep } from './identity';
+import { type EngineSetup, firingIntervals } from '../engine/firing';
+import { symmetryStep } from './identity';
 
 const GRID_DEG = 4;
 /** Cylinder counts the signal is compared with. */
@@ -48,25 +49,19 @@ export function resampleByAngle(thetaDeg: Float64Array, signal: Float64Array): {
 }
 
 /**
- * How many times a cycle the firing intervals themselves repeat: the cylinder count on an even-firing engine, 3 on
- * an odd-firing V6 (90°, 150°, 90°, … repeats every 240°).
- */
-export function intervalRepeats(intervalsDeg: number[]): number {
-  return Math.round(720 / degreesOfPositions(intervalsDeg, symmetryStep(intervalsDeg)));
-}
-
-/**
- * A FIRING_ORDER_MISMATCH warning when another cylinder count explains `x` far better than `cylinders`. An
- * engine whose intervals repeat fewer times a cycle than it has cylinders (`intervalsDeg`: an odd-firing V6's
- * 90°, 150°, … repeat three times) makes those lower orders itself, the more so with a weak cylinder, which also
+ * A FIRING_ORDER_MISMATCH warning when another cylinder count explains `x` far better than the setup's. An
+ * engine whose intervals repeat fewer times a cycle than it has cylinders (an odd-firing V6's 90°, 150°, …
+ * repeat three times) makes those lower orders itself, the more so with a weak cylinder, which also
  * puts power at every other order. Such an order contradicts the setup only in a trace that repeats purely at it
  * (every other order below a tenth of the setup's own): then the capture holds fewer cylinders, or half of them
  * show no compression at all, and the two cannot be told apart.
  */
-export function eventCountWarning(x: Float64Array, samplesPerCycle: number, cylinders: number, where: string, minShare = 0, intervalsDeg?: number[]): QualityWarning | null {
+export function eventCountWarning(x: Float64Array, samplesPerCycle: number, setup: EngineSetup, where: string, minShare = 0): QualityWarning | null {
   if (x.length < 3 * samplesPerCycle || samplesPerCycle < 2 * 2 * Math.max(...COUNTS)) return null;
+  const cylinders = setup.cylinders;
   const own = orderAmplitude(x, samplesPerCycle, cylinders);
-  const repeats = intervalsDeg ? intervalRepeats(intervalsDeg) : cylinders;
+  // How many times a cycle the firing intervals repeat: every event on an even-firing engine.
+  const repeats = cylinders / symmetryStep(firingIntervals(setup));
   const natural = (c: number) => repeats < cylinders && c % repeats === 0;
   const others = COUNTS.filter((c) => c !== cylinders).map((c) => ({ c, a: orderAmplitude(x, samplesPerCycle, c) }));
   const pure = others.every(({ c, a }) => natural(c) || a < PURE_SHARE * own);
