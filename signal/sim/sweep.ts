@@ -198,8 +198,12 @@ export function runSweep(seeds: number[] = [11]): SweepTally {
   return tally;
 }
 
-/** Engines drawn per engine layout in the ensemble sweep (its test and the bench). */
-export const ENSEMBLE_DRAWS = 3;
+/**
+ * Engines drawn per engine layout in the ensemble sweep (its test and the bench): 10, so 80 engines and about 320
+ * figures per method. With 3 (96 figures) one odd draw moved a method's mean by 0.1–0.2 point: the same fit read
+ * 1.53 on seeds 1–24 and 1.17 on seeds 101–124 for Hall with sync.
+ */
+export const ENSEMBLE_DRAWS = 10;
 
 /**
  * The sweep on the ensemble (or its held-out family): for each engine, `draws` engines drawn with their own
