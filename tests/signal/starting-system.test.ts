@@ -135,6 +135,31 @@ describe('starting-system figures against the simulator', () => {
   });
 });
 
+/**
+ * Event duration at a slow crank (the dragging-starter family, 10 draws per layout): each event's duration then follows
+ * the starter catching the crank up, and before this rule an I3's healthy cylinder beside a nearly dead one read 0 %
+ * `low`. Now its figures are withheld with a sentence, and crank speed on the same teeth still reads every cylinder.
+ * The I3's drag and weak cylinder are simulator draws, not trade figures.
+ */
+describe('event duration at a slow crank', () => {
+  it('gives no figures and says why, while crank speed on the same teeth reads the engine', () => {
+    const engine = SWEEP_ENGINES.I3;
+    const d = drawEngine(engine, 5, 'dragging-starter');
+    const sim = simulateCranking({ ...d.physics, engine, leakPerS: d.leakPerS, channels: [], seed: 5, sampleRateHz: 10_000 });
+    const speed = (r: ReturnType<typeof analyzeCapture>) => r.startingSystem?.checks.find((c) => c.key === 'cranking-speed');
+    const duration = analyzeCapture({ toothTimes: sim.toothTimes }, { engine, method: 'event-duration' });
+    expect(speed(duration)?.status).toBe('low');
+    expect(duration.cylinders.every((c) => c.relativePercent === null && c.interval === null)).toBe(true);
+    expect(duration.warnings.map((w) => w.message).join(' ')).toMatch(/each event’s duration follows the starter catching the crank up: no figures are given/);
+    const crank = analyzeCapture({ toothTimes: sim.toothTimes }, { engine });
+    expect(crank.cylinders.every((c) => c.relativePercent !== null)).toBe(true);
+    // One cylinder is nearly dead (truth under 10 %), and crank speed calls exactly one low (without a sync mark
+    // the numbering is assumed, so which one is not checked here).
+    expect(Array.from(sim.truth.relativePercent).filter((t) => t < 10)).toHaveLength(1);
+    expect(crank.cylinders.filter((c) => c.status === 'low')).toHaveLength(1);
+  });
+});
+
 const REAL = '../shared/captures-real/i4-small-tooth-log-battery-plugs-in.csv';
 
 describe.skipIf(!existsSync(REAL))('starting system on a real tooth log (captures-real/README.md)', () => {
