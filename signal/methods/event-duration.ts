@@ -251,6 +251,7 @@ export function runEventDurationMethod(input: DurationInput, setup: EngineSetup,
     iv ? widenForShare(iv, share) : null,
   );
   widenForNeighbours(intervals, figures, setup.firingOrder, coarse ? NEIGHBOUR_REACH.coarse : NEIGHBOUR_REACH.fine);
+  reachPastWeakNext(intervals, figures, setup.firingOrder, input.lowLimitPercent, coarse ? FLOOR.coarse : FLOOR.fine);
   // No cylinder holds less than no compression: a figure or interval end below 0 % is 0 %.
   for (let c = 0; c < n; c++) {
     if (figures[c] !== null) figures[c] = Math.max(0, figures[c]!);
@@ -444,6 +445,25 @@ function widenForNeighbours(intervals: ([number, number] | null)[], figures: (nu
     const away = [order[(p + n - 1) % n], order[(p + 1) % n]].map((k) => Math.abs((figures[k - 1] ?? 100) - 100));
     const w = reach * Math.max(...away);
     intervals[c] = [round1(Math.min(iv[0], fig - w)), round1(Math.max(iv[1], fig + w))];
+  }
+}
+
+/**
+ * A cylinder is read from the event after it; when that event is a weak cylinder's own (its figure below the low
+ * limit), the weak cylinder's missing compression changes the event too, and the reading mixes the two. On the
+ * ensemble (10 draws per layout, seeds 1–80 and 201–280) an I3's healthy cylinder before a nearly dead one read 0 %
+ * `low` twice, once from a figure of −122 %. Its interval reaches up by the weak cylinder's whole loss, and at least
+ * to a healthy cylinder's (100 % and the floor).
+ */
+function reachPastWeakNext(intervals: ([number, number] | null)[], figures: (number | null)[], order: number[], lowLimit: number, floor: number): void {
+  const n = order.length;
+  for (let p = 0; p < n; p++) {
+    const c = order[p] - 1;
+    const next = figures[order[(p + 1) % n] - 1];
+    const iv = intervals[c];
+    const fig = figures[c];
+    if (!iv || fig === null || next === null || !(next < lowLimit)) continue;
+    intervals[c] = [iv[0], round1(Math.max(iv[1], fig + (100 - next), 100 + floor))];
   }
 }
 

@@ -6,7 +6,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyzeCapture } from '@/signal/analyze';
+import { drawEngine } from '@/signal/sim/ensemble';
 import { simulateCranking } from '@/signal/sim/simulate';
+import { alignedToTruth, SWEEP_ENGINES } from '@/signal/sim/sweep';
 import { simpleWheel } from '@/signal/teeth/wheel';
 import { crossCheck, intervalsOverlap } from '@/signal/steps/cross-check';
 import type { CylinderResult, MethodResult } from '@/signal/types';
@@ -90,5 +92,30 @@ describe('event duration checks crank speed on a fine wheel', () => {
     const r = analyzeCapture({ time: s.time, crank: s.hall, sync: s.sync }, { engine: I5, method: 'event-duration' });
     expect(r.identity).toBe('sync');
     expect(r.cylinders.filter((c) => c.status === 'low').map((c) => c.cylinder)).toEqual([4]);
+  });
+});
+
+/**
+ * Event duration reads a cylinder from the event after it. On an ensemble draw (signal/sim/ensemble.ts, seed 206: an
+ * I3 with a nearly dead cylinder leaking through an orifice) the healthy cylinder before the dead one read 0 % `low`,
+ * from a figure of −122 %, because the dead cylinder's own event changes too. Its interval now reaches a healthy
+ * cylinder's, so it is `uncertain`, never a confident `low`. Engine and leak are a simulator draw, not trade figures.
+ */
+describe('event duration beside a nearly dead cylinder', () => {
+  it('gives the cylinder before it an interval that holds a healthy figure', () => {
+    const engine = SWEEP_ENGINES.I3;
+    const d = drawEngine(engine, 206, 'ensemble');
+    const sim = simulateCranking({ ...d.physics, engine, leakPerS: d.leakPerS, channels: [], seed: 206, sampleRateHz: 10_000 });
+    const truth = sim.truth.relativePercent;
+    const dead = Array.from(truth).findIndex((t) => t < 10);
+    expect(dead).toBeGreaterThanOrEqual(0);
+    const r = analyzeCapture({ toothTimes: sim.toothTimes }, { engine, method: 'event-duration' });
+    const { status, interval } = alignedToTruth(r, truth, engine);
+    // The cylinder that fires before the dead one (firing order 1-2-3).
+    const order = engine.firingOrder;
+    const before = order[(order.indexOf(dead + 1) + order.length - 1) % order.length] - 1;
+    expect(truth[before]).toBeGreaterThan(95);
+    expect(status[before]).not.toBe('low');
+    expect(interval[before]![1]).toBeGreaterThanOrEqual(100);
   });
 });
