@@ -216,7 +216,8 @@ function distortedByStarting(result: MethodResult, s: StartingSystem | undefined
   const cause = s?.weakBattery ? 'The battery is weak' : drawHigh ? 'The starter draws too much' : 'The engine cranked slowly';
   const electrical = result.method === 'current' || result.method === 'battery';
   const tooSlow = result.warnings.some((w) => w.code === 'CRANKING_TOO_SLOW');
-  const starterBound = electrical ? crawling : result.method === 'event-duration' && (slow || crawling);
+  // Crawling is below 80 % of the same limit that makes cranking slow, so it is always slow too.
+  const starterBound = electrical ? crawling : result.method === 'event-duration' && slow;
   if (tooSlow || starterBound) {
     for (const c of result.cylinders) withholdFigures(c);
     const why = tooSlow ? 'the crank turned too slowly to compare cylinders' : electrical ? 'the starter’s current no longer follows the crank' : 'each event’s duration follows the starter catching the crank up';

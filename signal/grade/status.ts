@@ -47,9 +47,10 @@ export function settleStatuses(cylinders: CylinderResult[], thin: boolean, l: Li
  * the crank dips hard into the next compression and the starter's one-way clutch overruns, which the starter
  * model does not follow. On crank speed the crank runs past the starter's free speed after the weak cylinder,
  * where the starter gives nothing and its clutch lets go, while the fit's drive torque is a straight line in
- * speed. On the simulator's ensemble a bend in that line (at the speed 80 % of the rows stay below) brought the
- * crank-speed mean error from about 1.5 to 1.1–1.3 points, but placed from the data alone it followed a real
- * recording's fastest rows and pulled its healthy cylinders to 73–88 % (captures-real/), so it is not used.
+ * speed. A bend in that line is not used: at a fixed share of the speeds it pulled a real recording's healthy
+ * cylinders to 73–88 % (captures-real/), and placed per capture by its residual it helped the simulator's
+ * ensemble but made the family kept out of calibration worse (crank-speed mean error 1.11–1.17 → 1.32–1.40 points
+ * on 10 draws per layout), reading an odd-firing V6's even 99/101 as 102/98.
  *
  * Such a cylinder is `uncertain` with a sentence, unless it reads far below the limit, and its interval reaches
  * past 100 %: the bootstrap cannot see this, so the interval must say it, not only the status.
