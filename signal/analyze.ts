@@ -68,7 +68,10 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     if (method === 'current') {
       if (!hasCurrent) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The starter-current method needs a current channel (A) and a time column; map them or choose the crank-speed method.')] };
       const { current, notice } = orientCurrent(columns.current!);
-      const outcome = runCurrentMethod(columns.time!, current, columns.sync, setup, rotation, settings.window);
+      // The crank's own speed, where its wheel draws a speed curve, shows where the starter's clutch ran free.
+      const crank = hasCrank ? runMethod('crank-speed') : undefined;
+      const crankSpeed = crank?.ok && !crank.run.wheel?.tooCoarse ? { t: crank.run.motion.t, omega: crank.run.motion.s } : undefined;
+      const outcome = runCurrentMethod(columns.time!, current, columns.sync, setup, rotation, settings.window, crankSpeed);
       return notice ? withWarning(outcome, notice) : outcome;
     }
     if (method === 'battery') {
@@ -140,6 +143,7 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     const checked = !isThin(other.method, other.warnings, other.wheel) && other.fitQuality > 0 ? compareMethods(result, other, setup.firingOrder) : null;
     if (checked) {
       crossCheck = checked;
+      result.warnings.push(...other.warnings.filter((w) => w.code === 'CLUTCH_OVERRUN'));
       settle(result.cylinders, result.method, result.warnings, result.wheel, setup, limits);
       if (!checked.agree) {
         const check = otherMethod === teethCheck ? 'the wheel, the cylinder count and the firing order' : 'both probes and the firing order';

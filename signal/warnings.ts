@@ -34,7 +34,8 @@ export type WarningCode =
   | 'MOST_LOW_HELD'
   | 'UNSTEADY_START'
   | 'EVENTS_OVERLAP'
-  | 'WEAK_BATTERY';
+  | 'WEAK_BATTERY'
+  | 'CLUTCH_OVERRUN';
 
 export interface QualityWarning {
   code: WarningCode;

@@ -9,7 +9,8 @@ import { estimateRate } from '../dsp/event-rate';
 import { blockMean, movingAverage } from '../dsp/smooth';
 import { median, quantile, quantileProbe } from '../dsp/stats';
 import { windowFromCurrent, type CrankingWindow } from '../steps/cranking-window';
-import { type CrankMotion, motionFromCurrent } from '../steps/crank-motion';
+import { type CrankMotion, keepRows, motionFromCurrent } from '../steps/crank-motion';
+import { type CrankSpeedTrace, findClutchOverrun, inSpans } from '../steps/clutch-overrun';
 import { findPeaks } from '../dsp/find-peaks';
 import { symmetryStep } from '../steps/identity';
 import { runFit } from '../fit/run-fit';
@@ -52,6 +53,7 @@ export function runCurrentMethod(
   setup: EngineSetup,
   rotation: number,
   windowOverride?: CrankingWindow,
+  crankSpeed?: CrankSpeedTrace,
 ): MethodOutcome {
   const warnings: QualityWarning[] = [];
   const n = setup.cylinders;
@@ -63,7 +65,8 @@ export function runCurrentMethod(
   }
   // Block means down-sample to about 500 Hz (a 2 ms boxcar), then a 5 ms moving average removes commutator ripple.
   const it = blockMean(time, factor);
-  const ic = movingAverage(blockMean(current, factor), Math.max(1, Math.round(rate * 0.005)));
+  const smoothSamples = Math.max(1, Math.round(rate * 0.005));
+  const ic = movingAverage(blockMean(current, factor), smoothSamples);
   const window = windowOverride ?? windowFromCurrent(it, ic);
   if (!window) {
     return fail('NO_CRANKING', 'No cranking was found in the current: it never rose and settled at a cranking level. Check the clamp is on the starter cable, its direction and range, and record 5–10 s of cranking.');
@@ -120,11 +123,26 @@ export function runCurrentMethod(
     if (marks.length < 2 * n) return fail('TOO_FEW_CYCLES', 'Fewer than two engine cycles were found in the current; crank for 5–10 s.');
   }
 
+  // With the crank's speed beside it, the stretches where the starter's clutch ran free (the current then says
+  // nothing of the crank) are found and left out of the fit, with their count in a sentence.
+  const overrun = crankSpeed ? findClutchOverrun(it, ic, crankSpeed, window.startS, window.endS, 120 / rpm / n, smoothSamples) : null;
+  const free = overrun?.spans ?? [];
+  const rowMarginS = 2 / rate;
+  if (overrun && overrun.events > 0) {
+    warnings.push(
+      warning(
+        'CLUTCH_OVERRUN',
+        `The starter's one-way clutch ran free in ${overrun.events} of ${overrun.of} compression events: the crank ran ahead of the starter and the current fell to its no-load level, so it says nothing of the crank there. The current's figures leave those stretches out.`,
+      ),
+    );
+  }
+
   const hi = quantile(slice, 0.99);
   // The starter's stall current, fitted per capture: the value whose motion the sealed shapes fit best (a coarse
   // scan, then a golden-section search on its logarithm), then the full fit (leak shapes) at that value.
   const tryStall = (k: number) => {
-    const motion = motionFromCurrent(it, ic, marks, markAngles, k * hi);
+    const all = motionFromCurrent(it, ic, marks, markAngles, k * hi);
+    const motion = free.length ? keepRows(all, (t) => !inSpans(free, t, rowMarginS)) : all;
     const quick = runFit(motion, setup, identity === 'sync', rotation, undefined, false);
     return { motion, score: quick ? quick.r2 : -Infinity };
   };

@@ -114,6 +114,11 @@ export interface SimTruth {
   meanRpm: number;
   /** Cycles completed while the starter was engaged. */
   cycles: number;
+  /**
+   * The starter's one-way clutch while cranking steadily: the share of the time it ran free (the crank ahead of
+   * the armature) and how many times it let go.
+   */
+  overrun: { share: number; releases: number; spans: Array<[number, number]> };
   /** The starting system as simulated: what a starting-system check should read. */
   starting: {
     /** Battery rest voltage, V. */
@@ -252,6 +257,10 @@ export function simulateCranking(options: SimOptions): SimResult {
   let omega = 0;
   let omegaArm = 0;
   let locked = true;
+  let freeSteps = 0;
+  let steadySteps = 0;
+  let releases = 0;
+  const spans: Array<[number, number]> = [];
   let t = 0;
   let lastToothSlot = Math.floor((theta - gapOffset) / pitch);
   const cam = { rising: [] as number[], falling: [] as number[] };
@@ -324,13 +333,23 @@ export function simulateCranking(options: SimOptions): SimResult {
       if (locked && engaged) {
         accel = (motorNm + load) / (crankInertia + armatureInertia);
         // The clutch carries motor torque less what the armature itself needs; below zero it lets go.
-        if (motorNm - armatureInertia * accel < 0) locked = false;
+        if (motorNm - armatureInertia * accel < 0) {
+          locked = false;
+          if (t > steadyFrom && t < offS) {
+            releases++;
+            spans.push([t, offS]);
+          }
+        }
       }
       if (!locked || !engaged) {
         accel = load / crankInertia;
         omegaArm = Math.max(0, omegaArm + ((engaged ? motorNm : 0) - 0.5) / armatureInertia * dt);
       }
       if (omega <= 1e-6 && motorNm + gasNm <= frictionNm) accel = Math.max(0, accel!);
+      if (engaged && t > steadyFrom) {
+        steadySteps++;
+        if (!locked) freeSteps++;
+      }
       const thetaBefore = theta;
       omega = Math.max(0, omega + accel! * dt);
       if (locked && engaged) omegaArm = omega;
@@ -338,6 +357,8 @@ export function simulateCranking(options: SimOptions): SimResult {
         // The armature catches the crank: the clutch locks and the two share their momentum.
         omega = omegaArm = (crankInertia * omega + armatureInertia * omegaArm) / (crankInertia + armatureInertia);
         locked = true;
+        const open = spans[spans.length - 1];
+        if (open && open[1] === offS) open[1] = t;
       }
       theta += (omega * dt) / RAD;
       // Crank-tooth edges crossed in this step.
@@ -417,6 +438,7 @@ export function simulateCranking(options: SimOptions): SimResult {
       relativePercent,
       meanRpm: (meanOmega * 60) / (2 * Math.PI),
       cycles,
+      overrun: { share: steadySteps ? freeSteps / steadySteps : 0, releases, spans },
       starting: {
         restingV: batteryV,
         batteryOhm: rBattery,

@@ -122,6 +122,20 @@ export function motionFromCurrent(
   return out;
 }
 
+/** The rows whose time `keep` accepts. */
+export function keepRows(m: CrankMotion, keep: (t: number) => boolean): CrankMotion {
+  const rows: number[] = [];
+  for (let r = 0; r < m.t.length; r++) if (keep(m.t[r])) rows.push(r);
+  const out = alloc(rows.length);
+  rows.forEach((r, k) => {
+    out.t[k] = m.t[r];
+    out.thetaDeg[k] = m.thetaDeg[r];
+    out.y[k] = m.y[r];
+    out.s[k] = m.s[r];
+  });
+  return out;
+}
+
 function alloc(n: number): CrankMotion {
   return { t: new Float64Array(n), thetaDeg: new Float64Array(n), y: new Float64Array(n), s: new Float64Array(n) };
 }
