@@ -18,6 +18,7 @@ import type { AnalysisResult, AnalysisSettings, CaptureColumns, CylinderResult, 
 import { ENGINE_VERSION } from './version';
 import { cylinderIntervals, widenBy } from './grade/interval';
 import { crossCheck as compareMethods } from './steps/cross-check';
+import type { CrankSpeedTrace } from './steps/clutch-overrun';
 import { gradeCapture, holdAfterLow, holdHigh, holdMostLow, isThin, type Limits, settleStatuses } from './grade/status';
 import { batteryAtTeeth, isEdgeSampled, runBatteryMethod } from './methods/battery';
 import { teethOf, wheelNotation } from './teeth/wheel';
@@ -68,17 +69,14 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     if (method === 'current') {
       if (!hasCurrent) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The starter-current method needs a current channel (A) and a time column; map them or choose the crank-speed method.')] };
       const { current, notice } = orientCurrent(columns.current!);
-      // The crank's own speed, where its wheel draws a speed curve, shows where the starter's clutch ran free.
-      const crank = hasCrank ? runMethod('crank-speed') : undefined;
-      const crankSpeed = crank?.ok && !crank.run.wheel?.tooCoarse ? { t: crank.run.motion.t, omega: crank.run.motion.s } : undefined;
-      const outcome = runCurrentMethod(columns.time!, current, columns.sync, setup, rotation, settings.window, crankSpeed);
+      const outcome = runCurrentMethod(columns.time!, current, columns.sync, setup, rotation, settings.window, crankSpeed());
       return notice ? withWarning(outcome, notice) : outcome;
     }
     if (method === 'battery') {
       if (!hasBattery) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The battery-voltage method needs a battery-voltage channel (V) and a time column; map them or choose another method.')] };
       // Logged only at each tooth edge, the voltage is read along the crank-speed method's events.
       if (isEdgeSampled(columns)) return batteryAtTeeth(columns, runMethod('crank-speed'), setup, lowLimit);
-      return runBatteryMethod(columns.time!, columns.battery!, columns.sync, setup, rotation, settings.window);
+      return runBatteryMethod(columns.time!, columns.battery!, columns.sync, setup, rotation, settings.window, crankSpeed());
     }
     if (method === 'event-duration') {
       if (!hasTeeth) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The event-duration method needs crank tooth times or a crank sensor channel; map one or choose another method.')] };
@@ -102,6 +100,11 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
     if (!columns.toothTimes && !columns.crank) return runSpeedChannelMethod(columns.time!, columns.rpm!, setup, rotation, settings.window);
     crankOutcome ??= runCrankSpeedMethod(crankInput, setup, rotation, settings.window, readTeeth());
     return crankOutcome;
+  };
+  // The crank's own speed, where its wheel draws a speed curve, shows where the starter's clutch ran free.
+  const crankSpeed = (): CrankSpeedTrace | undefined => {
+    const crank = hasCrank ? runMethod('crank-speed') : undefined;
+    return crank?.ok && !crank.run.wheel?.tooCoarse ? { t: crank.run.motion.t, omega: crank.run.motion.s } : undefined;
   };
   const results = new Map<Method, MethodResult>();
   const resultOf = (method: Method): MethodResult => {

@@ -13,6 +13,7 @@ import { healthyReference, round1, type Summary, timeAtAngle } from '../steps/su
 import { eventKey } from '../fit/torque-fit';
 import type { CaptureColumns, CylinderResult, EventMark } from '../types';
 import { type MethodOutcome, runCurrentMethod } from './current';
+import type { CrankSpeedTrace } from '../steps/clutch-overrun';
 
 /** Equivalent series resistance used to turn volts into amps, Ω (a typical battery and cable; only ratios matter). */
 const R_EQUIVALENT = 0.01;
@@ -33,10 +34,11 @@ export function runBatteryMethod(
   setup: EngineSetup,
   rotation: number,
   window?: CrankingWindow,
+  crankSpeed?: CrankSpeedTrace,
 ): MethodOutcome {
   const rest = quantileProbe(battery, 0.99, 50_000);
   const current = battery.map((v) => (rest - v) / R_EQUIVALENT);
-  const outcome = runCurrentMethod(time, current, sync, setup, rotation, window);
+  const outcome = runCurrentMethod(time, current, sync, setup, rotation, window, crankSpeed);
   return outcome.ok ? { ok: true, run: { ...outcome.run, rawScale: R_EQUIVALENT } } : outcome;
 }
 

@@ -132,7 +132,7 @@ export function runCurrentMethod(
     warnings.push(
       warning(
         'CLUTCH_OVERRUN',
-        `The starter's one-way clutch ran free in ${overrun.events} of ${overrun.of} compression events: the crank ran ahead of the starter and the current fell to its no-load level, so it says nothing of the crank there. The current's figures leave those stretches out.`,
+        `The starter's one-way clutch ran free in ${overrun.events} of ${overrun.of} compression events: the crank ran ahead of the starter, whose draw fell to its no-load level and says nothing of the crank there. Those stretches are left out of the electrical figures.`,
       ),
     );
   }

@@ -61,14 +61,14 @@ describe('clutch overrun from the motor relation', () => {
   });
 });
 
-/** A simulated capture of current, sync and crank teeth, read by the current method with and without the teeth. */
-function readBoth(layout: keyof typeof SWEEP_ENGINES, seed: number, family: EnsembleFamily) {
+/** A simulated capture of current (or battery voltage), sync and crank teeth, read by that electrical method with and without the teeth. */
+function readBoth(layout: keyof typeof SWEEP_ENGINES, seed: number, family: EnsembleFamily, channel: 'current' | 'battery' = 'current') {
   const engine = SWEEP_ENGINES[layout];
   const d = drawEngine(engine, seed, family);
-  const sim = simulateCranking({ ...d.physics, engine, leakPerS: d.leakPerS, channels: ['current', 'sync'], seed, sampleRateHz: 10_000 });
-  const base = { time: sim.time, current: sim.current, sync: sim.sync };
-  const withCrank = analyzeCapture({ ...base, toothTimes: sim.toothTimes }, { engine, method: 'current' });
-  const alone = analyzeCapture(base, { engine, method: 'current' });
+  const sim = simulateCranking({ ...d.physics, engine, leakPerS: d.leakPerS, channels: [channel, 'sync'], seed, sampleRateHz: 10_000 });
+  const base = { time: sim.time, [channel]: sim[channel], sync: sim.sync };
+  const withCrank = analyzeCapture({ ...base, toothTimes: sim.toothTimes }, { engine, method: channel });
+  const alone = analyzeCapture(base, { engine, method: channel });
   const error = (r: typeof alone) => {
     const e = r.cylinders.flatMap((c, i) => (c.relativePercent === null ? [] : [Math.abs(c.relativePercent - sim.truth.relativePercent[i])]));
     return e.reduce((a, b) => a + b, 0) / e.length;
@@ -85,6 +85,13 @@ describe('clutch overrun on the simulator’s ensemble', () => {
     expect(r.truthSpans).toBeGreaterThan(10);
     expect(r.note?.message).toMatch(/ran free in \d+ of \d+ compression events/);
     const count = Number(r.note!.message.match(/in (\d+) of/)![1]);
+    expect(Math.abs(count - r.truthSpans)).toBeLessThanOrEqual(0.25 * r.truthSpans);
+    expect(r.withCrank).toBeLessThan(r.alone);
+  }, 60_000);
+
+  it('reads the same free stretches from the battery voltage, which follows the starter’s draw', () => {
+    const r = readBoth('I4', 1, 'ensemble', 'battery');
+    const count = Number(r.note?.message.match(/in (\d+) of/)?.[1]);
     expect(Math.abs(count - r.truthSpans)).toBeLessThanOrEqual(0.25 * r.truthSpans);
     expect(r.withCrank).toBeLessThan(r.alone);
   }, 60_000);
