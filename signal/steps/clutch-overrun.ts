@@ -28,7 +28,7 @@ export interface ClutchOverrun {
  * dragging-starter families, seeds 1–10) these found overrun in 14 of the 24 captures that had it and in none of the
  * 216 without it; the 10 missed let the crank run barely ahead (2–4 % of the swing above the line) and their
  * current figures erred 2.9 points or less on average. Leaving the found stretches out took the current's mean error
- * from 1.12 to 1.09 points on the ensemble and from 0.83 to 0.73 on the dragging starters (one I4 from 3.8 to 1.2).
+ * from 1.12 to 1.09 points on the ensemble and from 0.83 to 0.66 on the dragging starters (one I4 from 3.8 to 1.2).
  */
 const FREE_SHARE_OF_SWING = 0.03;
 const FREE_MADS = 4;
