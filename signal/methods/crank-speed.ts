@@ -15,7 +15,7 @@ import { orderAmplitude } from '../dsp/event-rate';
 import { findSyncPulses, SYNC_PULSE_MISSING } from '../steps/sync-pulses';
 import { type QualityWarning, warning } from '../warnings';
 import { guessSensorKind, type SensorKind, toothTimesFromWaveform } from '../teeth/from-waveform';
-import { dropGlitches, learnWheel, type WheelAngles, wheelAngles } from '../teeth/learn-wheel';
+import { dropGlitches, learnWheel, type TeethRepair, type WheelAngles, wheelAngles } from '../teeth/learn-wheel';
 import { cycleMarksOf, findCycleMarks } from '../teeth/cycle-marks';
 import { describeWheel, teethOf, type ToothWheel, wheelNotation } from '../teeth/wheel';
 import type { CylinderMarks } from '../import/edge-log';
@@ -47,7 +47,7 @@ export interface CrankTeeth {
   /** Samples per second of a sampled waveform (0 for edge times). */
   sampleRate: number;
   /** The wheel, its angles and what was repaired, when its reference was found at least twice. */
-  found?: { wheel: ToothWheel; angles: WheelAngles; info: WheelInfo };
+  found?: { wheel: ToothWheel; angles: WheelAngles; info: WheelInfo; repairs: TeethRepair[] };
   /** Why no wheel was found, as the method's failure. */
   problem?: QualityWarning;
 }
@@ -94,7 +94,8 @@ export function readCrankTeeth(input: CrankInput, setup: EngineSetup): CrankTeet
     teethInserted: angles.inserted,
     tooCoarse: Math.min(...iv) / pitch < MIN_POSITIONS_PER_EVENT,
   };
-  out.found = { wheel, angles, info };
+  const glitches = clean.droppedAtS.map((t): TeethRepair => ({ kind: 'dropped', count: 1, fromS: t, toS: t }));
+  out.found = { wheel, angles, info, repairs: [...glitches, ...angles.repairs] };
   return out;
 }
 
@@ -163,18 +164,9 @@ export function runCrankSpeedMethod(
     return fail('NO_CRANKING', NO_TEETH);
   }
   if (!read.found) return { ok: false, warnings: [read.problem!] };
-  const { wheel, angles, info: wheelInfo } = read.found;
+  const { wheel, angles, info: allInfo, repairs } = read.found;
   const sampleRate = read.sampleRate;
   const iv = firingIntervals(setup);
-  const repaired = wheelInfo.glitchesDropped + wheelInfo.teethInserted;
-  if (repaired > 0 || angles.unmatched > 0) {
-    const parts = [
-      wheelInfo.glitchesDropped ? `${wheelInfo.glitchesDropped} glitch edge(s) dropped` : '',
-      wheelInfo.teethInserted ? `${wheelInfo.teethInserted} missing tooth edge(s) inserted` : '',
-      angles.unmatched ? `${angles.unmatched} revolution(s) that did not match the wheel left out` : '',
-    ].filter(Boolean);
-    warnings.push(warning('TEETH_REPAIRED', `The crank signal was repaired: ${parts.join(', ')}. Check the sensor wiring and probe ground if this happens often.`));
-  }
   if (angles.unmatched > angles.revolutions) {
     return fail('NO_TOOTH_GAP', `Most revolutions (${angles.unmatched}) did not match the ${describeWheel(wheel)} wheel; check the wheel setting and the sensor signal.`);
   }
@@ -191,6 +183,9 @@ export function runCrankSpeedMethod(
   }
   const window = windowOverride ?? (cranking >= 0 ? windowFromSpeed(m0.t.subarray(0, cranking), m0.s.subarray(0, cranking)) : windowFromSpeed(m0.t, m0.s));
   if (!window) return start ? fail('ENGINE_STARTED', startedTooSoon(start)) : fail('NO_CRANKING', NOT_STEADY);
+  // Repairs count where the cranking is read: the starter engaging and the crank coasting to a stop (the speed
+  // changing fastest) are no sign of a wiring fault.
+  const wheelInfo = repairsWithin(allInfo, repairs, window, warnings);
   if (sampleRate > 0) {
     const fastest = Math.max(...sampleSpeeds(m0.s));
     const periodS = (2 * Math.PI) / wheel.positions / fastest;
@@ -334,4 +329,25 @@ function angleAtTime(t: Float64Array, theta: Float64Array, time: number): number
   const i = Math.min(t.length - 1, Math.max(1, indexAtTime(t, time)));
   const f = (time - t[i - 1]) / (t[i] - t[i - 1]);
   return theta[i - 1] + f * (theta[i] - theta[i - 1]);
+}
+
+/**
+ * The wheel's repair counts inside the cranking window, and the sentence that names them (none when every repair
+ * lies outside it).
+ */
+function repairsWithin(info: WheelInfo, repairs: TeethRepair[], window: CrankingWindow, warnings: QualityWarning[]): WheelInfo {
+  const inside = repairs.filter((r) => r.toS >= window.startS && r.fromS <= window.endS);
+  const count = (kind: TeethRepair['kind']) => inside.filter((r) => r.kind === kind).reduce((a, r) => a + r.count, 0);
+  const dropped = count('dropped');
+  const inserted = count('inserted');
+  const unmatched = count('unmatched');
+  if (dropped + inserted + unmatched > 0) {
+    const parts = [
+      dropped ? `${dropped} glitch edge(s) dropped` : '',
+      inserted ? `${inserted} missing tooth edge(s) inserted` : '',
+      unmatched ? `${unmatched} revolution(s) that did not match the wheel left out` : '',
+    ].filter(Boolean);
+    warnings.push(warning('TEETH_REPAIRED', `The crank signal was repaired: ${parts.join(', ')}. Check the sensor wiring and probe ground if this happens often.`));
+  }
+  return { ...info, glitchesDropped: dropped, teethInserted: inserted };
 }

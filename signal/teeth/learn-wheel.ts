@@ -20,28 +20,40 @@ export interface WheelAngles {
   inserted: number;
   /** Revolutions whose edges could not be matched to the wheel (left out). */
   unmatched: number;
+  /** Where each repair was made. */
+  repairs: TeethRepair[];
+}
+
+/** A repair of the crank signal: edges dropped or inserted, or revolutions left out, within [fromS, toS]. */
+export interface TeethRepair {
+  kind: 'dropped' | 'inserted' | 'unmatched';
+  count: number;
+  fromS: number;
+  toS: number;
 }
 
 /** Edges closer than this share of the local tooth period to the previous one are glitches. */
 const GLITCH_SHARE = 0.2;
 
 /** Drops edges that come far too soon after the previous one (contact bounce, ignition noise). */
-export function dropGlitches(times: Float64Array): { times: Float64Array; dropped: number } {
+export function dropGlitches(times: Float64Array): { times: Float64Array; dropped: number; droppedAtS: number[] } {
   const n = times.length;
-  if (n < 4) return { times, dropped: 0 };
+  if (n < 4) return { times, dropped: 0, droppedAtS: [] };
   const out: number[] = [times[0]];
   let dropped = 0;
+  const droppedAtS: number[] = [];
   const d = new Float64Array(n - 1);
   for (let k = 0; k + 1 < n; k++) d[k] = times[k + 1] - times[k];
   for (let k = 1; k < n; k++) {
     const local = localMedian(d, k - 1, 4);
     if (times[k] - out[out.length - 1] < GLITCH_SHARE * local || !(times[k] > out[out.length - 1])) {
       dropped++;
+      droppedAtS.push(times[k]);
       continue;
     }
     out.push(times[k]);
   }
-  return { times: Float64Array.from(out), dropped };
+  return { times: Float64Array.from(out), dropped, droppedAtS };
 }
 
 /**
@@ -254,6 +266,7 @@ export function wheelAngles(rawTimes: Float64Array, wheel: ToothWheel): WheelAng
   const outA: number[] = [];
   let inserted = 0;
   let unmatched = 0;
+  const repairs: TeethRepair[] = [];
   // Cumulative pitches to each present tooth from position 0.
   const toothPos = new Float64Array(teeth + 1);
   for (let j = 0; j < teeth; j++) toothPos[j + 1] = toothPos[j] + 1 + wheel.gapsAfter[j];
@@ -270,19 +283,25 @@ export function wheelAngles(rawTimes: Float64Array, wheel: ToothWheel): WheelAng
     const span = Array.from(times.subarray(a, b));
     const revsHere = Math.max(1, Math.round(span.length / teeth));
     const rev = Math.round((a - firstRef) / teeth);
+    const leaveOut = (revolutions: number) => {
+      unmatched += revolutions;
+      repairs.push({ kind: 'unmatched', count: revolutions, fromS: times[a], toS: times[Math.min(b, times.length - 1)] });
+    };
     if (revsHere !== 1) {
-      unmatched += revsHere;
+      leaveOut(revsHere);
       continue;
     }
     if (span.length === teeth - 1) {
-      insertMissing(span, wheel);
+      const at = insertMissing(span, wheel);
       inserted++;
+      repairs.push({ kind: 'inserted', count: 1, fromS: at, toS: at });
     } else if (span.length === teeth + 1) {
-      dropExtra(span, wheel);
+      const at = dropExtra(span, wheel);
       dropped++;
+      repairs.push({ kind: 'dropped', count: 1, fromS: at, toS: at });
     }
     if (span.length !== teeth) {
-      unmatched++;
+      leaveOut(1);
       continue;
     }
     emit(span, rev);
@@ -291,7 +310,7 @@ export function wheelAngles(rawTimes: Float64Array, wheel: ToothWheel): WheelAng
   const tail = Array.from(times.subarray(refs[refs.length - 1], Math.min(times.length, refs[refs.length - 1] + teeth)));
   emit(tail, Math.round((refs[refs.length - 1] - firstRef) / teeth));
   const revolutions = Math.max(0, refs.length - 1 - unmatched);
-  return { wheel, times: Float64Array.from(outT), angleDeg: Float64Array.from(outA), revolutions, dropped, inserted, unmatched };
+  return { wheel, times: Float64Array.from(outT), angleDeg: Float64Array.from(outA), revolutions, dropped, inserted, unmatched, repairs };
 }
 
 /** Teeth from the reference gap to the next gap of any size. */
@@ -309,7 +328,8 @@ function runAfterReference(wheel: ToothWheel): number {
 }
 
 /** One edge missing: put it in the period that is longest against the wheel's expectation. */
-function insertMissing(span: number[], wheel: ToothWheel): void {
+/** Inserts the missing edge and gives its time (NaN when none was inserted). */
+function insertMissing(span: number[], wheel: ToothWheel): number {
   let worst = -1;
   let worstRatio = 0;
   const dur = span[span.length - 1] - span[0];
@@ -322,11 +342,14 @@ function insertMissing(span: number[], wheel: ToothWheel): void {
       worst = k;
     }
   }
-  if (worst >= 0) span.splice(worst + 1, 0, (span[worst] + span[worst + 1]) / 2);
+  if (worst < 0) return NaN;
+  const at = (span[worst] + span[worst + 1]) / 2;
+  span.splice(worst + 1, 0, at);
+  return at;
 }
 
-/** One edge too many: drop the one whose two periods are the shortest pair. */
-function dropExtra(span: number[], wheel: ToothWheel): void {
+/** One edge too many: drop the one whose two periods are the shortest pair, and give its time (NaN when none was). */
+function dropExtra(span: number[], wheel: ToothWheel): number {
   void wheel;
   let best = -1;
   let bestSum = Infinity;
@@ -337,7 +360,7 @@ function dropExtra(span: number[], wheel: ToothWheel): void {
       best = k;
     }
   }
-  if (best > 0) span.splice(best, 1);
+  return best > 0 ? span.splice(best, 1)[0] : NaN;
 }
 
 /**

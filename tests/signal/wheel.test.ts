@@ -2,9 +2,13 @@
  * Tooth wheels of any layout, learned from edge times. The edges are made from the wheel's geometry and a crank
  * speed that swings 2× within each compression event, as real engines do (captures-real/README.md: max/min
  * about 2.1–2.6); the learner must find the wheel and give every edge its angle. Kinematics only: edge k of a
- * wheel sits at its position × 360°/positions, reached at the time the integrated speed gets there.
+ * wheel sits at its position × 360°/positions, reached at the time the integrated speed gets there. Where the
+ * repairs are reported, the simulator's Hall capture (signal/sim) gives a whole cranking, engaging to stop.
  */
 import { describe, expect, it } from 'vitest';
+import { analyzeCapture } from '@/signal';
+import { readCrankTeeth } from '@/signal/methods/crank-speed';
+import { simulateCranking } from '@/signal/sim/simulate';
 import { dropGlitches, learnWheel, wheelAngles } from '@/signal/teeth/learn-wheel';
 import { describeWheel, parseWheel, simpleWheel, type ToothWheel, wheelNotation } from '@/signal/teeth/wheel';
 
@@ -89,5 +93,30 @@ describe('glitch repair', () => {
     const a = wheelAngles(clean.times, learnWheel(clean.times)!)!;
     expect(a.inserted).toBe(1);
     expect(a.unmatched).toBe(0);
+    // The inserted edge is placed where the lost tooth was, and said where.
+    const inserted = a.repairs.filter((r) => r.kind === 'inserted');
+    expect(inserted).toHaveLength(1);
+    expect(inserted[0].fromS).toBeCloseTo(t[150], 3);
+  });
+
+  it('reports only the repairs made where the cranking is read, not the starter engaging or the crank coasting to a stop', () => {
+    // The simulator's 36-1 Hall capture: its first revolution, as the starter engages, loses an edge to the fast
+    // change of speed, and the last, as the crank coasts to a stop, does not match the wheel. Both lie outside the
+    // cranking window; a glitch put into the middle of the cranking is still counted and said.
+    const engine = { cylinders: 4, firingOrder: [1, 3, 4, 2], layout: 'inline' as const };
+    const sim = simulateCranking({ engine, seed: 123, channels: ['hall', 'sync'], leakPerS: [0, 3, 0, 0], teeth: { count: 36, missing: 1 }, sampleRateHz: 10_000, armatureInertia: 0.016 });
+    const read = readCrankTeeth({ time: sim.time, crank: sim.hall, sync: sim.sync }, engine)!;
+    const outside = read.found!.repairs;
+    expect(outside.length).toBeGreaterThanOrEqual(2);
+    const r = analyzeCapture({ time: sim.time, crank: sim.hall, sync: sim.sync }, { engine });
+    for (const x of outside) expect(x.toS < r.window.startS || x.fromS > r.window.endS).toBe(true);
+    expect(r.warnings.map((w) => w.code)).not.toContain('TEETH_REPAIRED');
+    // One short glitch pulse (1 µs wide) on the Hall line at 2.5 s, inside the window.
+    const hall = Float64Array.from(sim.hall!);
+    const i = Math.round(2.5 * 10_000);
+    const high = hall[i] > 2.5;
+    hall[i] = high ? 0.1 : 5;
+    const glitched = analyzeCapture({ time: sim.time, crank: hall, sync: sim.sync }, { engine });
+    expect(glitched.warnings.find((w) => w.code === 'TEETH_REPAIRED')?.message).toMatch(/glitch edge\(s\) dropped|inserted|left out/);
   });
 });
