@@ -1,9 +1,9 @@
 /**
- * Where the starter's one-way clutch ran free, found with a crank channel beside the current. Locked, the armature
- * turns with the crank and a DC motor's relation holds, I = (V − k·ω)/R: the current is affine in crank speed and
- * falls as the crank speeds up. Free, the crank runs ahead of the armature, so the current sits above that line
- * (at the starter's no-load level) while the crank is fast. The line is fitted per capture, from the samples that
- * follow it.
+ * Where the starter's one-way clutch ran free, found with a crank channel beside the current (or the battery
+ * voltage, read as the current it implies). Locked, the armature turns with the crank and a DC motor's relation
+ * holds, I = (V − k·ω)/R: the current is affine in crank speed and falls as the crank speeds up. Free, the crank runs
+ * ahead of the armature, so the current sits above that line (at the starter's no-load level) while the crank is
+ * fast. The line is fitted per capture, from the samples that follow it.
  */
 import { median, quantile } from '../dsp/stats';
 import { movingAverage } from '../dsp/smooth';
@@ -24,8 +24,8 @@ export interface ClutchOverrun {
 
 /**
  * A sample is free when the current stands this share of the cranking swing above the locked line, and more than
- * the line's own scatter allows. On the simulator's ensemble (10 draws per layout, with its weak-battery and
- * dragging-starter families, seeds 1–10) these found overrun in 14 of the 24 captures that had it and in none of the
+ * the line's own scatter allows. On the simulator's ensemble, held-out, weak-battery and dragging-starter families
+ * (seeds 1–10 on each of six layouts) these found overrun in 14 of the 24 captures that had it and in none of the
  * 216 without it; the 10 missed let the crank run barely ahead (2–4 % of the swing above the line) and their
  * current figures erred 2.9 points or less on average. Leaving the found stretches out took the current's mean error
  * from 1.12 to 1.09 points on the ensemble and from 0.83 to 0.66 on the dragging starters (one I4 from 3.8 to 1.2).
