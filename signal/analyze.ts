@@ -107,8 +107,11 @@ export function analyzeCapture(columns: CaptureColumns, settings: AnalysisSettin
       );
     }
     if (!hasCrank) return { ok: false, warnings: [warning('NO_USABLE_CHANNEL', 'The crank-speed method needs crank tooth times, a crank sensor channel or an engine-speed channel; map one or choose the starter-current method.')] };
-    if (!columns.toothTimes && !columns.crank) return runSpeedChannelMethod(columns.time!, columns.rpm!, setup, rotation, settings.window);
-    crankOutcome ??= runCrankSpeedMethod(crankInput, setup, rotation, settings.window, readTeeth());
+    // Run once: the cross-check, the choice of method and the electrical methods' clutch check all ask for it.
+    crankOutcome ??=
+      !columns.toothTimes && !columns.crank
+        ? runSpeedChannelMethod(columns.time!, columns.rpm!, setup, rotation, settings.window)
+        : runCrankSpeedMethod(crankInput, setup, rotation, settings.window, readTeeth());
     return crankOutcome;
   };
   // The crank's own speed, where its wheel draws a speed curve, shows where the starter's clutch ran free.

@@ -73,3 +73,26 @@ export function maxOf(values: ArrayLike<number>): number {
   for (let i = 0; i < values.length; i++) if (values[i] > m) m = values[i];
   return m;
 }
+
+/**
+ * The least-squares line y ≈ a + b·x over the pairs `keep` accepts (all by default); a flat line through the mean
+ * when x does not vary, and 0 with nothing to fit.
+ */
+export function lineFit(x: ArrayLike<number>, y: ArrayLike<number>, keep?: (k: number) => boolean): { a: number; b: number } {
+  let n = 0;
+  let sx = 0;
+  let sy = 0;
+  let sxx = 0;
+  let sxy = 0;
+  for (let k = 0; k < x.length; k++) {
+    if (keep && !keep(k)) continue;
+    n++;
+    sx += x[k];
+    sy += y[k];
+    sxx += x[k] * x[k];
+    sxy += x[k] * y[k];
+  }
+  const d = n * sxx - sx * sx;
+  const b = d > 0 ? (n * sxy - sx * sy) / d : 0;
+  return { a: n > 0 ? (sy - b * sx) / n : 0, b };
+}

@@ -116,9 +116,9 @@ export interface SimTruth {
   cycles: number;
   /**
    * The starter's one-way clutch while cranking steadily: the share of the time it ran free (the crank ahead of
-   * the armature) and how many times it let go.
+   * the armature), and each stretch from letting go to catching the crank again, s.
    */
-  overrun: { share: number; releases: number; spans: Array<[number, number]> };
+  overrun: { share: number; spans: Array<[number, number]> };
   /** The starting system as simulated: what a starting-system check should read. */
   starting: {
     /** Battery rest voltage, V. */
@@ -259,7 +259,6 @@ export function simulateCranking(options: SimOptions): SimResult {
   let locked = true;
   let freeSteps = 0;
   let steadySteps = 0;
-  let releases = 0;
   const spans: Array<[number, number]> = [];
   let t = 0;
   let lastToothSlot = Math.floor((theta - gapOffset) / pitch);
@@ -335,10 +334,7 @@ export function simulateCranking(options: SimOptions): SimResult {
         // The clutch carries motor torque less what the armature itself needs; below zero it lets go.
         if (motorNm - armatureInertia * accel < 0) {
           locked = false;
-          if (t > steadyFrom && t < offS) {
-            releases++;
-            spans.push([t, offS]);
-          }
+          if (t > steadyFrom && t < offS) spans.push([t, offS]);
         }
       }
       if (!locked || !engaged) {
@@ -438,7 +434,7 @@ export function simulateCranking(options: SimOptions): SimResult {
       relativePercent,
       meanRpm: (meanOmega * 60) / (2 * Math.PI),
       cycles,
-      overrun: { share: steadySteps ? freeSteps / steadySteps : 0, releases, spans },
+      overrun: { share: steadySteps ? freeSteps / steadySteps : 0, spans },
       starting: {
         restingV: batteryV,
         batteryOhm: rBattery,

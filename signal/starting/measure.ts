@@ -4,7 +4,7 @@
  * steady cranking draw and voltage, and the battery's resistance from the inrush, the slope of voltage against
  * current (Ohm's law: R = −ΔV/ΔI, the two-point method of battery standards taken over every inrush sample).
  */
-import { maxOf, mean, median, minOf, quantileProbe } from '../dsp/stats';
+import { lineFit, maxOf, mean, median, minOf, quantileProbe } from '../dsp/stats';
 import { movingAverage } from '../dsp/smooth';
 import { indexAtTime } from '../dsp/decimate';
 import { clampReversed } from '../methods/current';
@@ -97,19 +97,9 @@ export function measureStarting(input: StartingInput): StartingFigures | null {
 
 /** −slope of voltage on current over the rest and the inrush, mΩ; null when the current does not span 50 A. */
 function inrushResistance(a: Float64Array, v: Float64Array, from: number, to: number): number | null {
-  let sa = 0, sv = 0, saa = 0, sav = 0, lo = Infinity, hi = -Infinity;
-  const m = to - from;
-  for (let i = from; i < to; i++) {
-    sa += a[i];
-    sv += v[i];
-    saa += a[i] * a[i];
-    sav += a[i] * v[i];
-    lo = Math.min(lo, a[i]);
-    hi = Math.max(hi, a[i]);
-  }
-  if (m < 10 || hi - lo < 50) return null;
-  const slope = (sav - (sa * sv) / m) / (saa - (sa * sa) / m);
-  return -slope * 1000;
+  const amps = a.subarray(from, to);
+  if (amps.length < 10 || maxOf(amps) - minOf(amps) < 50) return null;
+  return -lineFit(amps, v.subarray(from, to)).b * 1000;
 }
 
 function lastBeyond(x: Float64Array, threshold: number, sign: number): number {

@@ -5,7 +5,7 @@
  * ahead of the armature, so the current sits above that line (at the starter's no-load level) while the crank is
  * fast. The line is fitted per capture, from the samples that follow it.
  */
-import { median, quantile } from '../dsp/stats';
+import { lineFit, median, quantile } from '../dsp/stats';
 import { movingAverage } from '../dsp/smooth';
 
 /** Crank speed along time, rad/s: the crank-speed method's rows. */
@@ -75,19 +75,18 @@ export function findClutchOverrun(
   const low = median(current);
   let keep = omega.map((w) => w <= fast);
   let line = { a: 0, b: 0 };
-  let scatter = 0;
+  let limit = 0;
   for (let round = 0; round < LINE_ROUNDS; round++) {
-    line = fitLine(omega, current, keep);
+    line = lineFit(omega, current, (k) => keep[k]);
     const residuals = current.map((c, k) => c - line.a - line.b * omega[k]);
-    scatter = median(residuals.filter((_, k) => keep[k]).map(Math.abs));
-    const limit = Math.max(FREE_MADS * scatter, FREE_SHARE_OF_SWING * swing);
+    const scatter = median(residuals.filter((_, k) => keep[k]).map(Math.abs));
+    limit = Math.max(FREE_MADS * scatter, FREE_SHARE_OF_SWING * swing);
     keep = residuals.map((r) => r < limit);
   }
   // Locked, the current falls as the crank speeds up, by most of its swing: a line that does not is no motor's.
   const speedRange = quantile(omega, 0.98) - quantile(omega, 0.02);
   if (!(-line.b * speedRange > MIN_LINE_SHARE * swing)) return null;
   // Free means the crank is fast and the current low, and the current well above the line.
-  const limit = Math.max(FREE_MADS * scatter, FREE_SHARE_OF_SWING * swing);
   const spans: Array<[number, number]> = [];
   let start = -1;
   for (let k = 0; k <= idx.length; k++) {
@@ -108,25 +107,6 @@ export function findClutchOverrun(
     lastEnd = b;
   }
   return { spans, events, of: Math.max(events, Math.round((toS - fromS) / eventS)) };
-}
-
-function fitLine(x: number[], y: number[], keep: boolean[]): { a: number; b: number } {
-  let n = 0;
-  let sx = 0;
-  let sy = 0;
-  let sxx = 0;
-  let sxy = 0;
-  for (let k = 0; k < x.length; k++) {
-    if (!keep[k]) continue;
-    n++;
-    sx += x[k];
-    sy += y[k];
-    sxx += x[k] * x[k];
-    sxy += x[k] * y[k];
-  }
-  const d = n * sxx - sx * sx;
-  const b = d > 0 ? (n * sxy - sx * sy) / d : 0;
-  return { a: n > 0 ? (sy - b * sx) / n : 0, b };
 }
 
 /** Whether time `t` falls in one of the spans (sorted), widened by `marginS` on each side. */
