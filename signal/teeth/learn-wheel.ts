@@ -40,20 +40,18 @@ export function dropGlitches(times: Float64Array): { times: Float64Array; droppe
   const n = times.length;
   if (n < 4) return { times, dropped: 0, droppedAtS: [] };
   const out: number[] = [times[0]];
-  let dropped = 0;
   const droppedAtS: number[] = [];
   const d = new Float64Array(n - 1);
   for (let k = 0; k + 1 < n; k++) d[k] = times[k + 1] - times[k];
   for (let k = 1; k < n; k++) {
     const local = localMedian(d, k - 1, 4);
     if (times[k] - out[out.length - 1] < GLITCH_SHARE * local || !(times[k] > out[out.length - 1])) {
-      dropped++;
       droppedAtS.push(times[k]);
       continue;
     }
     out.push(times[k]);
   }
-  return { times: Float64Array.from(out), dropped, droppedAtS };
+  return { times: Float64Array.from(out), dropped: droppedAtS.length, droppedAtS };
 }
 
 /**
@@ -327,8 +325,10 @@ function runAfterReference(wheel: ToothWheel): number {
   return run;
 }
 
-/** One edge missing: put it in the period that is longest against the wheel's expectation. */
-/** Inserts the missing edge and gives its time (NaN when none was inserted). */
+/**
+ * One edge missing: put it in the period that is longest against the wheel's expectation, and give its time (NaN
+ * when none was inserted).
+ */
 function insertMissing(span: number[], wheel: ToothWheel): number {
   let worst = -1;
   let worstRatio = 0;
